@@ -1,0 +1,64 @@
+/**
+ * Invented layout "quoted-utf16": every field in double quotes, comma-delimited, CRLF line
+ * ends, encoded UTF-16 little-endian with a byte-order mark. Quoted label/value pairs above
+ * the table, then headers spelt the way some carts abbreviate (V'O2, V'CO2, V'E, BF for
+ * breathing frequency, VTex, Load). Time in s with one decimal; no RPE column (the peak
+ * rating is a label/value line instead).
+ */
+import type { BreathTable } from '../../core/model/breath-table';
+import { fixed, sexWord } from './text-cells';
+
+function quote(text: string): string {
+  return `"${text.replace(/"/g, '""')}"`;
+}
+
+/** UTF-16 LE bytes with a BOM (FF FE). */
+export function utf16LeWithBom(text: string): Uint8Array {
+  const bytes = new Uint8Array(2 + text.length * 2);
+  bytes[0] = 0xff;
+  bytes[1] = 0xfe;
+  for (let i = 0; i < text.length; i++) {
+    const unit = text.charCodeAt(i);
+    bytes[2 + 2 * i] = unit & 0xff;
+    bytes[3 + 2 * i] = unit >> 8;
+  }
+  return bytes;
+}
+
+export function quotedUtf16Text(table: BreathTable): string {
+  const m = table.metadata;
+  const peakRpe = table.rpe.length > 0 ? String(Math.max(...table.rpe.map((r) => r.borg))) : '';
+  const pairs: [string, string][] = [
+    ['Subject', m.subjectId ?? ''],
+    ['Age', m.ageY === null ? '' : String(m.ageY)],
+    ['Gender', sexWord(m.sex)],
+    ['Height', m.heightCm === null ? '' : `${m.heightCm} cm`],
+    ['Weight', m.weightKg === null ? '' : `${m.weightKg} kg`],
+    ['Recorded', (m.testStart ?? '').replace('T', ' ')],
+    ['Protocol, "as run"', m.protocol ?? ''],
+    ['Peak Borg', peakRpe],
+  ];
+  const lines = pairs.map(([k, v]) => [quote(k), quote(v)].join(','));
+  const header = ['t (s)', "V'O2 (ml/min)", "V'CO2 (ml/min)", "V'E (l/min)", 'HR', 'Load', 'PETO2', 'PETCO2', 'BF', 'VTex (l)'];
+  const rows = table.breaths.map((b) =>
+    [
+      fixed(b.timeS, 1),
+      fixed(b.vo2MlMin, 0),
+      fixed(b.vco2MlMin, 0),
+      fixed(b.veLMin, 2),
+      fixed(b.hrBpm, 0),
+      fixed(b.workW, 0),
+      fixed(b.peto2Mmhg, 1),
+      fixed(b.petco2Mmhg, 1),
+      fixed(b.rrPerMin, 1),
+      fixed(b.vtL, 3),
+    ]
+      .map(quote)
+      .join(','),
+  );
+  return [...lines, '', header.map(quote).join(','), ...rows].join('\r\n') + '\r\n';
+}
+
+export function writeQuotedUtf16(table: BreathTable): Uint8Array {
+  return utf16LeWithBom(quotedUtf16Text(table));
+}
