@@ -1,0 +1,143 @@
+/**
+ * Averaging of breath-by-breath data into the processed series every detector and chart
+ * uses. Three published-practice forms (Robergs, Dwyer & Astorino, Sports Med
+ * 2010;40:95–111, compare time- and breath-based averaging and recommend stating the choice):
+ *
+ * - `rolling-time`: at each breath, the mean of all breaths within ± windowS/2 s of it
+ *   (centred, so averaging adds no lag). Default 15 s (common practice).
+ * - `time-bins`: consecutive fixed bins [k·binS, (k+1)·binS) s; one point per non-empty bin,
+ *   at the bin's midpoint.
+ * - `rolling-breaths`: at each breath, the mean of the `breaths` breaths centred on it
+ *   (fewer at the ends of the recording).
+ *
+ * Rolling points keep their breath's own time; bins sit at their midpoints.
+ * Units pass through unchanged (s, mL/min, L/min, bpm, W, mmHg). An optional variable is
+ * averaged over the breaths that recorded it, and is null where none in the window did.
+ *
+ * Example: rolling-breaths of 3 on VO2 1000, 1100, 1300 gives 1050, 1133.3, 1200.
+ */
+import type { Breath } from '../model/breath-table';
+import type { ProcessedSeries } from '../model/analysis';
+import type { AveragingSpec } from '../model/settings';
+
+type Required = 'timeS' | 'vo2MlMin' | 'vco2MlMin' | 'veLMin';
+type Optional = 'hrBpm' | 'workW' | 'peto2Mmhg' | 'petco2Mmhg';
+const REQUIRED: readonly Required[] = ['timeS', 'vo2MlMin', 'vco2MlMin', 'veLMin'];
+const OPTIONAL: readonly Optional[] = ['hrBpm', 'workW', 'peto2Mmhg', 'petco2Mmhg'];
+
+export function averageBreaths(breaths: readonly Breath[], spec: AveragingSpec): ProcessedSeries {
+  switch (spec.kind) {
+    case 'rolling-time':
+      return rollingTimeMean(breaths, spec.windowS);
+    case 'time-bins':
+      return timeBinMean(breaths, spec.binS);
+    case 'rolling-breaths':
+      return rollingBreathMean(breaths, spec.breaths);
+  }
+}
+
+/** Centred time window: each breath's point averages breaths within ± windowS/2 s. */
+export function rollingTimeMean(breaths: readonly Breath[], windowS: number): ProcessedSeries {
+  const half = windowS / 2;
+  const ranges: [number, number][] = [];
+  let lo = 0;
+  let hi = 0;
+  for (let i = 0; i < breaths.length; i++) {
+    const t = breaths[i].timeS;
+    while (breaths[lo].timeS < t - half) lo++;
+    if (hi < i) hi = i;
+    while (hi + 1 < breaths.length && breaths[hi + 1].timeS <= t + half) hi++;
+    ranges.push([lo, hi]);
+  }
+  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
+}
+
+/** Fixed bins of binS seconds; the time of each point is its bin's midpoint. */
+export function timeBinMean(breaths: readonly Breath[], binS: number): ProcessedSeries {
+  const ranges: [number, number][] = [];
+  const mids: number[] = [];
+  let start = 0;
+  while (start < breaths.length) {
+    const bin = Math.floor(breaths[start].timeS / binS);
+    let end = start;
+    while (end + 1 < breaths.length && Math.floor(breaths[end + 1].timeS / binS) === bin) end++;
+    ranges.push([start, end]);
+    mids.push((bin + 0.5) * binS);
+    start = end + 1;
+  }
+  const series = meansOverRanges(breaths, ranges);
+  return { ...series, timeS: mids };
+}
+
+/** Centred window of `count` breaths (for an even count, one more breath after than before). */
+export function rollingBreathMean(breaths: readonly Breath[], count: number): ProcessedSeries {
+  const before = Math.floor((Math.max(1, count) - 1) / 2);
+  const after = Math.max(1, count) - 1 - before;
+  const ranges: [number, number][] = breaths.map((_, i) => [Math.max(0, i - before), Math.min(breaths.length - 1, i + after)]);
+  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
+}
+
+/** Means of every variable over inclusive index ranges, by prefix sums. */
+function meansOverRanges(breaths: readonly Breath[], ranges: readonly (readonly [number, number])[]): ProcessedSeries {
+  const out: Record<string, (number | null)[]> = {};
+  for (const key of REQUIRED) {
+    const prefix = prefixSums(breaths.map((b) => b[key]));
+    out[key] = ranges.map(([lo, hi]) => (prefix.sum[hi + 1] - prefix.sum[lo]) / (hi - lo + 1));
+  }
+  for (const key of OPTIONAL) {
+    const prefix = prefixSums(breaths.map((b) => b[key]));
+    out[key] = ranges.map(([lo, hi]) => {
+      const n = prefix.count[hi + 1] - prefix.count[lo];
+      return n === 0 ? null : (prefix.sum[hi + 1] - prefix.sum[lo]) / n;
+    });
+  }
+  return out as unknown as ProcessedSeries;
+}
+
+function prefixSums(values: readonly (number | null)[]): { sum: number[]; count: number[] } {
+  const sum = [0];
+  const count = [0];
+  for (const v of values) {
+    sum.push(sum[sum.length - 1] + (v ?? 0));
+    count.push(count[count.length - 1] + (v === null ? 0 : 1));
+  }
+  return { sum, count };
+}
+
+/**
+ * Linear interpolation of a series onto an even grid every `stepS` seconds, from its first
+ * to its last time, for methods that need even spacing. An optional variable is null at a
+ * grid point unless both neighbouring points recorded it.
+ *
+ * Example: times 0 and 2 s with VO2 1000 and 1200 → grid 0, 1, 2 s with 1000, 1100, 1200.
+ */
+export function interpolateToGrid(series: ProcessedSeries, stepS = 1): ProcessedSeries {
+  const t = series.timeS;
+  if (t.length === 0) return series;
+  const grid: number[] = [];
+  const steps = Math.floor((t[t.length - 1] - t[0]) / stepS + 1e-9);
+  for (let k = 0; k <= steps; k++) grid.push(t[0] + k * stepS);
+  const at: { i: number; f: number }[] = [];
+  let i = 0;
+  for (const x of grid) {
+    while (i + 1 < t.length - 1 && t[i + 1] <= x) i++;
+    const j = Math.min(i + 1, t.length - 1);
+    const span = t[j] - t[i];
+    at.push({ i, f: span > 0 ? Math.min(1, Math.max(0, (x - t[i]) / span)) : 0 });
+  }
+  const out: Record<string, (number | null)[]> = { timeS: grid };
+  for (const key of REQUIRED.slice(1)) {
+    const v = series[key as Exclude<Required, 'timeS'>];
+    out[key] = at.map(({ i: k, f }) => v[k] + f * (v[Math.min(k + 1, v.length - 1)] - v[k]));
+  }
+  for (const key of OPTIONAL) {
+    const v = series[key];
+    out[key] = at.map(({ i: k, f }) => {
+      const a = v[k];
+      const b = v[Math.min(k + 1, v.length - 1)];
+      if (a === null || b === null) return f === 0 ? a : f === 1 ? b : null;
+      return a + f * (b - a);
+    });
+  }
+  return out as unknown as ProcessedSeries;
+}
