@@ -1,0 +1,311 @@
+/**
+ * Shared segment fitting for the breakpoint detectors: two straight lines through (x, y).
+ *
+ * (a) `twoRegressionSplit`: the two-regression split of the V-slope method (Beaver, Wasserman &
+ *     Whipp, J Appl Physiol 1986;60:2020–7). For every split of the x-sorted points into a left
+ *     and a right run, fit a separate ordinary least-squares line to each; keep the split with
+ *     the smallest total residual sum of squares RSS_left + RSS_right. Beaver et al. compared
+ *     the two-line fit with the single-line fit through all points (a ratio of the single-line
+ *     to the two-line error, as recalled: memory); the single-line error does not depend on
+ *     the split and the two-line fit always has four parameters, so maximising that ratio and
+ *     minimising the total two-line RSS choose the same split. We state the criterion as the
+ *     RSS because it needs no assumption about how their ratio was scaled. The breakpoint is
+ *     the x where the two lines cross, clamped to the x-range of the data.
+ * (b) `hingeFit`: the continuous two-segment least-squares fit
+ *     y = a + b·x + c·(x − k)+, the knot k searched over every interval between neighbouring
+ *     x values. Within one interval the set of points right of the knot is fixed; following
+ *     Hudson (J Am Stat Assoc 1966;61:1097–129) the best knot there is the crossing of the
+ *     two separately fitted lines when that crossing lies inside the interval (then the
+ *     continuous fit equals the two-line fit), otherwise an end of the interval, i.e. a data
+ *     point. Both are evaluated, so the search is exact, not a grid.
+ *
+ * Both searches are linear in the number of points: the per-run sums of x, y, x², xy, y² come
+ * from prefix sums, computed on x and y centred at their means so that large VO2 values do
+ * not cost precision. Units are those of x and y (mL/min for VCO2 against VO2). Assumptions:
+ * finite values only (callers remove the rest and say how many they used), at least
+ * `minPerSide` points on each side of the break.
+ */
+
+export interface LineFit {
+  readonly slope: number;
+  readonly intercept: number;
+  readonly rss: number;
+  readonly n: number;
+}
+
+export interface TwoRegressionFit {
+  /** Points in the left run (the right run starts at this index of the x-sorted data). */
+  readonly splitIndex: number;
+  readonly left: LineFit;
+  readonly right: LineFit;
+  readonly rss: number;
+  /** Where the two lines cross, clamped to the data's x-range. */
+  readonly breakX: number;
+  /** x of the last left point and the first right point. */
+  readonly splitBetween: readonly [number, number];
+}
+
+export interface HingeFit {
+  readonly knot: number;
+  /** Line left of the knot: y = intercept + slopeBefore · x. */
+  readonly intercept: number;
+  readonly slopeBefore: number;
+  readonly slopeAfter: number;
+  readonly rss: number;
+  readonly n: number;
+  /** Points with x ≤ knot. */
+  readonly pointsBefore: number;
+}
+
+/** Points sorted by x (stable), with their means, centred values and prefix sums. */
+export interface PreparedPoints {
+  readonly x: Float64Array;
+  readonly y: Float64Array;
+  readonly mx: number;
+  readonly my: number;
+  /** Prefix sums of centred values: entry i covers points 0..i−1. */
+  readonly sx: Float64Array;
+  readonly sy: Float64Array;
+  readonly sxx: Float64Array;
+  readonly sxy: Float64Array;
+  readonly syy: Float64Array;
+}
+
+/** Sort by x and build the prefix sums; x and y must be finite and of equal length. */
+export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, alreadySorted = false): PreparedPoints {
+  const n = Math.min(xIn.length, yIn.length);
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  if (alreadySorted) {
+    for (let i = 0; i < n; i++) {
+      x[i] = xIn[i];
+      y[i] = yIn[i];
+    }
+  } else {
+    const order = Array.from({ length: n }, (_, i) => i);
+    order.sort((a, b) => xIn[a] - xIn[b] || a - b);
+    for (let i = 0; i < n; i++) {
+      x[i] = xIn[order[i]];
+      y[i] = yIn[order[i]];
+    }
+  }
+  let mx = 0;
+  let my = 0;
+  for (let i = 0; i < n; i++) {
+    mx += x[i];
+    my += y[i];
+  }
+  mx = n > 0 ? mx / n : 0;
+  my = n > 0 ? my / n : 0;
+  const sx = new Float64Array(n + 1);
+  const sy = new Float64Array(n + 1);
+  const sxx = new Float64Array(n + 1);
+  const sxy = new Float64Array(n + 1);
+  const syy = new Float64Array(n + 1);
+  for (let i = 0; i < n; i++) {
+    const cx = x[i] - mx;
+    const cy = y[i] - my;
+    sx[i + 1] = sx[i] + cx;
+    sy[i + 1] = sy[i] + cy;
+    sxx[i + 1] = sxx[i] + cx * cx;
+    sxy[i + 1] = sxy[i] + cx * cy;
+    syy[i + 1] = syy[i] + cy * cy;
+  }
+  return { x, y, mx, my, sx, sy, sxx, sxy, syy };
+}
+
+/**
+ * The same x with new y values (same length, same order), reusing `scratch` for the y prefix
+ * sums: the bootstrap refits one x many times and should not allocate for each replicate.
+ */
+export function replaceY(p: PreparedPoints, yIn: ArrayLike<number>, scratch: YScratch): PreparedPoints {
+  const n = p.x.length;
+  const { y, sy, sxy, syy } = scratch;
+  let my = 0;
+  for (let i = 0; i < n; i++) {
+    y[i] = yIn[i];
+    my += y[i];
+  }
+  my = n > 0 ? my / n : 0;
+  for (let i = 0; i < n; i++) {
+    const cx = p.x[i] - p.mx;
+    const cy = y[i] - my;
+    sy[i + 1] = sy[i] + cy;
+    sxy[i + 1] = sxy[i] + cx * cy;
+    syy[i + 1] = syy[i] + cy * cy;
+  }
+  return { x: p.x, y, mx: p.mx, my, sx: p.sx, sy, sxx: p.sxx, sxy, syy };
+}
+
+export interface YScratch {
+  readonly y: Float64Array;
+  readonly sy: Float64Array;
+  readonly sxy: Float64Array;
+  readonly syy: Float64Array;
+}
+
+export function yScratch(n: number): YScratch {
+  return { y: new Float64Array(n), sy: new Float64Array(n + 1), sxy: new Float64Array(n + 1), syy: new Float64Array(n + 1) };
+}
+
+/** Centred OLS over points [from, to): slope, centred intercept and RSS; null without x spread. */
+function runFit(p: PreparedPoints, from: number, to: number): { b: number; a: number; rss: number } | null {
+  const n = to - from;
+  if (n < 2) return null;
+  const sx = p.sx[to] - p.sx[from];
+  const sy = p.sy[to] - p.sy[from];
+  const dxx = p.sxx[to] - p.sxx[from] - (sx * sx) / n;
+  const dxy = p.sxy[to] - p.sxy[from] - (sx * sy) / n;
+  const dyy = p.syy[to] - p.syy[from] - (sy * sy) / n;
+  if (!(dxx > 0)) return null;
+  const b = dxy / dxx;
+  return { b, a: sy / n - (b * sx) / n, rss: Math.max(0, dyy - b * dxy) };
+}
+
+function toLine(p: PreparedPoints, f: { b: number; a: number; rss: number }, n: number): LineFit {
+  return { slope: f.b, intercept: p.my + f.a - f.b * p.mx, rss: f.rss, n };
+}
+
+/** The two-regression split with the smallest total RSS; null when no split leaves `minPerSide` a side. */
+export function twoRegressionSplit(p: PreparedPoints, minPerSide: number): TwoRegressionFit | null {
+  const n = p.x.length;
+  const m = Math.max(2, minPerSide);
+  const { sx, sy, sxx, sxy, syy } = p;
+  let bestS = -1;
+  let bestRss = Infinity;
+  for (let s = m; s <= n - m; s++) {
+    const nr = n - s;
+    const sxl = sx[s];
+    const syl = sy[s];
+    const sxr = sx[n] - sxl;
+    const syr = sy[n] - syl;
+    const lxx = sxx[s] - (sxl * sxl) / s;
+    const rxx = sxx[n] - sxx[s] - (sxr * sxr) / nr;
+    if (!(lxx > 0 && rxx > 0)) continue;
+    const lxy = sxy[s] - (sxl * syl) / s;
+    const rxy = sxy[n] - sxy[s] - (sxr * syr) / nr;
+    const lyy = syy[s] - (syl * syl) / s;
+    const ryy = syy[n] - syy[s] - (syr * syr) / nr;
+    const rss = Math.max(0, lyy - (lxy * lxy) / lxx) + Math.max(0, ryy - (rxy * rxy) / rxx);
+    if (rss < bestRss) {
+      bestRss = rss;
+      bestS = s;
+    }
+  }
+  if (bestS < 0) return null;
+  const best = { s: bestS, rss: bestRss, l: runFit(p, 0, bestS)!, r: runFit(p, bestS, n)! };
+  const left = toLine(p, best.l, best.s);
+  const right = toLine(p, best.r, n - best.s);
+  const lo = p.x[0];
+  const hi = p.x[n - 1];
+  const between: [number, number] = [p.x[best.s - 1], p.x[best.s]];
+  let breakX = (between[0] + between[1]) / 2;
+  if (left.slope !== right.slope) {
+    const cross = (right.intercept - left.intercept) / (left.slope - right.slope);
+    if (Number.isFinite(cross)) breakX = Math.min(hi, Math.max(lo, cross));
+  }
+  return { splitIndex: best.s, left, right, rss: best.rss, breakX, splitBetween: between };
+}
+
+/**
+ * The least-squares continuous two-segment fit; null when no knot leaves `minPerSide` a side.
+ * For partition j (points 0..j left, j+1..n−1 right) it evaluates the crossing of the two
+ * separate lines when it lies strictly inside (x_j, x_j+1), else the knot at x_j by the 3 × 3
+ * normal equations for (a, b, c) of y = a + b·x + c·(x − k)+. All in centred coordinates and
+ * without allocation, since the bootstrap calls this hundreds of times per test.
+ */
+export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null {
+  const n = p.x.length;
+  const m = Math.max(2, minPerSide);
+  const { sx, sy, sxx, sxy, syy } = p;
+  // Whole-data sums (centred, so sX and sY are zero up to rounding).
+  const sX = sx[n];
+  const sY = sy[n];
+  const XX = sxx[n] - (sX * sX) / n;
+  const XY = sxy[n] - (sX * sY) / n;
+  const YY = syy[n] - (sY * sY) / n;
+  let bestRss = Infinity;
+  let bestK = 0;
+  let bestA = 0;
+  let bestB = 0;
+  let bestC = 0;
+  let bestJ = -1;
+  for (let j = m - 1; j <= n - m - 1; j++) {
+    const xj = p.x[j] - p.mx;
+    const xj1 = p.x[j + 1] - p.mx;
+    if (!(xj < xj1)) continue; // tied x: the knot at this value is taken at the last tied point
+    const nl = j + 1;
+    const nr = n - nl;
+    const inl = 1 / nl;
+    const inr = 1 / nr;
+    const sxl = sx[nl];
+    const syl = sy[nl];
+    const sxr = sX - sxl;
+    const syr = sY - syl;
+    const sxxr = sxx[n] - sxx[nl];
+    const sxyr = sxy[n] - sxy[nl];
+    // The two separate lines of this partition. Their total RSS bounds from below every
+    // continuous fit with the knot in [x_j, x_j+1), so a partition that cannot beat the best
+    // so far is skipped whole.
+    const lxx = sxx[nl] - sxl * sxl * inl;
+    const rxx = sxxr - sxr * sxr * inr;
+    if (lxx > 0 && rxx > 0) {
+      const lxy = sxy[nl] - sxl * syl * inl;
+      const rxy = sxyr - sxr * syr * inr;
+      const bl = lxy / lxx;
+      const br = rxy / rxx;
+      const twoLine = syy[nl] - syl * syl * inl - bl * lxy + (syy[n] - syy[nl] - syr * syr * inr - br * rxy);
+      if (twoLine >= bestRss) continue;
+      // Knot inside (x_j, x_j+1): the two lines' crossing, if it lies there (Hudson 1966).
+      if (bl !== br) {
+        const al = (syl - bl * sxl) * inl;
+        const ar = (syr - br * sxr) * inr;
+        const kc = (ar - al) / (bl - br);
+        if (kc > xj && kc < xj1) {
+          bestRss = twoLine;
+          bestK = kc;
+          bestA = al;
+          bestB = bl;
+          bestC = br - bl;
+          bestJ = j;
+          continue; // the two-line RSS is the bound, so the knot at x_j cannot do better
+        }
+      }
+    }
+    // Knot at the data point x_j: hinge column z = (x − x_j)+, intercept eliminated.
+    const kc = xj;
+    const sZ = sxr - kc * nr;
+    const xz = sxxr - kc * sxr - (sX * sZ) / n;
+    const zz = sxxr - 2 * kc * sxr + kc * kc * nr - (sZ * sZ) / n;
+    const zy = sxyr - kc * syr - (sZ * sY) / n;
+    const det = XX * zz - xz * xz;
+    if (det > 1e-12 * XX * zz) {
+      const b = (XY * zz - zy * xz) / det;
+      const c = (zy * XX - XY * xz) / det;
+      const rss = YY - b * XY - c * zy;
+      if (rss < bestRss) {
+        bestRss = rss;
+        bestK = kc;
+        bestB = b;
+        bestC = c;
+        bestA = (sY - b * sX - c * sZ) / n;
+        bestJ = j;
+      }
+    }
+  }
+  if (bestJ < 0) return null;
+  return {
+    knot: bestK + p.mx,
+    intercept: p.my + bestA - bestB * p.mx,
+    slopeBefore: bestB,
+    slopeAfter: bestB + bestC,
+    rss: Math.max(0, bestRss),
+    n,
+    pointsBefore: bestJ + 1,
+  };
+}
+
+/** Fitted value of a hinge fit at x. */
+export function hingeValue(fit: HingeFit, x: number): number {
+  return fit.intercept + fit.slopeBefore * x + (x > fit.knot ? (fit.slopeAfter - fit.slopeBefore) * (x - fit.knot) : 0);
+}

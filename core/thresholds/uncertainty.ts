@@ -1,0 +1,166 @@
+/**
+ * A 95 % confidence interval for a threshold: a residual bootstrap of the breakpoint fits,
+ * carried through the consensus.
+ *
+ * For each method that found the threshold, its fit gives fitted values and residuals. One
+ * bootstrap replicate adds resampled residuals to the fitted values of every such method,
+ * refits each (the same fit the method uses: the continuous two-segment fit, or the two
+ * regressions for `vslope`), and combines the refitted VO2 estimates as the consensus does
+ * (the median, consensus.ts). The interval is the 2.5th to 97.5th percentile of the replicates
+ * (percentile bootstrap, Efron & Tibshirani, An Introduction to the Bootstrap, 1993).
+ *
+ * Averaging makes neighbouring residuals correlated, and resampling them one by one would
+ * understate the scatter; residuals are therefore drawn in moving blocks (Künsch, Ann Stat
+ * 1989;17:1217–41). Block length (our choice): the first lag at which the residuals'
+ * autocorrelation falls below 0.1, between 1 and a quarter of the points.
+ *
+ * Replicates and seed come from `settings.thresholds.bootstrap`, through the seeded generator
+ * of core/math/random.ts, so the same file always gives the same interval. Units: mL/min for
+ * VO2; the time interval is read off the monotone VO2 curve at the VO2 limits, s.
+ * Assumptions: the fitted two-segment shape is right and the residuals are stationary. The
+ * interval shows how far noise moves the consensus; a bias the methods share is not in it.
+ */
+import type { MethodOutcome } from '../model/analysis';
+import { seededRandom, type Random } from '../math/random';
+import { quantile } from '../math/stats';
+import type { DetectorInput } from './detector';
+import { minPerSide } from './edge-floor';
+import { fitSample, type MethodSample } from './hinge-method';
+import { HINGE_METHODS } from './methods';
+import { timeAtValue, type MonotoneCurve } from './read-off';
+import { hingeFit, hingeValue, replaceY, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
+import { vslopeSample } from './vslope-hinge';
+
+export interface ThresholdCi {
+  readonly ci95Vo2MlMin: readonly [number, number];
+  readonly ci95TimeS: readonly [number, number];
+  /** Replicates in which at least one method could be refitted. */
+  readonly replicates: number;
+}
+
+interface Refit {
+  readonly base: PreparedPoints;
+  readonly scratch: YScratch;
+  readonly fitted: Float64Array;
+  readonly residuals: Float64Array;
+  readonly block: number;
+  readonly estimate: (p: PreparedPoints) => number | null;
+}
+
+/** First lag whose autocorrelation is below 0.1, within [1, n/4]. */
+export function blockLength(residuals: ArrayLike<number>): number {
+  const n = residuals.length;
+  const maxLag = Math.max(1, Math.floor(n / 4));
+  let c0 = 0;
+  for (let i = 0; i < n; i++) c0 += residuals[i] * residuals[i];
+  if (!(c0 > 0)) return 1;
+  for (let lag = 1; lag <= maxLag; lag++) {
+    let c = 0;
+    for (let i = lag; i < n; i++) c += residuals[i] * residuals[i - lag];
+    if (c / c0 < 0.1) return lag;
+  }
+  return maxLag;
+}
+
+function refitFor(method: string, input: DetectorInput): Refit | null {
+  const hinge = HINGE_METHODS[method];
+  if (method !== 'vslope' && !hinge) return null;
+  const sample: MethodSample | string = method === 'vslope' ? vslopeSample(input) : hinge.spec.sample(input);
+  if (typeof sample === 'string') return null;
+  const m = minPerSide(input.settings, sample.x.length);
+  // Residuals always come from the continuous fit; `vslope` is then refitted its own way.
+  const estimateKnot =
+    method === 'vslope' ? (p: PreparedPoints) => twoRegressionSplit(p, m)?.breakX ?? null : (p: PreparedPoints) => hingeFit(p, m)?.knot ?? null;
+  const base = fitSample(sample, m);
+  if (!base) return null;
+  const { p, fit } = base;
+  const n = p.x.length;
+  const fitted = new Float64Array(n);
+  const residuals = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    fitted[i] = hingeValue(fit, p.x[i]);
+    residuals[i] = p.y[i] - fitted[i];
+  }
+  const s = sample;
+  return {
+    base: p,
+    scratch: yScratch(n),
+    fitted,
+    residuals,
+    block: blockLength(residuals),
+    estimate: (q) => {
+      const knot = estimateKnot(q);
+      if (knot === null) return null;
+      const v = s.toPoint(knot).vo2MlMin;
+      return Number.isFinite(v) ? v : null;
+    },
+  };
+}
+
+function resample(r: Refit, random: Random, out: Float64Array): void {
+  const n = r.residuals.length;
+  const L = r.block;
+  let i = 0;
+  while (i < n) {
+    const start = Math.floor(random() * (n - L + 1));
+    for (let k = 0; k < L && i < n; k++, i++) out[i] = r.fitted[i] + r.residuals[start + k];
+  }
+}
+
+/** Each found method's estimate, refitted in every bootstrap replicate (NaN where a refit failed). */
+export interface MethodReplicates {
+  readonly methods: readonly string[];
+  /** replicates[b][k]: replicate b of method k, VO2 mL/min. */
+  readonly replicates: readonly (readonly number[])[];
+}
+
+/**
+ * Bootstrap replicates of every found method that can be refitted. All methods are resampled
+ * within the same replicate, so a combination (the consensus) can be formed replicate by
+ * replicate. Null when no method can be refitted or no replicates are asked for.
+ */
+export function methodReplicates(outcomes: readonly MethodOutcome[], input: DetectorInput, seedOffset: number): MethodReplicates | null {
+  const methods: string[] = [];
+  const refits: Refit[] = [];
+  for (const o of outcomes) {
+    if (!o.found) continue;
+    const r = refitFor(o.method, input);
+    if (!r) continue;
+    methods.push(o.method);
+    refits.push(r);
+  }
+  const { replicates, seed } = input.settings.thresholds.bootstrap;
+  if (refits.length === 0 || replicates < 2) return null;
+  const random = seededRandom((seed + seedOffset) >>> 0);
+  const buffers = refits.map((r) => new Float64Array(r.base.x.length));
+  const out: number[][] = [];
+  for (let b = 0; b < replicates; b++) {
+    out.push(
+      refits.map((r, k) => {
+        resample(r, random, buffers[k]);
+        return r.estimate(replaceY(r.base, buffers[k], r.scratch)) ?? Number.NaN;
+      }),
+    );
+  }
+  return { methods, replicates: out };
+}
+
+/**
+ * The 95 % percentile interval of a combination of the methods, formed in each replicate from
+ * the methods that refitted there; null with fewer than 2 usable replicates.
+ */
+export function combinationInterval(
+  reps: MethodReplicates,
+  combine: (values: readonly number[]) => number,
+  vo2: MonotoneCurve,
+): ThresholdCi | null {
+  const estimates: number[] = [];
+  for (const r of reps.replicates) {
+    const values = r.filter(Number.isFinite);
+    if (values.length > 0) estimates.push(combine(values));
+  }
+  if (estimates.length < 2) return null;
+  const lo = quantile(estimates, 0.025);
+  const hi = quantile(estimates, 0.975);
+  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates.length };
+}

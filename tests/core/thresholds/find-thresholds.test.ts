@@ -1,0 +1,44 @@
+// The entry point on the stated model of synthetic-series.ts (true VT1 1,700, VT2 2,600 mL/min).
+import { describe, expect, it } from 'vitest';
+import type { Phases } from '../../../core/model/analysis';
+import { DEFAULT_SETTINGS } from '../../../core/model/settings';
+import { findThresholds } from '../../../core/thresholds/find-thresholds';
+import { INC_END_S, INC_START_S, TRUE_VT1_VO2, TRUE_VT2_VO2, syntheticSeries } from './synthetic-series';
+
+const phases: Phases = { phases: [], incrementalStartS: INC_START_S, incrementalEndS: INC_END_S, rampWPerMin: 20, source: 'detected' };
+
+describe('findThresholds', () => {
+  it('finds both thresholds on the noise-free model within 3 % (the methods’ own bias, detectors.test.ts)', () => {
+    const { vt1, vt2 } = findThresholds(syntheticSeries(), phases, DEFAULT_SETTINGS);
+    expect(Math.abs(vt1.consensus!.vo2MlMin - TRUE_VT1_VO2) / TRUE_VT1_VO2).toBeLessThan(0.03);
+    expect(Math.abs(vt2.consensus!.vo2MlMin - TRUE_VT2_VO2) / TRUE_VT2_VO2).toBeLessThan(0.03);
+    expect(vt1.methods.map((m) => m.method)).toEqual(['vslope', 'vslope-hinge', 've-vo2', 'excess-co2', 'peto2']);
+    expect(vt2.methods.map((m) => m.method)).toEqual(['ve-vco2-ratio', 'petco2', 've-vs-vco2']);
+  });
+
+  it('searches VT2 after VT1 and gives intervals that contain the consensus on noisy data', () => {
+    const { vt1, vt2 } = findThresholds(syntheticSeries({ noise: 0.02, seed: 5 }), phases, DEFAULT_SETTINGS);
+    expect(vt2.consensus!.timeS).toBeGreaterThan(vt1.consensus!.timeS);
+    for (const t of [vt1, vt2]) {
+      const [lo, hi] = t.ci95Vo2MlMin!;
+      expect(lo).toBeLessThanOrEqual(hi);
+      expect(t.ci95TimeS![0]).toBeLessThanOrEqual(t.ci95TimeS![1]);
+      expect(t.spreadVo2MlMin).toBeGreaterThanOrEqual(0);
+    }
+  });
+
+  it('is deterministic: the same series and settings give the same result', () => {
+    const s = syntheticSeries({ noise: 0.03, seed: 9 });
+    expect(findThresholds(s, phases, DEFAULT_SETTINGS)).toEqual(findThresholds(s, phases, DEFAULT_SETTINGS));
+  });
+
+  it('returns reasons, not a crash, for a series too short to search', () => {
+    const s = syntheticSeries();
+    const short: Phases = { ...phases, incrementalStartS: 200, incrementalEndS: 220 };
+    const { vt1, vt2 } = findThresholds(s, short, DEFAULT_SETTINGS);
+    expect(vt1.consensus).toBeNull();
+    expect(vt2.consensus).toBeNull();
+    expect(vt1.reason).toMatch(/^No method found VT1\./);
+    expect(vt1.ci95Vo2MlMin).toBeNull();
+  });
+});
