@@ -1,0 +1,54 @@
+// Matched workloads on the noise-free fixture ramp (fixture.ts: VO2 = 500 + slope·W,
+// HR = 70 + 0.5·W, RER 0.9, VE/VCO2 30), values worked by hand.
+import { describe, expect, it } from 'vitest';
+import { matchedWorkloads } from '../../../core/compare/matched';
+import { DEFAULT_SETTINGS } from '../../../core/model/settings';
+import { buildAnalysis } from './fixture';
+
+describe('matchedWorkloads', () => {
+  // day 1: 15 W/min for 720 s → 0–180 W; day 2: ends at 780 s → 0–150 W, VO2 slope 11 mL/min/W.
+  const day1 = buildAnalysis({ vt1: { workW: 101.9 } });
+  const day2 = buildAnalysis({ endS: 780, slopeMlMinW: 11, vt1: { workW: 80 } });
+  const m = matchedWorkloads(day1, day2, DEFAULT_SETTINGS);
+
+  it('steps of 10 W over the common range 0–150 W, plus both VT1 workloads', () => {
+    if (!m.available) throw new Error(m.reason);
+    expect(m.rangeW).toEqual([0, 150]);
+    const steps = m.rows.filter((r) => r.kind === 'step').map((r) => r.workW);
+    expect(steps).toEqual([0, 10, 20, 30, 40, 50, 60, 70, 80, 90, 100, 110, 120, 130, 140, 150]);
+    expect(m.rows.filter((r) => r.kind !== 'step').map((r) => [r.kind, r.workW])).toEqual([['vt1_day1', 101.9], ['vt1_day2', 80]]);
+  });
+
+  it('at 100 W: VO2 1500 vs 1600 mL/min (+6.667%), HR 120 vs 120, RER 0.9, VE/VCO2 30', () => {
+    if (!m.available) throw new Error(m.reason);
+    const r = m.rows.find((x) => x.kind === 'step' && x.workW === 100)!;
+    expect(r.values.vo2MlMin.day1).toBeCloseTo(1500, 9);
+    expect(r.values.vo2MlMin.day2).toBeCloseTo(1600, 9);
+    expect(r.values.vo2MlMin.deltaPct).toBeCloseTo(6.6667, 3);
+    expect(r.values.hrBpm.delta).toBeCloseTo(0, 9);
+    expect(r.values.rer.day1).toBeCloseTo(0.9, 12);
+    expect(r.values.veVco2.day2).toBeCloseTo(30, 9);
+    expect(r.values.veLMin.day1).toBeCloseTo(0.027 * 1500, 9);
+  });
+
+  it('interpolates between samples: at 101.9 W, VO2 = 500 + 10·101.9 = 1519 and 500 + 11·101.9 = 1620.9', () => {
+    if (!m.available) throw new Error(m.reason);
+    const r = m.rows.find((x) => x.kind === 'vt1_day1')!;
+    expect(r.values.vo2MlMin.day1).toBeCloseTo(1519, 9);
+    expect(r.values.vo2MlMin.day2).toBeCloseTo(1620.9, 9);
+  });
+
+  it('reads only the incremental phase: recovery at 0 W after the ramp is never read', () => {
+    if (!m.available) throw new Error(m.reason);
+    const zero = m.rows.find((x) => x.workW === 0)!;
+    // the first sample of the ramp (t = 180 s, 0 W) is rest-level VO2 500, not a recovery value
+    expect(zero.values.vo2MlMin.day1).toBe(500);
+  });
+
+  it('treadmill and missing load: not available, with the reason', () => {
+    const tm = matchedWorkloads(day1, buildAnalysis({ metadata: { modality: 'treadmill' }, noWork: true }), DEFAULT_SETTINGS);
+    expect(tm).toEqual({ available: false, reason: 'Not available: day 2 on a treadmill, which has no workload in watts.' });
+    const noLoad = matchedWorkloads(day1, buildAnalysis({ noWork: true }), DEFAULT_SETTINGS);
+    expect(noLoad.available).toBe(false);
+  });
+});
