@@ -1,0 +1,87 @@
+/**
+ * The reviewer log as a hash chain. Each entry's hash is the SHA-256 of the canonical JSON
+ * of its body (every field but `hash`), and each body carries the hash of the entry before.
+ * The first entry points at the case's anchor: the hash of the inputs' SHA-256s, the
+ * settings and the clinical inputs, so swapping a raw file or a setting also breaks the
+ * chain. Editing, removing or reordering any entry changes a hash that a later entry (or
+ * the entry itself) has recorded, and `verifyLog` names the first entry that fails.
+ * The technique is the ordinary linked hash chain (Haber & Stornetta, J Cryptology 1991).
+ */
+import { canonicalJson } from './canonical-json';
+import { sha256Hex } from './sha256';
+import type { AuditEntry, AuditEntryBody, CaseFile } from './case-file';
+import { fail, locatedError, ok, type LocatedError, type Result } from '../model/errors';
+
+/** What the chain's first entry points at. */
+export function anchorHash(caseFile: Pick<CaseFile, 'format' | 'version' | 'createdAt' | 'inputs' | 'settings' | 'clinical'>): string {
+  const anchor = {
+    format: caseFile.format,
+    version: caseFile.version,
+    createdAt: caseFile.createdAt,
+    inputs: {
+      day1: { name: caseFile.inputs.day1.name, sha256: caseFile.inputs.day1.sha256 },
+      day2: { name: caseFile.inputs.day2.name, sha256: caseFile.inputs.day2.sha256 },
+    },
+    settings: caseFile.settings,
+    clinical: caseFile.clinical,
+  };
+  const text = canonicalJson(anchor);
+  // Settings and clinical inputs are validated finite numbers, so this cannot fail; keep a visible marker if it ever does.
+  return sha256Hex(text.ok ? text.value : `unserialisable:${text.error.message}`);
+}
+
+export function entryHash(body: AuditEntryBody): Result<string> {
+  const { seq, at, who, role, action, reason, prevHash } = body;
+  const text = canonicalJson({ seq, at, who, role, action, reason, prevHash });
+  return text.ok ? ok(sha256Hex(text.value)) : text;
+}
+
+export type NewEntry = Omit<AuditEntryBody, 'seq' | 'prevHash'>;
+
+/** The case with one more entry, chained to the last. Refuses an entry without who, role or reason. */
+export function appendEntry(caseFile: CaseFile, entry: NewEntry, file = 'case file'): Result<CaseFile> {
+  for (const [field, value] of [['reviewer name', entry.who], ['reviewer role', entry.role], ['reason', entry.reason]] as const) {
+    if (value.trim() === '') {
+      return fail(locatedError('review-field-missing', file, null, null, `Every reviewer action needs a ${field}; this one has none, so it was not recorded.`));
+    }
+  }
+  const last = caseFile.log[caseFile.log.length - 1];
+  const body: AuditEntryBody = {
+    seq: caseFile.log.length + 1,
+    at: entry.at,
+    who: entry.who,
+    role: entry.role,
+    action: entry.action,
+    reason: entry.reason,
+    prevHash: last ? last.hash : anchorHash(caseFile),
+  };
+  const hash = entryHash(body);
+  if (!hash.ok) return hash;
+  const sealed: AuditEntry = { ...body, hash: hash.value };
+  return ok({ ...caseFile, log: [...caseFile.log, sealed] });
+}
+
+/**
+ * Checks the whole chain. `lineOf(seq)` lets the caller point at the entry's line in the
+ * file it read; without it the error has no line.
+ */
+export function verifyLog(caseFile: CaseFile, file = 'case file', lineOf: (seq: number) => number | null = () => null): Result<true> {
+  let expectedPrev = anchorHash(caseFile);
+  for (let i = 0; i < caseFile.log.length; i++) {
+    const entry = caseFile.log[i];
+    const where = (code: string, message: string): LocatedError => locatedError(code, file, lineOf(entry.seq), null, message);
+    if (entry.seq !== i + 1) {
+      return fail(where('log-order', `Reviewer log entry ${i + 1} carries number ${entry.seq}: entries have been removed or reordered, so the history cannot be trusted.`));
+    }
+    if (entry.prevHash !== expectedPrev) {
+      const what = i === 0 ? 'the raw files, settings or clinical inputs it was recorded against' : `entry ${i}`;
+      return fail(where('log-chain-broken', `Reviewer log entry ${entry.seq} does not follow from ${what}: the history or the inputs were changed after the entry was recorded.`));
+    }
+    const hash = entryHash(entry);
+    if (!hash.ok || hash.value !== entry.hash) {
+      return fail(where('log-entry-altered', `Reviewer log entry ${entry.seq} (${entry.at}, ${entry.who}) was edited after it was recorded: its content no longer matches its hash.`));
+    }
+    expectedPrev = entry.hash;
+  }
+  return ok(true);
+}

@@ -1,0 +1,97 @@
+/**
+ * The case file: everything needed to reproduce one two-day comparison and its review.
+ * Format `twofold-case`, version 1, documented in docs/case-file.md. It holds the two raw
+ * breath files by SHA-256 (their copies sit beside it in the case folder), the settings,
+ * the clinical inputs, the numbers recorded when it was last saved, and the reviewer log: an
+ * append-only, hash-chained list of actions. Times are ISO 8601 strings passed in by the
+ * shell; core/ has no clock.
+ */
+import type { ClinicalInputs, ThresholdId } from '../model/analysis';
+import type { Settings } from '../model/settings';
+
+export const CASE_FORMAT = 'twofold-case' as const;
+export const CASE_VERSION = 1 as const;
+
+export type DayNumber = 1 | 2;
+
+/** One raw breath file, as the lab exported it. */
+export interface RawInput {
+  /** File name as the user gave it (no folder). */
+  readonly name: string;
+  readonly sha256: string;
+  readonly sizeBytes: number;
+  /** Path of the copy inside the case folder, relative to the case file. */
+  readonly storedAs: string;
+}
+
+/** A threshold position: the time on the recording and the VO2 there. */
+export interface ThresholdPoint {
+  readonly timeS: number;
+  readonly vo2MlMin: number;
+}
+
+export type ReviewAction =
+  | {
+      readonly kind: 'set-threshold';
+      readonly day: DayNumber;
+      readonly threshold: ThresholdId;
+      /** How the reviewer gave the new position; a VO2 is mapped to a time on the ramp. */
+      readonly givenAs: 'time' | 'vo2';
+      /** The effective position before this action (automatic or an earlier override); null when there was none. */
+      readonly before: ThresholdPoint | null;
+      readonly after: ThresholdPoint;
+    }
+  | {
+      readonly kind: 'withdraw';
+      /** `seq` of the set-threshold entry withdrawn. */
+      readonly withdraws: number;
+      readonly day: DayNumber;
+      readonly threshold: ThresholdId;
+      readonly before: ThresholdPoint | null;
+      readonly after: ThresholdPoint | null;
+    }
+  | {
+      readonly kind: 'sign-off';
+      /** The statement the reviewer signs, e.g. "Reviewed; thresholds accepted as shown." */
+      readonly statement: string;
+    };
+
+/** The fields of a log entry that its hash covers, everything but `hash` itself. */
+export interface AuditEntryBody {
+  /** 1-based position in the log. */
+  readonly seq: number;
+  /** ISO 8601 date-time, given by the shell. */
+  readonly at: string;
+  readonly who: string;
+  readonly role: string;
+  readonly action: ReviewAction;
+  /** Required: why the reviewer did this. */
+  readonly reason: string;
+  /** Hash of the entry before, or of the case's anchor for the first entry. */
+  readonly prevHash: string;
+}
+
+export interface AuditEntry extends AuditEntryBody {
+  /** SHA-256 of the canonical JSON of the body. */
+  readonly hash: string;
+}
+
+/** Numbers recorded at save time, flattened to dotted paths, and a digest of the whole result. */
+export interface RecordedResults {
+  readonly softwareVersion: string;
+  /** SHA-256 of the canonical JSON of the full recomputed result. */
+  readonly digest: string;
+  readonly numbers: Readonly<Record<string, number | string | boolean | null>>;
+}
+
+export interface CaseFile {
+  readonly format: typeof CASE_FORMAT;
+  readonly version: typeof CASE_VERSION;
+  /** ISO 8601 date-time the case was opened, given by the shell. */
+  readonly createdAt: string;
+  readonly inputs: { readonly day1: RawInput; readonly day2: RawInput };
+  readonly settings: Settings;
+  readonly clinical: { readonly day1: ClinicalInputs; readonly day2: ClinicalInputs };
+  readonly log: readonly AuditEntry[];
+  readonly recorded: RecordedResults | null;
+}

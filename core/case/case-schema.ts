@@ -1,0 +1,98 @@
+/**
+ * The zod schema of case file format version 1 (docs/case-file.md). Loading validates
+ * against it before anything is trusted; the TypeScript types in case-file.ts and this
+ * schema describe the same shape, and the test suite checks that a saved case parses.
+ */
+import { z } from 'zod';
+import { CASE_FORMAT, CASE_VERSION } from './case-file';
+
+const num = z.number().finite();
+const nullableNum = num.nullable();
+const sha = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lowercase hex');
+const isoTime = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/, 'an ISO 8601 date-time with a zone');
+
+const settingsSchema = z.object({
+  version: z.literal(1),
+  import: z.object({
+    implausible: z.object({ vo2MaxMlMin: num, hrMinBpm: num, hrMaxBpm: num, rerMin: num, rerMax: num }),
+    rerMismatch: num,
+  }),
+  clean: z.object({
+    outliers: z.discriminatedUnion('kind', [
+      z.object({ kind: z.literal('none') }),
+      z.object({ kind: z.literal('local-sd'), windowBreaths: num, limitSd: num }),
+    ]),
+    averaging: z.discriminatedUnion('kind', [
+      z.object({ kind: z.literal('rolling-time'), windowS: num }),
+      z.object({ kind: z.literal('time-bins'), binS: num }),
+      z.object({ kind: z.literal('rolling-breaths'), breaths: num }),
+    ]),
+    phases: z.object({ incrementalStartS: nullableNum, incrementalEndS: nullableNum }),
+  }),
+  thresholds: z.object({
+    minPointsPerSegment: num,
+    disagreementPct: num,
+    bootstrap: z.object({ replicates: num, seed: num }),
+  }),
+  peaks: z.object({ windowS: num }),
+  effort: z.object({
+    rerMin: num,
+    plateauMlMin: num,
+    plateauMlKgMin: num,
+    hrMaxFormula: z.enum(['tanaka', 'fox']),
+    hrPctMin: num,
+    rpeMin: num,
+    lactateMinMmolL: num,
+  }),
+  compare: z.object({ intervalHMin: num, intervalHMax: num, workloadStepW: num, bandKind: z.enum(['typical', 'mdc95']) }),
+  report: z.object({ paper: z.enum(['a4', 'letter']) }),
+});
+
+const clinicalSchema = z.object({
+  peakRpe: nullableNum,
+  lactateMmolL: nullableNum,
+  fev1L: nullableNum,
+  mvvLMin: nullableNum,
+  restingHrBpm: nullableNum,
+});
+
+const rawInputSchema = z.object({
+  name: z.string().min(1),
+  sha256: sha,
+  sizeBytes: z.number().int().nonnegative(),
+  storedAs: z.string().regex(/^raw\/[0-9a-f]{64}(\.[A-Za-z0-9]{1,8})?$/, 'raw/<sha256>.<extension>'),
+});
+
+const point = z.object({ timeS: num, vo2MlMin: num });
+const day = z.union([z.literal(1), z.literal(2)]);
+const threshold = z.enum(['vt1', 'vt2']);
+
+const actionSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('set-threshold'), day, threshold, givenAs: z.enum(['time', 'vo2']), before: point.nullable(), after: point }),
+  z.object({ kind: z.literal('withdraw'), withdraws: z.number().int().positive(), day, threshold, before: point.nullable(), after: point.nullable() }),
+  z.object({ kind: z.literal('sign-off'), statement: z.string().min(1) }),
+]);
+
+const entrySchema = z.object({
+  seq: z.number().int().positive(),
+  at: isoTime,
+  who: z.string().min(1),
+  role: z.string().min(1),
+  action: actionSchema,
+  reason: z.string().min(1),
+  prevHash: sha,
+  hash: sha,
+});
+
+const leaf = z.union([z.number(), z.string(), z.boolean(), z.null()]);
+
+export const caseSchema = z.object({
+  format: z.literal(CASE_FORMAT),
+  version: z.literal(CASE_VERSION),
+  createdAt: isoTime,
+  inputs: z.object({ day1: rawInputSchema, day2: rawInputSchema }),
+  settings: settingsSchema,
+  clinical: z.object({ day1: clinicalSchema, day2: clinicalSchema }),
+  log: z.array(entrySchema),
+  recorded: z.object({ softwareVersion: z.string(), digest: sha, numbers: z.record(z.string(), leaf) }).nullable(),
+});

@@ -1,0 +1,63 @@
+/**
+ * The case file to and from text. Saving writes indented JSON with one key per line (so a
+ * located error can point at a line, and a diff reads well); loading parses, checks the
+ * format and version, validates with the zod schema, and checks the reviewer log's hash
+ * chain. Anything wrong comes back as a located error, never as an exception.
+ */
+import { fail, locatedError, ok, type Result } from '../model/errors';
+import { verifyLog } from './audit-log';
+import { CASE_FORMAT, CASE_VERSION, type CaseFile } from './case-file';
+import { caseSchema } from './case-schema';
+
+export function caseToText(caseFile: CaseFile): string {
+  return `${JSON.stringify(caseFile, null, 2)}\n`;
+}
+
+export function caseFromText(text: string, file: string): Result<CaseFile> {
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (error) {
+    const position = /position (\d+)/.exec(error instanceof Error ? error.message : '');
+    const { line, column } = position ? lineColumn(text, Number(position[1])) : { line: null, column: null };
+    return fail(locatedError('case-not-json', file, line, column, 'This case file is not valid JSON; it may be damaged or not a Twofold case file.'));
+  }
+  const head = data as { format?: unknown; version?: unknown } | null;
+  if (!head || typeof head !== 'object' || head.format !== CASE_FORMAT) {
+    return fail(locatedError('case-wrong-format', file, 1, 1, `This is not a Twofold case file (expected "format": "${CASE_FORMAT}").`));
+  }
+  if (head.version !== CASE_VERSION) {
+    return fail(locatedError('case-version', file, lineOfKey(text, 'version', 0), null, `This case file is version ${String(head.version)}; this Twofold reads version ${CASE_VERSION}.`));
+  }
+  const parsed = caseSchema.safeParse(data);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
+    const path = issue.path.map(String).join('.');
+    const last = issue.path[issue.path.length - 1];
+    return fail(locatedError('case-invalid', file, typeof last === 'string' ? lineOfKey(text, last, 0) : null, null, `The case file's field ${path || '(top level)'} is not valid: ${issue.message}.`));
+  }
+  const caseFile = parsed.data as CaseFile;
+  const chain = verifyLog(caseFile, file, (seq) => lineOfEntry(text, seq));
+  if (!chain.ok) return chain;
+  return ok(caseFile);
+}
+
+function lineColumn(text: string, offset: number): { line: number; column: number } {
+  const before = text.slice(0, offset);
+  const line = before.split('\n').length;
+  return { line, column: offset - before.lastIndexOf('\n') };
+}
+
+/** 1-based line of the first `"key":` at or after `from`, or null. */
+function lineOfKey(text: string, key: string, from: number): number | null {
+  const i = text.indexOf(`"${key}":`, from);
+  return i < 0 ? null : lineColumn(text, i).line;
+}
+
+/** Line of the log entry numbered `seq`, as `caseToText` lays it out. */
+function lineOfEntry(text: string, seq: number): number | null {
+  const logAt = text.indexOf('"log":');
+  if (logAt < 0) return null;
+  const match = new RegExp(`"seq":\\s*${seq}\\b`).exec(text.slice(logAt));
+  return match ? lineColumn(text, logAt + match.index).line : null;
+}

@@ -1,0 +1,113 @@
+/**
+ * Recomputes a case from its raw files, settings, clinical inputs and reviewer log:
+ * read and analyse each day, put every active override in place of the automatic
+ * threshold (values read off the series at the override's time with `valuesAt`), then
+ * compare the days. The same case file and raw bytes always give the same numbers, because
+ * every step is a pure function and the bootstrap is seeded by the settings.
+ */
+import type { TestAnalysis, ThresholdId, ThresholdResult } from '../model/analysis';
+import { fail, locatedError, ok, type Result } from '../model/errors';
+import { SOFTWARE_VERSION } from '../version';
+import type { CaseFile, DayNumber, RawInput, RecordedResults, ThresholdPoint } from './case-file';
+import { canonicalJson } from './canonical-json';
+import type { Engine } from './engine';
+import { flattenLeaves } from './flatten';
+import { activeOverrides, overrideKey, type ActiveOverride } from './overrides';
+import { sha256Hex } from './sha256';
+
+export interface ThresholdState {
+  /** The detectors' own result, untouched by the reviewer. */
+  readonly automatic: ThresholdResult;
+  /** The override in force, or null when the automatic estimate stands. */
+  readonly override: ActiveOverride | null;
+  /** Where the threshold now sits: the override's point, or the automatic consensus. */
+  readonly effective: ThresholdPoint | null;
+}
+
+export interface DayOutcome {
+  readonly day: DayNumber;
+  /** The analysis with overrides in place (what compare, the charts and the tables use). */
+  readonly analysis: TestAnalysis;
+  readonly vt1: ThresholdState;
+  readonly vt2: ThresholdState;
+}
+
+export interface CaseOutcome<C> {
+  readonly day1: DayOutcome;
+  readonly day2: DayOutcome;
+  readonly comparison: C;
+  readonly recorded: RecordedResults;
+}
+
+export interface RawBytes {
+  readonly day1: Uint8Array;
+  readonly day2: Uint8Array;
+}
+
+export function recomputeCase<C>(caseFile: CaseFile, raw: RawBytes, engine: Engine<C>): Result<CaseOutcome<C>> {
+  const overrides = activeOverrides(caseFile.log);
+  const days: DayOutcome[] = [];
+  for (const day of [1, 2] as const) {
+    const input = day === 1 ? caseFile.inputs.day1 : caseFile.inputs.day2;
+    const bytes = day === 1 ? raw.day1 : raw.day2;
+    const checked = checkRaw(input, bytes);
+    if (!checked.ok) return checked;
+    const table = engine.readTable(input.name, bytes, caseFile.settings);
+    if (!table.ok) return table;
+    const analysed = engine.analyzeTest(table.value, caseFile.settings, day === 1 ? caseFile.clinical.day1 : caseFile.clinical.day2);
+    if (!analysed.ok) return analysed;
+    days.push(applyOverrides(day, analysed.value, overrides.get(overrideKey(day, 'vt1')) ?? null, overrides.get(overrideKey(day, 'vt2')) ?? null, engine));
+  }
+  const [day1, day2] = days;
+  const comparison = engine.compareTests(day1.analysis, day2.analysis, caseFile.settings);
+  const recorded = recordResults(day1, day2, comparison);
+  if (!recorded.ok) return recorded;
+  return ok({ day1, day2, comparison, recorded: recorded.value });
+}
+
+function checkRaw(input: RawInput, bytes: Uint8Array): Result<true> {
+  const hash = sha256Hex(bytes);
+  if (hash !== input.sha256) {
+    return fail(locatedError('raw-file-changed', input.storedAs, null, null, `The breath file ${input.name} is not the one this case was built from (SHA-256 ${hash.slice(0, 12)}…, expected ${input.sha256.slice(0, 12)}…).`));
+  }
+  return ok(true);
+}
+
+function applyOverrides<C>(day: DayNumber, automatic: TestAnalysis, vt1: ActiveOverride | null, vt2: ActiveOverride | null, engine: Engine<C>): DayOutcome {
+  const state = (id: ThresholdId, override: ActiveOverride | null): ThresholdState => {
+    const auto = automatic[id];
+    const effective = override ? override.point : auto.at ? { timeS: auto.at.timeS, vo2MlMin: auto.at.vo2MlMin } : null;
+    return { automatic: auto, override, effective };
+  };
+  const replaced = (id: ThresholdId, override: ActiveOverride | null): ThresholdResult => {
+    if (!override) return automatic[id];
+    // The interval describes the automatic estimate, not the reviewer's point, so it is not carried over.
+    return { ...automatic[id], at: engine.valuesAt(automatic, override.point.timeS), ci95Vo2MlMin: null, ci95TimeS: null, reason: null };
+  };
+  return {
+    day,
+    analysis: { ...automatic, vt1: replaced('vt1', vt1), vt2: replaced('vt2', vt2) },
+    vt1: state('vt1', vt1),
+    vt2: state('vt2', vt2),
+  };
+}
+
+/** The headline numbers (thresholds as used, peaks, effort, the whole comparison) and a digest of everything. */
+function recordResults<C>(day1: DayOutcome, day2: DayOutcome, comparison: C): Result<RecordedResults> {
+  const headline = (d: DayOutcome) => ({
+    vt1: d.analysis.vt1.at,
+    vt2: d.analysis.vt2.at,
+    vt1Source: d.vt1.override ? `reviewer#${d.vt1.override.seq}` : 'automatic',
+    vt2Source: d.vt2.override ? `reviewer#${d.vt2.override.seq}` : 'automatic',
+    peak: d.analysis.peak,
+    derived: d.analysis.derived,
+    effort: d.analysis.effort.verdict,
+  });
+  const everything = canonicalJson({ day1: day1.analysis, day2: day2.analysis, comparison }, 'recomputed result', 'as-string');
+  if (!everything.ok) return everything;
+  return ok({
+    softwareVersion: SOFTWARE_VERSION,
+    digest: sha256Hex(everything.value),
+    numbers: flattenLeaves({ day1: headline(day1), day2: headline(day2), comparison }),
+  });
+}

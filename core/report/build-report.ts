@@ -1,0 +1,462 @@
+/**
+ * The two-day report as a PDF/A-3b document, built with pdfkit from a recomputed case.
+ * Same input, same bytes: the creation date is the `generatedAt` passed in, fonts come in
+ * as bytes (DejaVu Sans, for VO₂, ≥, Δ, −), and nothing is read from the clock or the disk
+ * here. The two raw breath files and the case file are embedded as associated files
+ * (PDF/A-3, ISO 19005-3), so the report carries everything needed to recompute it.
+ * Layout (Twofold's own): the pair at a glance and the neutral summary, the comparison and
+ * matched-workload tables, one section per day (effort, thresholds, charts), methods and
+ * settings with their sources, provenance, the reviewer log, the signature block.
+ */
+import PDFDocument from 'pdfkit';
+import SVGtoPDF from 'svg-to-pdfkit';
+import type { CaseFile } from '../case/case-file';
+import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/recompute';
+import { sha256Hex } from '../case/sha256';
+import type { Comparison } from '../compare/compare-tests';
+import { bandKindLabel } from '../compare/bands';
+import { CAUTIONS } from '../compare/wording';
+import type { ThresholdId } from '../model/analysis';
+import { SETTING_SOURCES, type Settings } from '../model/settings';
+import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
+import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type ChartThresholds } from './charts';
+import { fixed, minSec, MISSING, signed } from './format';
+import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
+import { describeAction } from './log-text';
+
+export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
+
+export interface ReportInput {
+  readonly caseFile: CaseFile;
+  /** The case file exactly as saved, embedded byte for byte. */
+  readonly caseText: string;
+  readonly outcome: CaseOutcome<Comparison>;
+  readonly raw: RawBytes;
+  readonly fonts: { readonly regular: Uint8Array; readonly bold: Uint8Array };
+  /** ISO 8601 date-time the report is built, from the shell's clock. */
+  readonly generatedAt: string;
+  /** "Name, credential" of the reviewer who signs, or null. */
+  readonly reviewer: string | null;
+  readonly signature: SignatureKind;
+}
+
+export const DEMO_NOTICE =
+  'DEMONSTRATION ONLY. The data are invented and the report is signed with a certificate Twofold generated for the demonstration. This is not a clinical signature and not a clinical report.';
+
+const PAGE_SIZES = { a4: 'A4', letter: 'LETTER' } as const;
+
+export async function buildReport(input: ReportInput): Promise<Uint8Array> {
+  const { caseFile, outcome } = input;
+  const created = new Date(input.generatedAt);
+  const subject = outcome.day1.analysis.metadata.subjectId ?? 'subject not stated';
+  const doc = new PDFDocument({
+    size: PAGE_SIZES[caseFile.settings.report.paper],
+    margins: { top: 46, bottom: 52, left: 50, right: 50 },
+    subset: 'PDF/A-3b',
+    pdfVersion: '1.7',
+    bufferPages: true,
+    lang: 'en',
+    displayTitle: true,
+    // PDF/A wants the Info dictionary and the XMP packet to agree. pdfkit writes the XMP from
+    // these fields (pdf:Producer from Creator, no xmp:ModifyDate, no XML escaping), hence one
+    // tool string, no ModDate, and markup characters kept out.
+    info: {
+      Title: xmpSafe(`Two-day CPET report, ${subject}`),
+      Author: xmpSafe(input.reviewer ?? SOFTWARE_NAME),
+      Subject: 'Day 2 against day 1 cardiopulmonary exercise test comparison',
+      Creator: `${SOFTWARE_NAME} ${SOFTWARE_VERSION}`,
+      Producer: `${SOFTWARE_NAME} ${SOFTWARE_VERSION}`,
+      CreationDate: created,
+    },
+  });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const finished = new Promise<Uint8Array>((resolve, reject) => {
+    doc.on('end', () => resolve(new Uint8Array(Buffer.concat(chunks))));
+    doc.on('error', reject);
+  });
+  doc.registerFont('Sans', Buffer.from(input.fonts.regular));
+  doc.registerFont('Sans-Bold', Buffer.from(input.fonts.bold));
+  const L = new Layout(doc, { regular: 'Sans', bold: 'Sans-Bold' });
+
+  titleBlock(L, input, subject);
+  comparisonSection(L, outcome.comparison);
+  matchedSection(L, outcome.comparison);
+  for (const day of [outcome.day1, outcome.day2]) await daySection(L, day);
+  await overlaySection(L, outcome);
+  hrSection(L, outcome);
+  methodsSection(L, caseFile.settings, outcome);
+  provenanceSection(L, input);
+  logSection(L, caseFile);
+  signatureSection(L, input);
+  footers(L, subject, input);
+  attach(doc, input, created);
+  doc.end();
+  return finished;
+}
+
+function xmpSafe(text: string): string {
+  return text.replace(/&/g, 'and').replace(/[<>]/g, '');
+}
+
+function titleBlock(L: Layout, input: ReportInput, subject: string): void {
+  const { doc } = L;
+  const { day1, day2, comparison } = input.outcome;
+  doc.rect(L.left, doc.y, L.width, 2).fill(ACCENT);
+  doc.moveDown(0.5);
+  doc.font('Sans-Bold').fontSize(17).fillColor(INK).text('Two-day cardiopulmonary exercise test', L.left, doc.y, { width: L.width });
+  doc.font('Sans').fontSize(10).fillColor(MUTED).text(`Day 2 against day 1 · ${subject} · built ${input.generatedAt}`, { width: L.width });
+  doc.moveDown(0.5);
+  if (input.signature === 'demonstration') L.notice('Demonstration', DEMO_NOTICE, WARN);
+  const m1 = day1.analysis.metadata;
+  const m2 = day2.analysis.metadata;
+  const lab = m1.extra['lab'] ?? m1.extra['Lab'] ?? m2.extra['lab'] ?? m2.extra['Lab'] ?? 'not stated in the files';
+  const interval = comparison.pairing.intervalH;
+  L.facts([
+    ['Subject', subject],
+    ['Lab', lab],
+    ['Age, sex', `${m1.ageY ?? MISSING} y, ${m1.sex ?? MISSING}`],
+    ['Height, mass', `${fixed(m1.heightCm, 0)} cm, ${fixed(m1.weightKg, 1)} kg`],
+    ['Day 1 start', m1.testStart ?? MISSING],
+    ['Day 2 start', m2.testStart ?? MISSING],
+    ['Interval', interval === null ? 'unknown (a start time is missing)' : `${interval.toFixed(1)} h`],
+    ['Ergometer', m1.modality ?? m2.modality ?? 'not stated'],
+    ['Protocol, day 1', m1.protocol ?? rampText(day1)],
+    ['Protocol, day 2', m2.protocol ?? rampText(day2)],
+    ['Effort, day 1', day1.analysis.effort.verdict],
+    ['Effort, day 2', day2.analysis.effort.verdict],
+  ]);
+  L.subheading('Summary');
+  L.paragraph(comparison.summary);
+  for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${w.message}`, { color: WARN });
+  L.notice('Cautions', CAUTIONS, ACCENT);
+}
+
+function rampText(day: DayOutcome): string {
+  const r = day.analysis.phases.rampWPerMin;
+  return r === null ? 'not stated' : `ramp ${r.toFixed(0)} W/min (measured)`;
+}
+
+function comparisonSection(L: Layout, c: Comparison): void {
+  L.heading('Day 2 against day 1');
+  L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${c.band.description}`, { size: 8, color: MUTED });
+  const sources: string[] = [];
+  const sourceNo = (s: string) => {
+    const i = sources.indexOf(s);
+    if (i >= 0) return i + 1;
+    sources.push(s);
+    return sources.length;
+  };
+  const digits = (unit: string) => (unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1);
+  const rows = c.metrics.map((m) => {
+    const d = digits(m.unit);
+    return [
+      m.label,
+      m.unit || '–',
+      fixed(m.day1, d),
+      fixed(m.day2, d),
+      signed(m.delta, d),
+      signed(m.deltaPct, 1),
+      m.band ? `±${m.band.halfWidthPct.toFixed(1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
+      verdictText(m.verdict, m.adverseBeyondBand),
+    ];
+  });
+  L.table(
+    [
+      { header: 'Metric', width: 0.22 },
+      { header: 'Unit', width: 0.13 },
+      { header: 'Day 1', width: 0.09, align: 'right' },
+      { header: 'Day 2', width: 0.09, align: 'right' },
+      { header: 'Δ', width: 0.09, align: 'right' },
+      { header: 'Δ %', width: 0.08, align: 'right' },
+      { header: 'Band ± %', width: 0.12, align: 'right' },
+      { header: 'Verdict', width: 0.18 },
+    ],
+    rows,
+  );
+  L.paragraph(sources.map((s, i) => `[${i + 1}] ${s}`).join('   '), { size: 7, color: MUTED });
+  const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${m.reason}`);
+  if (notes.length > 0) L.paragraph(`Not compared. ${notes.join(' ')}`, { size: 7.5, color: MUTED });
+}
+
+function verdictText(verdict: string, adverse: boolean): string {
+  switch (verdict) {
+    case 'within':
+      return 'within band';
+    case 'decline':
+      return adverse ? 'beyond band, adverse' : 'beyond band, lower';
+    case 'rise':
+      return adverse ? 'beyond band, adverse' : 'beyond band, higher';
+    default:
+      return 'not comparable';
+  }
+}
+
+function matchedSection(L: Layout, c: Comparison): void {
+  L.heading('At matched workloads');
+  if (!c.matched.available) {
+    L.paragraph(`Not available: ${c.matched.reason}`);
+    return;
+  }
+  L.paragraph(`Read at the first moment each day's ramp reached the workload; common range ${fixed(c.matched.rangeW[0], 0)}–${fixed(c.matched.rangeW[1], 0)} W in ${fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
+  const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ' (VT1 day 1)' : ' (VT1 day 2)');
+  const rows = c.matched.rows.map((r) => [
+    `${fixed(r.workW, 0)}${kind(r.kind)}`,
+    fixed(r.values.vo2MlMin.day1, 0),
+    fixed(r.values.vo2MlMin.day2, 0),
+    signed(r.values.vo2MlMin.deltaPct, 1),
+    fixed(r.values.hrBpm.day1, 0),
+    fixed(r.values.hrBpm.day2, 0),
+    fixed(r.values.veLMin.day1, 1),
+    fixed(r.values.veLMin.day2, 1),
+    fixed(r.values.rer.day1, 2),
+    fixed(r.values.rer.day2, 2),
+  ]);
+  L.table(
+    [
+      { header: 'Work (W)', width: 0.16 },
+      { header: 'VO₂ d1', width: 0.09, align: 'right' },
+      { header: 'VO₂ d2', width: 0.09, align: 'right' },
+      { header: 'VO₂ Δ %', width: 0.1, align: 'right' },
+      { header: 'HR d1', width: 0.08, align: 'right' },
+      { header: 'HR d2', width: 0.08, align: 'right' },
+      { header: 'VE d1', width: 0.1, align: 'right' },
+      { header: 'VE d2', width: 0.1, align: 'right' },
+      { header: 'RER d1', width: 0.1, align: 'right' },
+      { header: 'RER d2', width: 0.1, align: 'right' },
+    ],
+    rows,
+    { size: 7.5 },
+  );
+  L.paragraph('VO₂ in mL/min, HR in bpm, VE in L/min BTPS.', { size: 7, color: MUTED });
+}
+
+async function daySection(L: Layout, day: DayOutcome): Promise<void> {
+  const a = day.analysis;
+  L.doc.addPage();
+  L.heading(`Day ${day.day}: ${a.sourceName}`);
+  L.subheading(`Effort: ${a.effort.verdict}`);
+  L.table(
+    [
+      { header: 'Criterion', width: 0.26 },
+      { header: 'Value', width: 0.12, align: 'right' },
+      { header: 'Required', width: 0.14, align: 'right' },
+      { header: 'Met', width: 0.08 },
+      { header: 'Source', width: 0.4 },
+    ],
+    a.effort.criteria.map((c) => [c.label, c.value === null ? 'not measured' : `${fixed(c.value, c.unit === '' ? 2 : 0)} ${c.unit}`.trim(), `≥ ${c.threshold} ${c.unit}`.trim(), c.met === null ? 'n/a' : c.met ? 'yes' : 'no', c.source]),
+    { size: 7.5 },
+  );
+  for (const id of ['vt1', 'vt2'] as const) thresholdBlock(L, id, day[id]);
+  const used: ChartThresholds = { vt1: day.vt1.effective, vt2: day.vt2.effective };
+  // Vega's width is the plot area; axis titles, labels and the legend take about 60 pt more.
+  const w = (L.width - 8) / 2 - 62;
+  await chartRow(L, [vslopeSpec(a, used, `V-slope, day ${day.day}`, w, 120), equivalentsSpec(a, used, `Ventilatory equivalents, day ${day.day}`, w, 120)]);
+  await chartRow(L, [endTidalSpec(a, used, `End-tidal pressures, day ${day.day}`, w, 120)]);
+  if (a.warnings.length > 0) {
+    L.subheading('Analysis notes');
+    for (const note of a.warnings) L.paragraph(`• ${note}`, { size: 8 });
+  }
+}
+
+function thresholdBlock(L: Layout, id: ThresholdId, state: ThresholdState): void {
+  const name = id.toUpperCase();
+  const auto = state.automatic;
+  L.subheading(name);
+  L.table(
+    [
+      { header: 'Method', width: 0.28 },
+      { header: 'Time (m:ss)', width: 0.12, align: 'right' },
+      { header: 'VO₂ (mL/min)', width: 0.14, align: 'right' },
+      { header: 'Source or reason', width: 0.46 },
+    ],
+    auto.methods.map((m) => (m.found ? [m.label, minSec(m.timeS), fixed(m.vo2MlMin, 0), m.source] : [m.label, MISSING, MISSING, `not found: ${m.reason}`])),
+    { size: 7.5 },
+  );
+  const consensus = auto.at ? `automatic consensus ${minSec(auto.at.timeS)}, VO₂ ${fixed(auto.at.vo2MlMin, 0)} mL/min` : `no automatic estimate (${auto.reason ?? 'no method found it'})`;
+  const ci = auto.ci95Vo2MlMin ? `, 95% CI ${fixed(auto.ci95Vo2MlMin[0], 0)}–${fixed(auto.ci95Vo2MlMin[1], 0)} mL/min` : '';
+  const spread = auto.spreadVo2MlMin !== null ? `; methods span ${fixed(auto.spreadVo2MlMin, 0)} mL/min${auto.methodsDisagree ? ' (they disagree)' : ''}` : '';
+  L.paragraph(`${consensus}${ci}${spread}.`, { size: 8.5 });
+  const o = state.override;
+  if (o) {
+    L.paragraph(`Used: set by the reviewer, ${o.who} (${o.role}), ${o.at}, log entry ${o.seq}: ${minSec(o.point.timeS)}, VO₂ ${fixed(o.point.vo2MlMin, 0)} mL/min (given as a ${o.givenAs === 'vo2' ? 'VO₂' : 'time'}). Reason: ${o.reason}`, { size: 8.5, bold: true, color: WARN });
+  } else if (auto.at) {
+    L.paragraph(`Used: the automatic consensus.`, { size: 8.5, bold: true });
+  }
+}
+
+async function chartRow(L: Layout, specs: Record<string, unknown>[]): Promise<void> {
+  const svgs = await Promise.all(specs.map((s) => renderSvg(s)));
+  const sizes = svgs.map(svgSize);
+  const height = Math.max(...sizes.map((s) => s.height));
+  L.ensure(height + 8);
+  const y = L.doc.y + 4;
+  let x = L.left;
+  svgs.forEach((svg, i) => {
+    SVGtoPDF(L.doc, svg, x, y, { fontCallback: (_family, bold) => (bold ? 'Sans-Bold' : 'Sans'), assumePt: true });
+    x += sizes[i].width + 8;
+  });
+  L.doc.x = L.left;
+  L.doc.y = y + height + 6;
+}
+
+function svgSize(svg: string): { width: number; height: number } {
+  const w = /<svg[^>]*\swidth="([\d.]+)"/.exec(svg);
+  const h = /<svg[^>]*\sheight="([\d.]+)"/.exec(svg);
+  return { width: w ? Number(w[1]) : 250, height: h ? Number(h[1]) : 180 };
+}
+
+async function overlaySection(L: Layout, outcome: CaseOutcome<Comparison>): Promise<void> {
+  L.doc.addPage();
+  L.heading('Both days against workload');
+  const w = (L.width - 8) / 2 - 62;
+  await chartRow(L, [
+    overlaySpec(outcome.day1.analysis, outcome.day2.analysis, 'vo2MlMin', 'VO₂ against workload', w, 160),
+    overlaySpec(outcome.day1.analysis, outcome.day2.analysis, 'hrBpm', 'HR against workload', w, 160),
+  ]);
+}
+
+function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
+  L.heading('Heart rate at VT1');
+  L.paragraph('Measured facts from these tests, shown beside rules of thumb that are used when no test exists. None of this is a prescription; pacing advice is the clinician\'s decision.', { size: 8.5 });
+  const rows = [outcome.day1, outcome.day2].map((d) => {
+    const a = d.analysis;
+    const hrMax = a.predicted.hrMaxBpm;
+    const resting = a.clinical.restingHrBpm;
+    return [
+      `Day ${d.day}`,
+      a.vt1.at?.hrBpm != null ? `${fixed(a.vt1.at.hrBpm, 0)} bpm` : 'not available',
+      hrMax !== null ? `${fixed(0.55 * hrMax, 0)}–${fixed(0.6 * hrMax, 0)} bpm (of ${fixed(hrMax, 0)})` : 'age not stated',
+      resting !== null ? `${fixed(resting + 15, 0)} bpm (rest ${fixed(resting, 0)})` : 'resting HR not given',
+    ];
+  });
+  L.table(
+    [
+      { header: '', width: 0.12 },
+      { header: 'Measured HR at VT1', width: 0.24 },
+      { header: 'Rule of thumb: 55–60% of age-predicted HRmax', width: 0.36 },
+      { header: 'Rule of thumb: resting HR + 15 bpm', width: 0.28 },
+    ],
+    rows,
+  );
+  L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).`, { size: 7, color: MUTED });
+}
+
+function settingValue(settings: Settings, path: string): string {
+  let value: unknown = settings;
+  for (const key of path.split('.')) value = (value as Record<string, unknown>)?.[key];
+  if (value !== null && typeof value === 'object') {
+    return Object.entries(value as Record<string, unknown>)
+      .map(([k, v]) => `${k} ${String(v)}`)
+      .join(', ');
+  }
+  return String(value);
+}
+
+function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comparison>): void {
+  L.doc.addPage();
+  L.heading('Methods and settings');
+  const methods = new Map<string, string>();
+  for (const d of [outcome.day1, outcome.day2]) for (const t of [d.vt1.automatic, d.vt2.automatic]) for (const m of t.methods) methods.set(m.label, m.source);
+  L.table(
+    [
+      { header: 'Threshold method', width: 0.3 },
+      { header: 'Source', width: 0.7 },
+    ],
+    [...methods].map(([label, source]) => [label, source]),
+    { size: 7.5 },
+  );
+  L.table(
+    [
+      { header: 'Setting', width: 0.27 },
+      { header: 'Value', width: 0.27 },
+      { header: 'Source', width: 0.46 },
+    ],
+    Object.entries(SETTING_SOURCES).map(([path, source]) => [path, settingValue(settings, path), source]),
+    { size: 7 },
+  );
+}
+
+function provenanceSection(L: Layout, input: ReportInput): void {
+  L.heading('Provenance');
+  const { inputs } = input.caseFile;
+  L.facts([
+    ['Software', `${SOFTWARE_NAME} ${SOFTWARE_VERSION}`],
+    ['Built', input.generatedAt],
+    ['Case opened', input.caseFile.createdAt],
+  ]);
+  L.paragraph(`Digest of every recomputed number (SHA-256): ${input.outcome.recorded.digest}`, { size: 7.5 });
+  L.table(
+    [
+      { header: 'Embedded file', width: 0.27 },
+      { header: 'Bytes', width: 0.08, align: 'right' },
+      { header: 'SHA-256', width: 0.65 },
+    ],
+    [
+      [`day 1: ${inputs.day1.name}`, String(inputs.day1.sizeBytes), inputs.day1.sha256],
+      [`day 2: ${inputs.day2.name}`, String(inputs.day2.sizeBytes), inputs.day2.sha256],
+      ['case file: twofold-case.json', String(Buffer.byteLength(input.caseText)), sha256Hex(input.caseText)],
+    ],
+    { size: 6.5 },
+  );
+  L.paragraph('The three files are attached to this PDF. `twofold verify` checks the signature, extracts them, checks their SHA-256 and recomputes every number from them.', { size: 7.5, color: MUTED });
+}
+
+function logSection(L: Layout, caseFile: CaseFile): void {
+  L.heading('Reviewer log');
+  if (caseFile.log.length === 0) {
+    L.paragraph('No reviewer actions: every threshold is the automatic estimate.');
+    return;
+  }
+  L.table(
+    [
+      { header: '#', width: 0.04 },
+      { header: 'When', width: 0.17 },
+      { header: 'Who (role)', width: 0.16 },
+      { header: 'Action', width: 0.27 },
+      { header: 'Reason', width: 0.24 },
+      { header: 'Hash', width: 0.12 },
+    ],
+    caseFile.log.map((e) => [String(e.seq), e.at, `${e.who} (${e.role})`, describeAction(e.action), e.reason, `${e.hash.slice(0, 12)}…`]),
+    { size: 7 },
+  );
+  L.paragraph('Each entry carries the SHA-256 of the one before it, so an edited history does not load.', { size: 7, color: MUTED });
+}
+
+function signatureSection(L: Layout, input: ReportInput): void {
+  L.heading('Signature');
+  L.ensure(110);
+  const signOff = [...input.caseFile.log].reverse().find((e) => e.action.kind === 'sign-off');
+  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${signOff.at})` : 'No sign-off statement is recorded in the reviewer log.';
+  L.facts([
+    ['Reviewer', input.reviewer ?? 'not named'],
+    ['Statement', statement],
+    ['Signature', input.signature === 'lab' ? "digital signature with the lab's certificate (see the PDF's signature panel)" : input.signature === 'demonstration' ? 'demonstration certificate, not a clinical signature' : 'unsigned'],
+  ]);
+  if (input.signature === 'demonstration') L.notice('Demonstration', DEMO_NOTICE, WARN);
+}
+
+function footers(L: Layout, subject: string, input: ReportInput): void {
+  const { doc } = L;
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i);
+    const bottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    const y = doc.page.height - 34;
+    const tag = input.signature === 'demonstration' ? 'DEMONSTRATION · ' : '';
+    doc.font('Sans').fontSize(7).fillColor(MUTED).text(`${tag}${SOFTWARE_NAME} ${SOFTWARE_VERSION} · ${subject} · supports licensed clinicians, does not diagnose`, L.left, y, { width: L.width - 70, lineBreak: false });
+    doc.text(`page ${i + 1} of ${range.count}`, L.left + L.width - 70, y, { width: 70, align: 'right', lineBreak: false });
+    doc.page.margins.bottom = bottom;
+  }
+}
+
+function attach(doc: InstanceType<typeof PDFDocument>, input: ReportInput, created: Date): void {
+  const { inputs } = input.caseFile;
+  // AFRelationship (PDF/A-3) is supported by pdfkit but missing from its type definitions.
+  type Options = PDFKit.Mixins.PDFAttachmentOptions & { relationship: 'Source' | 'Data' };
+  const base = { creationDate: created, modifiedDate: created, relationship: 'Source' } satisfies Partial<Options>;
+  doc.file(Buffer.from(input.raw.day1), { ...base, name: `day1-${inputs.day1.name}`, type: 'text/plain', description: `Day 1 raw breath file, SHA-256 ${inputs.day1.sha256}` } as Options);
+  doc.file(Buffer.from(input.raw.day2), { ...base, name: `day2-${inputs.day2.name}`, type: 'text/plain', description: `Day 2 raw breath file, SHA-256 ${inputs.day2.sha256}` } as Options);
+  doc.file(Buffer.from(input.caseText, 'utf8'), { ...base, name: 'twofold-case.json', type: 'application/json', relationship: 'Data', description: 'Twofold case file: settings, clinical inputs, reviewer log, recorded results' } as Options);
+}

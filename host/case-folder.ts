@@ -1,0 +1,85 @@
+/**
+ * The case folder on disk: `twofold-case.json` and `raw/<sha256>.<ext>`, the copies of the
+ * two breath files. Raw copies are never overwritten: storing a file whose name is taken by
+ * different bytes is refused. The case file is replaced atomically. Loading validates the
+ * case (schema and hash chain) and checks each raw copy against its recorded SHA-256.
+ */
+import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import type { CaseFile, RawInput } from '../core/case/case-file';
+import { caseFromText, caseToText } from '../core/case/case-text';
+import type { RawBytes } from '../core/case/recompute';
+import { sha256Hex } from '../core/case/sha256';
+import { fail, locatedError, ok, type Result } from '../core/model/errors';
+import { writeFileAtomic } from './atomic-write';
+
+export const CASE_FILE_NAME = 'twofold-case.json';
+
+export function caseFilePath(folder: string): string {
+  return join(folder, CASE_FILE_NAME);
+}
+
+/** Copies one raw file into the case folder under its hash; a matching copy already there is kept. */
+export function storeRaw(folder: string, input: RawInput, bytes: Uint8Array): Result<string> {
+  const target = join(folder, input.storedAs);
+  if (sha256Hex(bytes) !== input.sha256) {
+    return fail(locatedError('raw-hash-mismatch', input.name, null, null, `The bytes of ${input.name} do not match the SHA-256 the case records for it.`));
+  }
+  if (existsSync(target)) {
+    const existing = readFileSync(target);
+    if (sha256Hex(existing) === input.sha256) return ok(target);
+    return fail(locatedError('raw-exists-different', target, null, null, `The case folder already holds a different file at ${input.storedAs}; raw files are never replaced, so nothing was written.`));
+  }
+  mkdirSync(dirname(target), { recursive: true });
+  writeFileAtomic(target, bytes);
+  return ok(target);
+}
+
+export function saveCase(folder: string, caseFile: CaseFile, raw: RawBytes): Result<string> {
+  mkdirSync(folder, { recursive: true });
+  for (const [input, bytes] of [[caseFile.inputs.day1, raw.day1], [caseFile.inputs.day2, raw.day2]] as const) {
+    const stored = storeRaw(folder, input, bytes);
+    if (!stored.ok) return stored;
+  }
+  const path = caseFilePath(folder);
+  writeFileAtomic(path, caseToText(caseFile));
+  return ok(path);
+}
+
+export interface LoadedCase {
+  readonly path: string;
+  readonly caseFile: CaseFile;
+  readonly raw: RawBytes;
+}
+
+/** Loads `twofold-case.json` from a folder (or a case file path) with its raw copies. */
+export function loadCase(folderOrFile: string): Result<LoadedCase> {
+  const path = folderOrFile.endsWith('.json') ? folderOrFile : caseFilePath(folderOrFile);
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch {
+    return fail(locatedError('case-unreadable', path, null, null, 'The case file could not be read (missing, or no permission).'));
+  }
+  const parsed = caseFromText(text, path);
+  if (!parsed.ok) return parsed;
+  const folder = dirname(path);
+  const read = (input: RawInput): Result<Uint8Array> => {
+    const rawPath = join(folder, input.storedAs);
+    let bytes: Uint8Array;
+    try {
+      bytes = readFileSync(rawPath);
+    } catch {
+      return fail(locatedError('raw-missing', rawPath, null, null, `The copy of ${input.name} is missing from the case folder.`));
+    }
+    if (sha256Hex(bytes) !== input.sha256) {
+      return fail(locatedError('raw-changed', rawPath, null, null, `The copy of ${input.name} in the case folder was changed: its SHA-256 no longer matches the case.`));
+    }
+    return ok(bytes);
+  };
+  const day1 = read(parsed.value.inputs.day1);
+  if (!day1.ok) return day1;
+  const day2 = read(parsed.value.inputs.day2);
+  if (!day2.ok) return day2;
+  return ok({ path, caseFile: parsed.value, raw: { day1: day1.value, day2: day2.value } });
+}

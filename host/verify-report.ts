@@ -1,0 +1,74 @@
+/**
+ * Everything `twofold verify` checks, in order, each step a plain statement:
+ * the signature (valid, covering the whole file), the embedded files (present, their SHA-256
+ * matching the case file), the case file (schema and reviewer-log chain), and the numbers
+ * (recomputed from the embedded raw files, settings and reviewer log, equal to the recorded
+ * ones). The report passes only when every step holds.
+ */
+import { caseFromText } from '../core/case/case-text';
+import { differingPaths } from '../core/case/flatten';
+import { recomputeCase } from '../core/case/recompute';
+import { sha256Hex } from '../core/case/sha256';
+import type { Comparison } from '../core/compare/compare-tests';
+import { SOFTWARE_VERSION } from '../core/version';
+import { verifySignature } from '../core/report/verify-signature';
+import { cachedEngine } from './cached-engine';
+import { embeddedFiles } from './pdf-attachments';
+
+export interface VerifyStep {
+  readonly ok: boolean;
+  readonly what: string;
+}
+
+export interface VerifyOutcome {
+  readonly passed: boolean;
+  readonly steps: readonly VerifyStep[];
+}
+
+export function verifyReport(pdf: Uint8Array, file: string): VerifyOutcome {
+  const steps: VerifyStep[] = [];
+  const done = (ok: boolean, what: string): VerifyOutcome => {
+    steps.push({ ok, what });
+    return { passed: ok && steps.every((s) => s.ok), steps };
+  };
+
+  const signature = verifySignature(pdf, file);
+  if (!signature.ok) return done(false, `Signature: ${signature.error.message}`);
+  const s = signature.value;
+  steps.push({ ok: true, what: `Signature valid (${s.digestAlgorithm}), covering the whole file (bytes 0–${s.byteRange[1]} and ${s.byteRange[2]}–${s.byteRange[2] + s.byteRange[3]} of ${pdf.length}); signer "${s.signer}"${s.selfSigned ? ', a self-signed certificate (trust in it is not established by this check)' : ''}${s.signingTime ? `, signed ${s.signingTime}` : ''}.` });
+
+  const files = embeddedFiles(pdf, file);
+  if (!files.ok) return done(false, `Embedded files: ${files.error.message}`);
+  const caseEntry = files.value.find((f) => f.name === 'twofold-case.json');
+  if (!caseEntry) return done(false, 'Embedded files: the case file (twofold-case.json) is not attached.');
+  const parsed = caseFromText(new TextDecoder().decode(caseEntry.bytes), 'twofold-case.json (embedded)');
+  if (!parsed.ok) return done(false, `Case file: ${parsed.error.message}`);
+  const caseFile = parsed.value;
+  steps.push({ ok: true, what: `Case file valid; reviewer log of ${caseFile.log.length} entries intact (hash chain checked).` });
+
+  const raw: Uint8Array[] = [];
+  for (const [day, input] of [[1, caseFile.inputs.day1], [2, caseFile.inputs.day2]] as const) {
+    const entry = files.value.find((f) => f.name === `day${day}-${input.name}`);
+    if (!entry) return done(false, `Embedded files: the day ${day} raw file ${input.name} is not attached.`);
+    const hash = sha256Hex(entry.bytes);
+    if (hash !== input.sha256) return done(false, `Embedded files: the day ${day} raw file ${input.name} has SHA-256 ${hash}, but the case records ${input.sha256}.`);
+    raw.push(entry.bytes);
+  }
+  steps.push({ ok: true, what: `Both raw files attached, SHA-256 as recorded (${caseFile.inputs.day1.sha256.slice(0, 12)}…, ${caseFile.inputs.day2.sha256.slice(0, 12)}…).` });
+
+  if (!caseFile.recorded) return done(false, 'Numbers: the case file records no results to compare with.');
+  let outcome: ReturnType<typeof recomputeCase<Comparison>>;
+  try {
+    outcome = recomputeCase(caseFile, { day1: raw[0], day2: raw[1] }, cachedEngine());
+  } catch (error) {
+    return done(false, `Numbers: the analysis stopped with an internal error while re-running (${error instanceof Error ? error.message : String(error)}).`);
+  }
+  if (!outcome.ok) return done(false, `Numbers: the analysis could not be re-run: ${outcome.error.message}`);
+  const differing = differingPaths(caseFile.recorded.numbers, outcome.value.recorded.numbers);
+  if (differing.length > 0 || outcome.value.recorded.digest !== caseFile.recorded.digest) {
+    const named = differing.slice(0, 5).map((p) => `${p} recorded ${String(caseFile.recorded?.numbers[p])}, recomputed ${String(outcome.value.recorded.numbers[p])}`);
+    const version = caseFile.recorded.softwareVersion !== SOFTWARE_VERSION ? ` The report was made by version ${caseFile.recorded.softwareVersion}; this is ${SOFTWARE_VERSION}.` : '';
+    return done(false, `Numbers: recomputing does not give the recorded results (${differing.length} of ${Object.keys(caseFile.recorded.numbers).length} numbers differ${named.length ? `: ${named.join('; ')}` : '; the full-result digest differs'}).${version}`);
+  }
+  return done(true, `Numbers: all ${Object.keys(caseFile.recorded.numbers).length} recorded numbers and the full-result digest reproduced from the embedded files, settings and reviewer log.`);
+}

@@ -1,0 +1,36 @@
+// `twofold demo` end to end, checked with poppler-utils: the signed demo report verifies in
+// pdfsig (whole document), says plainly it is a demonstration, and `twofold verify` accepts it.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../cli/main';
+import type { CliIo } from '../../cli/io';
+
+function io(env: Record<string, string> = {}) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const value: CliIo = { out: (t) => out.push(t), err: (t) => err.push(t), env, cwd: process.cwd(), interactive: false };
+  return { io: value, out: () => out.join(''), err: () => err.join('') };
+}
+
+describe('twofold demo', () => {
+  it('builds, signs and verifies the demo report', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'twofold-demo-'));
+    const t = io();
+    expect(await main(['demo', '--out', dir], t.io)).toBe(0);
+    const pdf = join(dir, 'twofold-demo-report.pdf');
+    expect(t.out()).toContain(pdf);
+    const sig = spawnSync('pdfsig', [pdf], { encoding: 'utf8' }).stdout;
+    expect(sig).toContain('Signature is Valid');
+    expect(sig).toContain('Total document signed');
+    expect(sig).toContain('DEMONSTRATION');
+    const text = spawnSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).stdout;
+    expect(text).toContain('not a clinical signature');
+    expect(text).toContain('Used: set by the reviewer');
+    const v = io();
+    expect(await main(['verify', pdf], v.io)).toBe(0);
+    expect(v.out()).toContain('numbers reproduce');
+  });
+});
