@@ -3,7 +3,7 @@
  * could not be used (each with its place and reason), per-row flags, and warnings.
  * Nothing read from the file disappears without a line here.
  */
-import type { BreathTable, BreathVariable } from '../model/breath-table';
+import { BREATH_VARIABLES, type BreathTable, type BreathVariable } from '../model/breath-table';
 import type { LocatedError } from '../model/errors';
 import type { Settings } from '../model/settings';
 import type { ColumnMapping } from './mapping';
@@ -14,23 +14,7 @@ import type { ColumnMapping } from './mapping';
  */
 export type ColumnVariable = BreathVariable | 'vo2MlKgMin' | 'rer' | 'rpe';
 
-export const COLUMN_VARIABLES: readonly ColumnVariable[] = [
-  'timeS',
-  'vo2MlMin',
-  'vco2MlMin',
-  'veLMin',
-  'hrBpm',
-  'workW',
-  'speedKmh',
-  'gradePct',
-  'peto2Mmhg',
-  'petco2Mmhg',
-  'rrPerMin',
-  'vtL',
-  'vo2MlKgMin',
-  'rer',
-  'rpe',
-];
+export const COLUMN_VARIABLES: readonly ColumnVariable[] = [...BREATH_VARIABLES, 'vo2MlKgMin', 'rer', 'rpe'];
 
 /** How one column of the file was read. */
 export interface ColumnReport {
