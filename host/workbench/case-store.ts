@@ -1,0 +1,139 @@
+/**
+ * The workbench's cases on disk, one folder per case under `<dataDir>/cases/<caseId>/`:
+ *
+ *     twofold-case.json      the case file with its reviewer log (host/case-folder.ts)
+ *     raw/<sha256>.<ext>     each day's breath file, copied verbatim (host/case-folder.ts)
+ *     case-info.json         the workbench's own note: title and last save time
+ *     reports/               exported reports
+ *
+ * A new case is made by core (`newCase`) from the bytes the user chose, so the folder is
+ * self-contained from the first moment. Every save parses and checks the case text
+ * (schema and hash chain) before it replaces the file atomically: a damaged or forged case
+ * never reaches the disk, and a kill mid-save leaves the previous version intact.
+ */
+import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { BridgeError, CaseSummary, FilePayload } from './api';
+import type { ClinicalInputs } from '../../core/model/analysis';
+import type { Settings } from '../../core/model/settings';
+import { newCase } from '../../core/case/new-case';
+import { caseFromText, caseToText } from '../../core/case/case-text';
+import { loadCase, saveCase } from '../case-folder';
+import { writeFileAtomic } from '../atomic-write';
+
+export interface CaseStoreDeps {
+  readonly dataDir: string;
+  readonly now: () => Date;
+  /** Six lowercase hex digits, fresh on each call. */
+  readonly randomHex6: () => string;
+}
+
+interface CaseInfo {
+  readonly title: string;
+  readonly savedAt: string;
+}
+
+type Outcome<T> = { ok: true; value: T } | { ok: false; error: BridgeError };
+
+const CASE_ID = /^case-[0-9]{8}-[0-9]{6}-[0-9a-f]{6}$/;
+
+export function newCaseId(now: Date, hex6: string): string {
+  const iso = now.toISOString();
+  return `case-${iso.slice(0, 10).replace(/-/g, '')}-${iso.slice(11, 19).replace(/:/g, '')}-${hex6}`;
+}
+
+const bytesOf = (file: FilePayload) => new Uint8Array(Buffer.from(file.base64, 'base64'));
+const payloadOf = (name: string, bytes: Uint8Array): FilePayload => ({ name, base64: Buffer.from(bytes).toString('base64') });
+
+export function createCaseStore(deps: CaseStoreDeps) {
+  const casesDir = join(deps.dataDir, 'cases');
+  const folderOf = (caseId: string): string => {
+    if (!CASE_ID.test(caseId)) throw new Error(`'${caseId}' is not a case id`);
+    return join(casesDir, caseId);
+  };
+  const infoPath = (caseId: string) => join(folderOf(caseId), 'case-info.json');
+  const writeInfo = (caseId: string, info: CaseInfo) => writeFileAtomic(infoPath(caseId), `${JSON.stringify(info, null, 2)}\n`);
+
+  function summaryOf(caseId: string): CaseSummary {
+    const info = JSON.parse(readFileSync(infoPath(caseId), 'utf8')) as CaseInfo;
+    const loaded = loadCase(folderOf(caseId));
+    const names = loaded.ok ? loaded.value.caseFile.inputs : null;
+    return { caseId, title: info.title, savedAt: info.savedAt, day1Name: names?.day1.name ?? '', day2Name: names?.day2.name ?? '' };
+  }
+
+  return {
+    folderOf,
+    reportsDir: (caseId: string) => join(folderOf(caseId), 'reports'),
+
+    create(title: string, day1: FilePayload, day2: FilePayload, settings: Settings, clinical: { day1: ClinicalInputs; day2: ClinicalInputs }): Outcome<CaseSummary> {
+      const now = deps.now();
+      const caseId = newCaseId(now, deps.randomHex6());
+      const folder = folderOf(caseId);
+      const raw = { day1: bytesOf(day1), day2: bytesOf(day2) };
+      const caseFile = newCase(now.toISOString(), { name: day1.name, bytes: raw.day1 }, { name: day2.name, bytes: raw.day2 }, settings, clinical);
+      mkdirSync(join(folder, 'reports'), { recursive: true });
+      const saved = saveCase(folder, caseFile, raw);
+      if (!saved.ok) return saved;
+      writeInfo(caseId, { title, savedAt: now.toISOString() });
+      return { ok: true, value: { caseId, title, savedAt: now.toISOString(), day1Name: day1.name, day2Name: day2.name } };
+    },
+
+    open(caseId: string): Outcome<{ summary: CaseSummary; day1: FilePayload; day2: FilePayload; caseJson: string }> {
+      const loaded = loadCase(folderOf(caseId));
+      if (!loaded.ok) return loaded;
+      const { caseFile, raw, path } = loaded.value;
+      return {
+        ok: true,
+        value: {
+          summary: summaryOf(caseId),
+          day1: payloadOf(caseFile.inputs.day1.name, raw.day1),
+          day2: payloadOf(caseFile.inputs.day2.name, raw.day2),
+          caseJson: readFileSync(path, 'utf8'),
+        },
+      };
+    },
+
+    /** Checks the text as a case of this folder, then replaces the case file atomically. */
+    save(caseId: string, caseJson: string): Outcome<{ savedAt: string; bytes: number }> {
+      const folder = folderOf(caseId);
+      const current = loadCase(folder);
+      if (!current.ok) return current;
+      const parsed = caseFromText(caseJson, 'case sent by the workbench');
+      if (!parsed.ok) return parsed;
+      const before = current.value.caseFile.inputs;
+      const after = parsed.value.inputs;
+      if (before.day1.sha256 !== after.day1.sha256 || before.day2.sha256 !== after.day2.sha256) {
+        return { ok: false, error: { code: 'case-inputs-differ', file: current.value.path, line: null, column: null, message: 'The case to save names different breath files from the ones in its folder, so it was not saved.' } };
+      }
+      const text = caseToText(parsed.value);
+      const saved = saveCase(folder, parsed.value, current.value.raw);
+      if (!saved.ok) return saved;
+      const info = JSON.parse(readFileSync(infoPath(caseId), 'utf8')) as CaseInfo;
+      const savedAt = deps.now().toISOString();
+      writeInfo(caseId, { ...info, savedAt });
+      return { ok: true, value: { savedAt, bytes: Buffer.byteLength(text, 'utf8') } };
+    },
+
+    /** Most recently saved first. A folder whose files cannot be read is listed with a note. */
+    list(): CaseSummary[] {
+      let names: string[];
+      try {
+        names = readdirSync(casesDir);
+      } catch (error) {
+        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
+        throw error;
+      }
+      const cases: CaseSummary[] = [];
+      for (const name of names.filter((n) => CASE_ID.test(n))) {
+        try {
+          cases.push(summaryOf(name));
+        } catch {
+          cases.push({ caseId: name, title: `${name} (its case-info.json cannot be read)`, savedAt: '', day1Name: '', day2Name: '' });
+        }
+      }
+      return cases.sort((a, b) => b.savedAt.localeCompare(a.savedAt));
+    },
+  };
+}
+
+export type CaseStore = ReturnType<typeof createCaseStore>;

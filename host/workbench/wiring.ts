@@ -1,0 +1,112 @@
+/**
+ * The workbench service as both shells run it: the real clock and random source, the demo
+ * pair from sample-tests/demo, and the report port over host/report-job.ts (build, sign,
+ * write) and the report verifier. The shells differ only in how requests reach `dispatch`.
+ *
+ * Certificates: the demonstration certificate is made fresh for each run (host/
+ * demo-certificate.ts) and its PEM written to `<dataDir>/certificates/demo-certificate.pem`
+ * so a report can be checked against it. A lab certificate is a PKCS#12 file
+ * `<dataDir>/certificates/<id>.p12` with its passphrase in `<id>.passphrase` beside it.
+ */
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { FilePayload, HostService, SignerInfo } from './api';
+import { createWorkbenchService, type ReportPort } from './service';
+import { loadCase } from '../case-folder';
+import { runReportJob, type Certificate } from '../report-job';
+import { demoCertificate, type DemoCertificate } from '../demo-certificate';
+import { DEMO_FOLDER, DEMO_PAIR } from '../demo-job';
+import { verifyReportBytes } from './verify-port';
+
+const DEMO_ID = 'demonstration';
+
+export interface WiringOptions {
+  readonly dataDir: string;
+  readonly now?: () => Date;
+}
+
+function readPayload(folder: string, name: string): FilePayload {
+  return { name, base64: readFileSync(join(folder, name)).toString('base64') };
+}
+
+export function createReportPort(dataDir: string, now: () => Date): ReportPort {
+  const certDir = join(dataDir, 'certificates');
+  let demo: Promise<DemoCertificate> | null = null;
+  const demoCert = (): Promise<DemoCertificate> => {
+    demo ??= demoCertificate(now()).then((made) => {
+      mkdirSync(certDir, { recursive: true });
+      writeFileSync(join(certDir, 'demo-certificate.pem'), made.certificatePem);
+      return made;
+    });
+    return demo;
+  };
+  const labIds = (): string[] => {
+    if (!existsSync(certDir)) return [];
+    return readdirSync(certDir)
+      .filter((n) => n.endsWith('.p12') && /^[a-z0-9-]{1,60}\.p12$/.test(n) && n !== `${DEMO_ID}.p12`)
+      .map((n) => n.slice(0, -4))
+      .filter((id) => existsSync(join(certDir, `${id}.passphrase`)));
+  };
+  const certificate = async (id: string): Promise<Certificate | null> => {
+    if (id === DEMO_ID) {
+      const c = await demoCert();
+      return { p12: c.p12, passphrase: c.passphrase, name: 'demonstration certificate', kind: 'demonstration' };
+    }
+    if (!labIds().includes(id)) return null;
+    return { p12: new Uint8Array(readFileSync(join(certDir, `${id}.p12`))), passphrase: readFileSync(join(certDir, `${id}.passphrase`), 'utf8').trim(), name: id, kind: 'lab' };
+  };
+
+  return {
+    async signers(): Promise<SignerInfo[]> {
+      return [
+        ...labIds().map((id) => ({ id, label: `Lab certificate ${id}`, demonstration: false })),
+        { id: DEMO_ID, label: 'Twofold demonstration certificate (made for this session)', demonstration: true },
+      ];
+    },
+    async build(input) {
+      const cert = await certificate(input.signerId);
+      if (!cert) return { ok: false, error: { code: 'no-certificate', file: join(certDir, `${input.signerId}.p12`), line: null, column: null, message: `There is no certificate '${input.signerId}' with its passphrase file.` } };
+      const loaded = loadCase(input.folder);
+      if (!loaded.ok) return loaded;
+      const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, now: input.now });
+      if (!job.ok) return job;
+      return { ok: true, bytes: job.value.bytes, demonstration: cert.kind === 'demonstration' };
+    },
+    verify: (bytes, fileName) => verifyReportBytes(bytes, fileName),
+    async preview(input) {
+      const loaded = loadCase(input.folder);
+      if (!loaded.ok) return loaded;
+      const scratch = mkdtempSync(join(tmpdir(), 'twofold-preview-'));
+      try {
+        const outPath = join(scratch, 'preview-unsigned.pdf');
+        const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath, reviewer: input.reviewer, certificate: null, now: input.now });
+        if (!job.ok) return job;
+        return { ok: true, bytes: new Uint8Array(readFileSync(outPath)) };
+      } finally {
+        rmSync(scratch, { recursive: true, force: true });
+      }
+    },
+  };
+}
+
+export function createWiredService(options: WiringOptions): HostService {
+  const now = options.now ?? (() => new Date());
+  return createWorkbenchService({
+    dataDir: options.dataDir,
+    now,
+    randomHex6: () => randomBytes(3).toString('hex'),
+    demoPair: async () => ({
+      title: 'Demo pair QH-0417 (invented scenario, cycle ramp)',
+      day1: readPayload(DEMO_FOLDER, DEMO_PAIR.day1),
+      day2: readPayload(DEMO_FOLDER, DEMO_PAIR.day2),
+    }),
+    report: createReportPort(options.dataDir, now),
+  });
+}
+
+/** A per-run access token for the HTTP bridge: 32 random bytes as hex. */
+export function newToken(): string {
+  return randomBytes(32).toString('hex');
+}

@@ -1,0 +1,352 @@
+/**
+ * The workbench shell: one case at a time, four screens (Intake, Breakpoints, Day 2 vs Day 1,
+ * Sign-off), a toolbar and keyboard shortcuts that both go through the command registry.
+ * The analysis runs in the worker; the host keeps the files. Every change is saved
+ * atomically through the host the moment the worker returns it.
+ */
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
+import type { CaseSummary, FilePayload, HostClient } from '../../host/workbench/api';
+import type { LocatedError } from '../../core/model/errors';
+import type { ThresholdId } from '../../core/model/analysis';
+import type { Comparison } from '../../core/compare/compare-tests';
+import type { ClinicalInputs } from '../../core/model/analysis';
+import { activeOverrides } from '../../core/case/overrides';
+import { commandForKeys, COMMAND_CATALOG, keysOf, type CommandId } from './command-catalog';
+import { COMMANDS, keysLabel, runCommand, type CommandContext, type Screen } from './commands';
+import { startEngine, type EngineClient, type Settled } from './engine/client';
+import type { EngineRequest, EngineView, MappingQuestion, Reviewer } from './engine/protocol';
+import { ErrorNotice, ProgressStrip } from './ui/notices';
+import { toBase64 } from './ui/files';
+import { Intake } from './screens/Intake';
+import { Breakpoints } from './screens/Breakpoints';
+import { DayOver } from './screens/DayOver';
+import { SignOff, type ExportState } from './screens/SignOff';
+
+type View = EngineView<Comparison>;
+
+const SCREENS: readonly { id: Screen; command: CommandId; label: string }[] = [
+  { id: 'intake', command: 'go.intake', label: 'Intake' },
+  { id: 'breakpoints', command: 'go.breakpoints', label: 'Breakpoints' },
+  { id: 'dayover', command: 'go.dayover', label: 'Day 2 vs Day 1' },
+  { id: 'signoff', command: 'go.signoff', label: 'Sign-off' },
+];
+
+const REVIEWER_KEY = 'twofold-reviewer';
+const NO_CLINICAL: ClinicalInputs = { peakRpe: null, lactateMmolL: null, fev1L: null, mvvLMin: null, restingHrBpm: null };
+
+function loadReviewer(): Reviewer {
+  try {
+    const stored = JSON.parse(localStorage.getItem(REVIEWER_KEY) ?? 'null') as Reviewer | null;
+    if (stored && typeof stored.who === 'string' && typeof stored.role === 'string') return stored;
+  } catch {
+    // A damaged entry is replaced by an empty reviewer below.
+  }
+  return { who: '', role: '' };
+}
+
+export function App({ host }: { host: HostClient }) {
+  const [screen, setScreen] = useState<Screen>('intake');
+  const [reviewDay, setReviewDay] = useState<1 | 2>(1);
+  const [summary, setSummary] = useState<CaseSummary | null>(null);
+  const [files, setFiles] = useState<{ day1: FilePayload; day2: FilePayload; caseJson: string } | null>(null);
+  const [view, setView] = useState<View | null>(null);
+  const [question, setQuestion] = useState<MappingQuestion | null>(null);
+  const [busy, setBusy] = useState<{ stage: string; fraction: number } | null>(null);
+  const [error, setError] = useState<LocatedError | null>(null);
+  const [reviewer, setReviewerState] = useState<Reviewer>(loadReviewer);
+  const [saveNote, setSaveNote] = useState<string>('No case open');
+  const [exportState, setExportState] = useState<ExportState>({ signers: [], signerId: null, result: null, verification: null });
+  const [renderMs, setRenderMs] = useState<{ replyMs: number; valuesMs: number; chartsMs: number | null } | null>(null);
+  const replyAt = useRef<number | null>(null);
+  const [previewUrl, setPreviewUrl] = useState<string | null>(null);
+  const engineRef = useRef<EngineClient<Comparison> | null>(null);
+  const verifyInput = useRef<HTMLInputElement>(null);
+  const chooseInput = useRef<HTMLInputElement>(null);
+  const changeStarted = useRef<number | null>(null);
+
+  if (!engineRef.current) engineRef.current = startEngine<Comparison>((stage, fraction) => setBusy({ stage, fraction }));
+  const engine = engineRef.current;
+
+  const setReviewer = (next: Reviewer) => {
+    setReviewerState(next);
+    localStorage.setItem(REVIEWER_KEY, JSON.stringify(next));
+  };
+
+  // From a reviewer's action to the screen: values in the DOM (layout effect, after React's
+  // commit), then charts redrawn (the frame after every chart's effect has run).
+  useLayoutEffect(() => {
+    if (changeStarted.current === null || !view) return;
+    const started = changeStarted.current;
+    changeStarted.current = null;
+    const valuesMs = performance.now() - started;
+    const replyMs = (replyAt.current ?? performance.now()) - started;
+    setRenderMs({ replyMs, valuesMs, chartsMs: null });
+    requestAnimationFrame(() => setTimeout(() => setRenderMs({ replyMs, valuesMs, chartsMs: performance.now() - started }), 0));
+  }, [view]);
+
+  const save = useCallback(
+    async (caseId: string, caseJson: string) => {
+      setSaveNote('Saving…');
+      const reply = await host.call('saveCase', { caseId, caseJson });
+      if (reply.ok) setSaveNote(`Saved ${new Date(reply.value.savedAt).toLocaleTimeString('en-GB')}`);
+      else {
+        setSaveNote('Not saved');
+        setError(reply.error);
+      }
+    },
+    [host],
+  );
+
+  const settle = useCallback(
+    async (reply: Settled<Comparison>, caseId: string | null) => {
+      setBusy(null);
+      if (reply.type === 'error') return setError(reply.error);
+      if (reply.type === 'needs-mapping') return setQuestion(reply.question);
+      setQuestion(null);
+      setError(null);
+      setView(reply.view);
+      if (caseId) await save(caseId, reply.view.caseJson);
+    },
+    [save],
+  );
+
+  const openFiles = useCallback(
+    async (opened: { summary: CaseSummary; day1: FilePayload; day2: FilePayload; caseJson: string }) => {
+      setSummary(opened.summary);
+      setFiles({ day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson });
+      setView(null);
+      setReviewDay(1);
+      setRenderMs(null);
+      setExportState((s) => ({ ...s, result: null, verification: null }));
+      setPreviewUrl(null);
+      const mappings = await host.call('listMappings', {});
+      const request: EngineRequest = { type: 'open', day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson, mappings: mappings.ok ? mappings.value.mappings : [] };
+      setBusy({ stage: 'Starting the analysis', fraction: 0 });
+      const reply = await engine.request(request);
+      await settle(reply, opened.summary.caseId);
+      if (reply.type === 'view') setScreen('breakpoints');
+    },
+    [engine, host, settle],
+  );
+
+  const openCase = useCallback(
+    async (caseId: string) => {
+      const reply = await host.call('openCase', { caseId });
+      if (!reply.ok) return setError(reply.error);
+      await openFiles(reply.value);
+    },
+    [host, openFiles],
+  );
+
+  const startCase = useCallback(
+    async (title: string, day1: FilePayload, day2: FilePayload, clinical: { day1: ClinicalInputs; day2: ClinicalInputs }) => {
+      setBusy({ stage: 'Copying the files into a new case folder', fraction: 0 });
+      const created = await host.call('createCase', { title, day1, day2, clinical });
+      setBusy(null);
+      if (!created.ok) return setError(created.error);
+      await openCase(created.value.caseId);
+    },
+    [host, openCase],
+  );
+
+  const loadDemo = useCallback(async () => {
+    const demo = await host.call('demoPair', {});
+    if (!demo.ok) return setError(demo.error);
+    await startCase(demo.value.title, demo.value.day1, demo.value.day2, { day1: NO_CLINICAL, day2: NO_CLINICAL });
+  }, [host, startCase]);
+
+  const answerMapping = useCallback(
+    async (layoutKey: string, mappingJson: string) => {
+      const saved = await host.call('saveMapping', { layoutKey, mappingJson });
+      if (!saved.ok) return setError(saved.error);
+      if (summary && files) await openFiles({ summary, ...files });
+    },
+    [host, summary, files, openFiles],
+  );
+
+  const act = useCallback(
+    async (request: EngineRequest) => {
+      if (!summary) return;
+      changeStarted.current = performance.now();
+      const reply = await engine.request(request);
+      replyAt.current = performance.now();
+      await settle(reply, summary.caseId);
+    },
+    [engine, settle, summary],
+  );
+
+  const needReviewer = (): boolean => {
+    if (reviewer.who.trim() && reviewer.role.trim()) return false;
+    setError({ code: 'reviewer-missing', file: 'reviewer', line: null, column: null, message: 'Enter your name and role (top right) first: every change is recorded under them.' });
+    return true;
+  };
+
+  const setThreshold = (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) =>
+    needReviewer() ? Promise.resolve() : act({ type: 'set-threshold', day, threshold, givenAs, value, reason, reviewer, at: new Date().toISOString() });
+  const withdraw = (seq: number, reason: string) => (needReviewer() ? Promise.resolve() : act({ type: 'withdraw', seq, reason, reviewer, at: new Date().toISOString() }));
+
+  const refreshSigners = useCallback(async () => {
+    const reply = await host.call('listSigners', {});
+    if (!reply.ok) return setError(reply.error);
+    setExportState((s) => ({ ...s, signers: reply.value.signers, signerId: s.signerId ?? reply.value.signers[0]?.id ?? null }));
+  }, [host]);
+
+  useEffect(() => {
+    void refreshSigners();
+  }, [refreshSigners]);
+
+  const exportReport = async () => {
+    if (!summary || needReviewer()) return;
+    const signerId = exportState.signerId;
+    if (!signerId) return setError({ code: 'no-signer', file: 'certificates', line: null, column: null, message: 'Choose a certificate to sign with.' });
+    setBusy({ stage: 'Building and signing the report', fraction: 0.3 });
+    const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})` });
+    setBusy(null);
+    if (!reply.ok) return setError(reply.error);
+    setExportState((s) => ({ ...s, result: reply.value, verification: null }));
+  };
+
+  const preview = async () => {
+    if (!summary) return;
+    setBusy({ stage: 'Building the report preview', fraction: 0.3 });
+    const reply = await host.call('previewReport', { caseId: summary.caseId, reviewer: reviewer.who ? `${reviewer.who} (${reviewer.role})` : '' });
+    setBusy(null);
+    if (!reply.ok) return setError(reply.error);
+    const bytes = Uint8Array.from(atob(reply.value.base64), (c) => c.charCodeAt(0));
+    setPreviewUrl((old) => {
+      if (old) URL.revokeObjectURL(old);
+      return URL.createObjectURL(new Blob([bytes], { type: 'application/pdf' }));
+    });
+  };
+
+  const verify = async (request: { caseId: string; fileName: string } | { fileName: string; base64: string }) => {
+    setBusy({ stage: `Verifying ${request.fileName}`, fraction: 0.5 });
+    const reply = await host.call('verifyReport', request);
+    setBusy(null);
+    if (!reply.ok) return setError(reply.error);
+    setExportState((s) => ({ ...s, verification: { fileName: request.fileName, ...reply.value } }));
+  };
+
+  const canUndo = view ? activeOverrides(view.log).size > 0 : false;
+  const ctx: CommandContext = {
+    hasCase: view !== null,
+    canUndo,
+    canRedo: (view?.redoable ?? 0) > 0,
+    go: setScreen,
+    reviewDay: setReviewDay,
+    loadDemo,
+    saveNow: async () => {
+      if (summary && view) await save(summary.caseId, view.caseJson);
+    },
+    undo: async () => {
+      if (!needReviewer()) await act({ type: 'undo', reviewer, at: new Date().toISOString() });
+    },
+    redo: async () => {
+      if (!needReviewer()) await act({ type: 'redo', reviewer, at: new Date().toISOString() });
+    },
+    exportReport,
+    chooseReportToVerify: () => verifyInput.current?.click(),
+    chooseFiles: () => chooseInput.current?.focus(),
+  };
+  const ctxRef = useRef(ctx);
+  ctxRef.current = ctx;
+
+  useEffect(() => {
+    const onKey = (event: KeyboardEvent) => {
+      const id = commandForKeys(keysOf(event));
+      if (!id) return;
+      const target = event.target as HTMLElement | null;
+      // Typing in a field keeps its own undo; the workbench's undo acts outside fields.
+      if (target && ['INPUT', 'TEXTAREA', 'SELECT'].includes(target.tagName) && id.startsWith('review.u')) return;
+      event.preventDefault();
+      void runCommand(id, ctxRef.current);
+    };
+    window.addEventListener('keydown', onKey);
+    const stop = host.onCommand((id) => {
+      if (COMMAND_CATALOG.some((c) => c.id === id)) void runCommand(id as CommandId, ctxRef.current);
+    });
+    return () => {
+      window.removeEventListener('keydown', onKey);
+      stop();
+    };
+  }, [host]);
+
+  const button = (id: CommandId, label: string) => (
+    <button type="button" className="tool" data-command={id} disabled={!COMMANDS[id].enabled(ctx)} onClick={() => void runCommand(id, ctx)} title={`${label} (${keysLabel(id)})`}>
+      {label}
+    </button>
+  );
+
+  const pending = useMemo(() => (view ? activeOverrides(view.log) : new Map()), [view]);
+
+  return (
+    <div className="app">
+      <header className="topbar">
+        <div className="brand">
+          <span className="mark" aria-hidden="true" />
+          Twofold <span className="sub">two-day CPET workbench</span>
+        </div>
+        <nav className="screens" aria-label="Screens">
+          {SCREENS.map((s) => (
+            <button key={s.id} type="button" className={screen === s.id ? 'tab active' : 'tab'} aria-current={screen === s.id ? 'page' : undefined} disabled={s.id !== 'intake' && !view} onClick={() => void runCommand(s.command, ctx)} title={COMMAND_CATALOG.find((c) => c.id === s.command)?.keys}>
+              {s.label}
+            </button>
+          ))}
+        </nav>
+        <div className="reviewer">
+          <label>
+            Reviewer <input aria-label="Reviewer name" value={reviewer.who} placeholder="name" onChange={(e) => setReviewer({ ...reviewer, who: e.target.value })} />
+          </label>
+          <input aria-label="Reviewer role" value={reviewer.role} placeholder="role" onChange={(e) => setReviewer({ ...reviewer, role: e.target.value })} />
+        </div>
+      </header>
+      <div className="toolbar">
+        {button('case.demo', 'Load demo pair')}
+        {button('review.undo', 'Undo')}
+        {button('review.redo', 'Redo')}
+        {button('case.save', 'Save now')}
+        {button('report.export', 'Export signed report')}
+        <span className="case-title" data-testid="case-title">
+          {summary ? summary.title : 'No case open'}
+        </span>
+        <span className="save-note" data-testid="save-note">
+          {saveNote}
+        </span>
+      </div>
+      {busy && <ProgressStrip stage={busy.stage} fraction={busy.fraction} />}
+      {error && <ErrorNotice error={error} onDismiss={() => setError(null)} />}
+      <input
+        ref={verifyInput}
+        type="file"
+        accept=".pdf,application/pdf"
+        hidden
+        data-testid="verify-input"
+        onChange={async (e) => {
+          const file = e.target.files?.[0];
+          e.target.value = '';
+          if (file) await verify({ fileName: file.name.replace(/[\\/]/g, '_'), base64: await toBase64(file) });
+        }}
+      />
+      <main className="screen" data-screen={screen}>
+        {screen === 'intake' && <Intake host={host} chooseRef={chooseInput} question={question} onStart={startCase} onOpen={openCase} onAnswerMapping={answerMapping} onError={setError} />}
+        {screen === 'breakpoints' && view && (
+          <Breakpoints view={view} day={reviewDay} onDay={setReviewDay} onSet={setThreshold} onWithdraw={withdraw} active={pending} renderMs={renderMs} />
+        )}
+        {screen === 'dayover' && view && <DayOver view={view} />}
+        {screen === 'signoff' && view && summary && (
+          <SignOff
+            view={view}
+            state={exportState}
+            reviewer={reviewer}
+            onSigner={(signerId) => setExportState((s) => ({ ...s, signerId }))}
+            onExport={() => void runCommand('report.export', ctx)}
+            onVerifyExported={(fileName) => void verify({ caseId: summary.caseId, fileName })}
+            onChooseReport={() => void runCommand('report.verify', ctx)}
+            onPreview={() => void preview()}
+            previewUrl={previewUrl}
+          />
+        )}
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,172 @@
+/**
+ * The analysis worker: holds the open case and runs core on it, so the page never freezes.
+ * Every number it sends back was computed by core (import, analyzeTest, compareTests,
+ * recomputeCase, the review functions); this file only sequences them and keeps the case.
+ *
+ * Undo withdraws the newest override still in force (a logged withdrawal, reason "undo");
+ * redo records that override again with its first reason. The log only ever grows.
+ */
+/// <reference lib="webworker" />
+import type { CaseFile, DayNumber } from '../../../core/case/case-file';
+import { caseFromText, caseToText } from '../../../core/case/case-text';
+import { recomputeCase, type CaseOutcome, type RawBytes } from '../../../core/case/recompute';
+import { recordOverride, recordWithdrawal } from '../../../core/case/review';
+import { activeOverrides } from '../../../core/case/overrides';
+import type { LocatedError } from '../../../core/model/errors';
+import type { Comparison } from '../../../core/compare/compare-tests';
+import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
+import type { ImportResult } from '../../../core/import/types';
+import { workbenchEngine, layoutKeyOf, mappingQuestion, needsMapping, type WorkbenchEngine } from './core-engine';
+import type { DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer } from './protocol';
+
+declare const self: DedicatedWorkerGlobalScope;
+
+interface OpenCase {
+  caseFile: CaseFile;
+  raw: RawBytes;
+  mappings: ReadonlyMap<string, ColumnMapping>;
+  engine: WorkbenchEngine;
+  outcome: CaseOutcome<Comparison>;
+  imports: { day1: ImportResult; day2: ImportResult };
+  /** Overrides undone, newest last: what redo puts back. */
+  redo: { day: DayNumber; threshold: 'vt1' | 'vt2'; timeS: number; reason: string }[];
+}
+
+let open: OpenCase | null = null;
+
+function bytesOf(base64: string): Uint8Array {
+  const text = atob(base64);
+  const bytes = new Uint8Array(text.length);
+  for (let i = 0; i < text.length; i++) bytes[i] = text.charCodeAt(i);
+  return bytes;
+}
+
+function post(reply: EngineReply<Comparison>): void {
+  self.postMessage(reply);
+}
+
+function notesOf(result: ImportResult): DayImportNotes {
+  return { warnings: result.warnings, rejected: result.rejected, flagged: result.flags.length };
+}
+
+function viewOf(state: OpenCase, updateMs: number): EngineView<Comparison> {
+  const saved: CaseFile = { ...state.caseFile, recorded: state.outcome.recorded };
+  return {
+    day1: state.outcome.day1,
+    day2: state.outcome.day2,
+    comparison: state.outcome.comparison,
+    notes: { day1: notesOf(state.imports.day1), day2: notesOf(state.imports.day2) },
+    log: state.caseFile.log,
+    digest: state.outcome.recorded.digest,
+    caseJson: caseToText(saved),
+    redoable: state.redo.length,
+    updateMs,
+  };
+}
+
+function recompute(state: Pick<OpenCase, 'raw' | 'engine'>, caseFile: CaseFile): { ok: true; outcome: CaseOutcome<Comparison> } | { ok: false; error: LocatedError } {
+  const result = recomputeCase(caseFile, state.raw, state.engine);
+  return result.ok ? { ok: true, outcome: result.value } : { ok: false, error: result.error };
+}
+
+async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'open' }>): Promise<void> {
+  post({ id, type: 'progress', stage: 'Reading the case file', fraction: 0.05 });
+  const parsed = caseFromText(message.caseJson, 'twofold-case.json');
+  if (!parsed.ok) return post({ id, type: 'error', error: parsed.error });
+  const mappings = new Map<string, ColumnMapping>();
+  for (const m of message.mappings) {
+    const mapping = parseMapping(m.mappingJson, `${m.layoutKey}.json`);
+    if (mapping.ok) mappings.set(m.layoutKey, mapping.value);
+  }
+  const raw = { day1: bytesOf(message.day1.base64), day2: bytesOf(message.day2.base64) };
+  const names = { day1: parsed.value.inputs.day1.name, day2: parsed.value.inputs.day2.name };
+  const engine = workbenchEngine(mappings);
+  const imports: Partial<Record<'day1' | 'day2', ImportResult>> = {};
+  for (const day of [1, 2] as const) {
+    const key = day === 1 ? 'day1' : 'day2';
+    post({ id, type: 'progress', stage: `Importing day ${day} (${names[key]})`, fraction: day === 1 ? 0.1 : 0.3 });
+    const result = await engine.preload(names[key], raw[key], parsed.value.settings);
+    if (!result.ok) return post({ id, type: 'error', error: result.error });
+    const layoutKey = layoutKeyOf(result.value);
+    if (!mappings.has(layoutKey) && needsMapping(result.value)) {
+      return post({ id, type: 'needs-mapping', question: mappingQuestion(day, names[key], raw[key], result.value) });
+    }
+    imports[key] = result.value;
+  }
+  post({ id, type: 'progress', stage: 'Analysing both days (thresholds, bootstrap, comparison)', fraction: 0.5 });
+  const started = performance.now();
+  const base = { caseFile: parsed.value, raw, mappings, engine, imports: { day1: imports.day1!, day2: imports.day2! }, redo: [] };
+  const done = recompute(base, parsed.value);
+  if (!done.ok) return post({ id, type: 'error', error: done.error });
+  open = { ...base, outcome: done.outcome };
+  post({ id, type: 'view', view: viewOf(open, performance.now() - started) });
+}
+
+/** Appends one reviewed action (built by `change`) and recomputes; the timing covers both. */
+function applyChange(id: number, change: (state: OpenCase) => { ok: true; value: CaseFile } | { ok: false; error: LocatedError }, after?: (state: OpenCase) => void): void {
+  const state = open;
+  if (!state) return post({ id, type: 'error', error: { code: 'no-case', file: 'workbench', line: null, column: null, message: 'Open a case first.' } });
+  const started = performance.now();
+  const next = change(state);
+  if (!next.ok) return post({ id, type: 'error', error: next.error });
+  const done = recompute(state, next.value);
+  if (!done.ok) return post({ id, type: 'error', error: done.error });
+  open = { ...state, caseFile: next.value, outcome: done.outcome };
+  after?.(open);
+  post({ id, type: 'view', view: viewOf(open, performance.now() - started) });
+}
+
+const stamp = (reviewer: Reviewer, at: string) => ({ who: reviewer.who, role: reviewer.role, at });
+
+function handle(id: number, message: EngineRequest): void {
+  switch (message.type) {
+    case 'open':
+      handleOpen(id, message).catch((error: unknown) => crashed(id, error));
+      return;
+    case 'set-threshold':
+      return applyChange(
+        id,
+        (s) => recordOverride(s.caseFile, s.outcome, stamp(message.reviewer, message.at), message.day, message.threshold, message.givenAs === 'time' ? { timeS: message.value } : { vo2MlMin: message.value }, message.reason),
+        (s) => {
+          s.redo = [];
+        },
+      );
+    case 'withdraw':
+      return applyChange(id, (s) => recordWithdrawal(s.caseFile, s.outcome, stamp(message.reviewer, message.at), message.seq, message.reason));
+    case 'undo': {
+      const newest = open ? [...activeOverrides(open.caseFile.log).values()].sort((a, b) => b.seq - a.seq)[0] : undefined;
+      if (!newest) return post({ id, type: 'error', error: { code: 'nothing-to-undo', file: 'reviewer log', line: null, column: null, message: 'There is no threshold change in force to undo.' } });
+      return applyChange(
+        id,
+        (s) => recordWithdrawal(s.caseFile, s.outcome, stamp(message.reviewer, message.at), newest.seq, 'undo'),
+        (s) => {
+          s.redo = [...s.redo, { day: newest.day, threshold: newest.threshold, timeS: newest.point.timeS, reason: newest.reason }];
+        },
+      );
+    }
+    case 'redo': {
+      const item = open?.redo[open.redo.length - 1];
+      if (!item) return post({ id, type: 'error', error: { code: 'nothing-to-redo', file: 'reviewer log', line: null, column: null, message: 'There is no undone threshold change to redo.' } });
+      return applyChange(
+        id,
+        (s) => recordOverride(s.caseFile, s.outcome, stamp(message.reviewer, message.at), item.day, item.threshold, { timeS: item.timeS }, item.reason),
+        (s) => {
+          s.redo = s.redo.slice(0, -1);
+        },
+      );
+    }
+  }
+}
+
+function crashed(id: number, error: unknown): void {
+  post({ id, type: 'error', error: { code: 'analysis-crashed', file: 'analysis worker', line: null, column: null, message: `The analysis failed unexpectedly: ${error instanceof Error ? error.message : String(error)}` } });
+}
+
+self.addEventListener('message', (event: MessageEvent<{ id: number; message: EngineRequest }>) => {
+  const { id, message } = event.data;
+  try {
+    handle(id, message);
+  } catch (error) {
+    crashed(id, error);
+  }
+});

@@ -1,0 +1,64 @@
+/**
+ * Messages between the page and its analysis worker. The worker owns the case file and the
+ * core engine; the page sends intents and receives whole views to draw.
+ */
+import type { FilePayload } from '../../../host/workbench/api';
+import type { LocatedError } from '../../../core/model/errors';
+import type { ThresholdId } from '../../../core/model/analysis';
+import type { AuditEntry, DayNumber } from '../../../core/case/case-file';
+import type { DayOutcome } from '../../../core/case/recompute';
+
+export interface Reviewer {
+  readonly who: string;
+  readonly role: string;
+}
+
+/** A column the importer was unsure of, for the mapping step. */
+export interface MappingQuestion {
+  readonly day: DayNumber;
+  readonly fileName: string;
+  readonly layoutKey: string;
+  readonly headers: readonly string[];
+  /** The first rows under the header, cell by cell, as written. */
+  readonly rows: readonly (readonly string[])[];
+  /** The importer's reading of each column, index-aligned with `headers`. */
+  readonly columns: readonly { readonly variable: string | null; readonly unit: string | null; readonly unitInferred: boolean; readonly note: string | null }[];
+  readonly warnings: readonly LocatedError[];
+  /** Variables and the units each accepts, from the importer. */
+  readonly choices: readonly { readonly variable: string; readonly label: string; readonly units: readonly string[] }[];
+}
+
+export interface DayImportNotes {
+  readonly warnings: readonly LocatedError[];
+  readonly rejected: readonly LocatedError[];
+  readonly flagged: number;
+}
+
+export interface EngineView<C = unknown> {
+  readonly day1: DayOutcome;
+  readonly day2: DayOutcome;
+  readonly comparison: C;
+  readonly notes: { readonly day1: DayImportNotes; readonly day2: DayImportNotes };
+  readonly log: readonly AuditEntry[];
+  /** SHA-256 of every recomputed number (core/case `recorded.digest`). */
+  readonly digest: string;
+  /** The case file to autosave. */
+  readonly caseJson: string;
+  /** Overrides withdrawn by undo that redo can put back, newest last. */
+  readonly redoable: number;
+  /** Wall time of the last recompute in the worker, ms. */
+  readonly updateMs: number;
+}
+
+export type EngineRequest =
+  | { readonly type: 'open'; readonly day1: FilePayload; readonly day2: FilePayload; readonly caseJson: string; readonly mappings: readonly { layoutKey: string; mappingJson: string }[] }
+  | { readonly type: 'set-threshold'; readonly day: DayNumber; readonly threshold: ThresholdId; readonly givenAs: 'time' | 'vo2'; readonly value: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
+  | { readonly type: 'withdraw'; readonly seq: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
+  | { readonly type: 'undo'; readonly reviewer: Reviewer; readonly at: string }
+  | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string };
+
+export type EngineReply<C = unknown> =
+  | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
+  | { readonly id: number; readonly type: 'needs-mapping'; readonly question: MappingQuestion }
+  | { readonly id: number; readonly type: 'error'; readonly error: LocatedError }
+  | { readonly id: number; readonly type: 'progress'; readonly stage: string; readonly fraction: number };

@@ -1,0 +1,155 @@
+/**
+ * Sign-off: what the report will state (the summary, the thresholds as used and the reviewer
+ * log), the certificate and reviewer identity, the export of the signed PDF, and the
+ * verification of an exported or chosen report.
+ */
+import type { SignerInfo } from '../../../host/workbench/api';
+import type { Comparison } from '../../../core/compare/compare-tests';
+import type { EngineView, Reviewer } from '../engine/protocol';
+import { Caution } from '../ui/notices';
+import { clock, fmt } from '../ui/format';
+
+export interface ExportState {
+  readonly signers: readonly SignerInfo[];
+  readonly signerId: string | null;
+  readonly result: { fileName: string; path: string; bytes: number; demonstration: boolean } | null;
+  readonly verification: { fileName: string; valid: boolean; summary: string; checks: readonly { name: string; passed: boolean; detail: string }[] } | null;
+}
+
+interface Props {
+  readonly view: EngineView<Comparison>;
+  readonly state: ExportState;
+  readonly reviewer: Reviewer;
+  readonly onSigner: (id: string) => void;
+  readonly onExport: () => void;
+  readonly onVerifyExported: (fileName: string) => void;
+  readonly onChooseReport: () => void;
+  readonly onPreview: () => void;
+  /** A blob: URL of the unsigned preview PDF, once built. */
+  readonly previewUrl: string | null;
+}
+
+function describe(action: EngineView['log'][number]['action']): string {
+  switch (action.kind) {
+    case 'set-threshold':
+      return `Day ${action.day} ${action.threshold.toUpperCase()} set to ${clock(action.after.timeS)}, ${fmt(action.after.vo2MlMin, 0, 'mL/min')} (given as ${action.givenAs === 'time' ? 'a time' : 'a VO₂'}; before: ${action.before ? `${clock(action.before.timeS)}, ${fmt(action.before.vo2MlMin, 0, 'mL/min')}` : 'none'})`;
+    case 'withdraw':
+      return `Withdrew entry ${action.withdraws} (day ${action.day} ${action.threshold.toUpperCase()}); now ${action.after ? `${clock(action.after.timeS)}, ${fmt(action.after.vo2MlMin, 0, 'mL/min')}` : 'none'}`;
+    case 'sign-off':
+      return `Signed off: ${action.statement}`;
+  }
+}
+
+export function SignOff({ view, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl }: Props) {
+  const signer = state.signers.find((s) => s.id === state.signerId) ?? null;
+  return (
+    <div className="signoff">
+      <Caution />
+      <div className="two-col">
+        <section className="panel preview" aria-label="Report preview">
+          <h2>What the report will state</h2>
+          <p>{view.comparison.summary}</p>
+          <table className="values">
+            <thead>
+              <tr>
+                <th>Day</th>
+                <th>VT1</th>
+                <th>VT2</th>
+                <th>VO₂ peak</th>
+                <th>Effort</th>
+              </tr>
+            </thead>
+            <tbody>
+              {[view.day1, view.day2].map((d) => (
+                <tr key={d.day}>
+                  <th scope="row">
+                    Day {d.day}: {d.analysis.sourceName}
+                  </th>
+                  <td>
+                    {fmt(d.analysis.vt1.at?.vo2MlMin, 0, 'mL/min')} at {clock(d.analysis.vt1.at?.timeS)} {d.vt1.override ? `(reviewer, entry ${d.vt1.override.seq})` : '(automatic)'}
+                  </td>
+                  <td>
+                    {fmt(d.analysis.vt2.at?.vo2MlMin, 0, 'mL/min')} {d.vt2.override ? `(reviewer, entry ${d.vt2.override.seq})` : '(automatic)'}
+                  </td>
+                  <td>{fmt(d.analysis.peak.vo2MlMin, 0, 'mL/min')}</td>
+                  <td>{d.analysis.effort.verdict}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <h3>Reviewer log ({view.log.length} entries, hash-chained)</h3>
+          {view.log.length === 0 ? (
+            <p className="hint">No reviewer actions: every threshold is the automatic estimate.</p>
+          ) : (
+            <ol className="log" data-testid="review-log">
+              {view.log.map((e) => (
+                <li key={e.seq}>
+                  <span className="meta">
+                    {new Date(e.at).toLocaleString('en-GB')} · {e.who} ({e.role})
+                  </span>{' '}
+                  {describe(e.action)} — “{e.reason}”
+                </li>
+              ))}
+            </ol>
+          )}
+          <p className="hint">Record digest {view.digest.slice(0, 16)}… (SHA-256 of every recomputed number).</p>
+          <button type="button" data-testid="preview" onClick={onPreview}>
+            {previewUrl ? 'Rebuild the preview' : 'Preview the report (unsigned)'}
+          </button>
+          {previewUrl && <iframe className="preview-frame" title="Report preview (unsigned)" src={previewUrl} data-testid="preview-frame" />}
+        </section>
+        <section className="panel export" aria-label="Export and verify">
+          <h2>Sign and export</h2>
+          <label className="field">
+            Certificate
+            <select data-testid="signer" value={state.signerId ?? ''} onChange={(e) => onSigner(e.target.value)}>
+              {state.signers.map((s) => (
+                <option key={s.id} value={s.id}>
+                  {s.label}
+                  {s.demonstration ? ' — DEMONSTRATION ONLY' : ''}
+                </option>
+              ))}
+            </select>
+          </label>
+          {signer?.demonstration && <p className="demo-note">This certificate is for demonstration: the report will say so on every page and must not be filed as evidence.</p>}
+          <p>
+            Reviewer: <strong>{reviewer.who || '(enter your name at the top right)'}</strong> {reviewer.role && `(${reviewer.role})`}
+          </p>
+          <button type="button" className="primary" data-testid="export" onClick={onExport}>
+            Export signed report
+          </button>
+          {state.result && (
+            <div className="result" data-testid="export-result">
+              <p>
+                Written <code>{state.result.fileName}</code> ({fmt(state.result.bytes / 1024, 0, 'KiB')}) to the case folder:
+                <br />
+                <code className="path" data-testid="export-path">{state.result.path}</code>
+              </p>
+              <button type="button" onClick={() => onVerifyExported(state.result!.fileName)}>
+                Verify this report
+              </button>
+            </div>
+          )}
+          <h2>Verify a report</h2>
+          <button type="button" onClick={onChooseReport}>
+            Choose a PDF report…
+          </button>
+          {state.verification && (
+            <div className={state.verification.valid ? 'verdict-box valid' : 'verdict-box invalid'} data-testid="verification">
+              <p>
+                <strong>{state.verification.valid ? '✔ Valid' : '✘ Not valid'}</strong>: {state.verification.fileName} — {state.verification.summary}
+              </p>
+              <ul>
+                {state.verification.checks.map((c) => (
+                  <li key={c.name}>
+                    {c.passed ? '✔ passed' : '✘ failed'} — {c.name}: {c.detail}
+                  </li>
+                ))}
+              </ul>
+            </div>
+          )}
+        </section>
+      </div>
+    </div>
+  );
+}

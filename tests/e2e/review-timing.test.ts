@@ -1,0 +1,133 @@
+/**
+ * Reviewing a long test through the page: files chosen through the file inputs, the time
+ * from an override to the updated values (target under 50 ms for a 1,500-breath test),
+ * undo, redo and withdrawal, and the mapping step for an export whose units the importer
+ * had to infer. References: data generated from the project's stated physiological model
+ * with known thresholds (sample-tests/generator), linear interpolation worked by hand, and
+ * the importer's own reading of the layout sample (core/import) for the mapping question.
+ */
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { defaultCycleParams, generateTest } from '../../sample-tests/generator';
+import { writeBreathCsv } from '../../core/export/breath-csv';
+import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
+import { numberIn, ROOT, SCREENSHOTS, startWorkbench, type Workbench } from './harness';
+
+let bench: Workbench;
+let page: Page;
+
+/** A slow ramp (4 W/min) with small breaths: about 1,500 breaths per test. VT1 1,100 → 850 mL/min on day 2. */
+function longPair() {
+  const p = defaultCycleParams();
+  const base = { ...p, vtMaxL: 1.2, protocol: { ...p.protocol, rampWPerMin: 4 } } as typeof p;
+  const day1 = generateTest({ ...base, name: 'long-day1', testStart: '2026-05-04T09:00:00Z' }, 1501);
+  const day2 = generateTest({ ...base, name: 'long-day2', testStart: '2026-05-05T09:10:00Z', vt1Vo2MlMin: 850 }, 1502);
+  return { day1, day2 };
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+beforeAll(async () => {
+  bench = await startWorkbench();
+  page = await bench.newPage();
+  await page.goto(bench.bridge.url);
+  await page.fill('input[aria-label="Reviewer name"]', 'T. Lindqvist');
+  await page.fill('input[aria-label="Reviewer role"]', 'clinical physiologist');
+});
+
+afterAll(async () => {
+  await bench?.close();
+});
+
+describe('a 1,500-breath pair', () => {
+  const timings: { worker: number; reply: number; values: number; charts: number }[] = [];
+
+  it('opens from chosen files and updates every value quickly after each override', async () => {
+    const { day1, day2 } = longPair();
+    expect(day1.table.breaths.length).toBeGreaterThanOrEqual(1500);
+    await page.setInputFiles('[data-testid="day1-file"]', { name: 'long-day1.csv', mimeType: 'text/csv', buffer: Buffer.from(writeBreathCsv(day1.table)) });
+    await page.setInputFiles('[data-testid="day2-file"]', { name: 'long-day2.csv', mimeType: 'text/csv', buffer: Buffer.from(writeBreathCsv(day2.table)) });
+    await page.fill('input[aria-label="Peak RPE day 1"]', '19');
+    await page.fill('input[aria-label="Peak RPE day 2"]', '19');
+    await page.click('text=Start case');
+    await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 180_000 });
+    await page.locator('.day-tab', { hasText: 'Day 2' }).click();
+
+    const ramp = day2.truth.phases;
+    for (let k = 0; k < 5; k++) {
+      const t = Math.round(ramp.incrementalStartS + 300 + 60 * k);
+      await page.fill('[data-testid="override-value"]', String(t));
+      await page.fill('[data-testid="override-reason"]', `timing run ${k + 1}`);
+      await page.click('[data-testid="override-apply"]');
+      await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), k + 1);
+      expect(numberIn((await page.locator('[data-testid="row-vt1"] > :nth-child(3)').textContent())!.split('(')[1])).toBe(t);
+      await page.waitForSelector('[data-testid="charts-ms"]');
+      timings.push({
+        worker: numberIn(await page.locator('[data-testid="worker-ms"]').textContent()),
+        reply: numberIn(await page.locator('[data-testid="reply-ms"]').textContent()),
+        values: numberIn(await page.locator('[data-testid="values-ms"]').textContent()),
+        charts: numberIn(await page.locator('[data-testid="charts-ms"]').textContent()),
+      });
+    }
+    const figures = { breaths: day2.table.breaths.length, workerMs: median(timings.map((x) => x.worker)), replyMs: median(timings.map((x) => x.reply)), valuesMs: median(timings.map((x) => x.values)), chartsMs: median(timings.map((x) => x.charts)) };
+    mkdirSync(join(ROOT, '.test-results'), { recursive: true });
+    writeFileSync(join(ROOT, '.test-results', 'workbench-timing.json'), `${JSON.stringify({ figures, timings }, null, 2)}\n`);
+    console.log(`override → values on screen, ${figures.breaths} breaths (median of 5): worker ${figures.workerMs} ms, values ${figures.valuesMs} ms, charts ${figures.chartsMs} ms`);
+    // The target is 50 ms from action to values on screen (docs/workbench.md gives the measured
+    // figures and where the time goes). On this shared two-core machine the figure moves with
+    // the load, so the test holds a regression bound of twice the target on the median.
+    expect(figures.valuesMs).toBeLessThan(100);
+    expect(figures.replyMs).toBeLessThanOrEqual(figures.valuesMs);
+  }, 150_000);
+
+  it('undo withdraws the newest override, redo puts it back, withdraw needs a reason', async () => {
+    const vt1Text = () => page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent();
+    expect(await vt1Text()).toContain('reviewer (entry 5)');
+    await page.click('button[data-command="review.undo"]');
+    // Undo withdraws entry 5; entry 4 is in force again.
+    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 4)'));
+    await page.keyboard.press('Control+Shift+Z');
+    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 7)'));
+    const withdrawButton = page.locator('[data-testid="override-vt1"] button', { hasText: 'Withdraw' });
+    expect(await withdrawButton.isDisabled()).toBe(true);
+    await page.fill('[data-testid="override-vt1"] input', 'back to the automatic estimate for comparison');
+    await withdrawButton.click();
+    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 4)'));
+    await page.locator('nav.screens button', { hasText: 'Sign-off' }).click();
+    // 5 overrides, the undo (6), the redo (7), the withdrawal (8): the log only grows.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(8);
+  });
+});
+
+describe('an export whose units the importer inferred', () => {
+  it('asks about the columns, remembers the answer for the layout, and does not ask again', async () => {
+    const utf16 = readFileSync(join(ROOT, 'sample-tests', 'layouts', 'quoted-utf16', 'qh0417-day1.csv'));
+    const day2 = readFileSync(join(DEMO_FOLDER, DEMO_PAIR.day2));
+    const start = async () => {
+      await page.locator('nav.screens button', { hasText: 'Intake' }).click();
+      await page.setInputFiles('[data-testid="day1-file"]', { name: 'cart-export.csv', mimeType: 'text/csv', buffer: utf16 });
+      await page.setInputFiles('[data-testid="day2-file"]', { name: DEMO_PAIR.day2, mimeType: 'text/csv', buffer: day2 });
+      await page.click('text=Start case');
+    };
+    await start();
+    await page.waitForSelector('[data-testid="mapping-step"]', { timeout: 120_000 });
+    const text = await page.locator('[data-testid="mapping-step"]').textContent();
+    // The importer inferred two units in this layout (warnings 'unit-inferred').
+    expect(text).toContain('gives no unit');
+    expect(await page.locator('.mapping-table tbody tr').count()).toBeGreaterThan(0);
+    await page.screenshot({ path: join(SCREENSHOTS, '8-mapping-step.png'), fullPage: true });
+    await page.click('text=Use these columns and remember them for this layout');
+    await page.waitForSelector('[data-testid="thresholds-day1"], .error-notice', { timeout: 120_000 });
+    expect(await page.locator('.error-notice').allTextContents()).toEqual([]);
+
+    await start();
+    await page.waitForSelector('[data-testid="thresholds-day1"], [data-testid="mapping-step"]', { timeout: 120_000 });
+    expect(await page.locator('[data-testid="mapping-step"]').count()).toBe(0);
+  }, 150_000);
+
+  it('made no request outside 127.0.0.1', () => {
+    expect(bench.outside).toEqual([]);
+  });
+});
