@@ -8,6 +8,12 @@
  *
  * Example: estimates 1,500, 1,550 and 1,700 mL/min → consensus 1,550, spread 200; with a
  * 10 % limit (155 mL/min) the methods disagree.
+ *
+ * The median of all methods that found the threshold, the combined V-slope with VE
+ * (vslope-shared.ts) among them. Letting that one method lead (its estimate as the consensus
+ * whenever it found VT1) gave a lower median error on generated tests but failed badly
+ * where it alone went wrong (a demo pair that reproduces showed a false VT1 decline), so the
+ * median stands: robust to one wayward method (our choice; docs/validation.md).
  */
 import type { MethodOutcome } from '../model/analysis';
 import { median } from '../math/stats';

@@ -10,8 +10,8 @@
  *     preliminary VT2 that came too early must not hide VT1);
  *  3. VT2 by the VT2 methods from VT1 to the end of the incremental phase (from its start
  *     when VT1 was not found).
- * Each threshold is the consensus of its methods (consensus.ts) with a bootstrap 95 %
- * interval of that consensus (uncertainty.ts). The preliminary VT2 only bounds a window and
+ * Each threshold is the consensus of its methods (consensus.ts) with a 95 % interval that joins
+ * the bootstrap spread of the consensus and the methods' spread (uncertainty.ts). The preliminary VT2 only bounds a window and
  * gets no interval. Units: s and mL/min. Pure: same input, same output.
  */
 import type { Phases, ProcessedSeries, ThresholdId } from '../model/analysis';
@@ -21,7 +21,7 @@ import { consensusOf } from './consensus';
 import type { DetectorEntry, DetectorInput, ThresholdEstimate } from './detector';
 import { VT1_METHODS, VT2_METHODS } from './methods';
 import { vo2Curve } from './read-off';
-import { combinationInterval, methodReplicates } from './uncertainty';
+import { combinationInterval, methodAwareInterval, methodReplicates } from './uncertainty';
 
 const NAMES: Record<ThresholdId, string> = { vt1: 'VT1', vt2: 'VT2' };
 
@@ -44,7 +44,9 @@ export function estimateThreshold(
   const curve = vo2Curve(input.series, incremental[0], incremental[1]);
   const reps = withInterval ? methodReplicates(outcomes, input, id === 'vt1' ? 1 : 2) : null;
   const c = consensusOf(outcomes, curve, input.settings.thresholds.disagreementPct, NAMES[id]);
-  const ci = reps && c.consensus ? combinationInterval(reps, median, curve) : null;
+  const boot = reps && c.consensus ? combinationInterval(reps, median, curve) : null;
+  const found = outcomes.flatMap((o) => (o.found ? [o.vo2MlMin] : []));
+  const ci = boot && c.consensus ? methodAwareInterval(boot, c.consensus.vo2MlMin, found, curve) : null;
   return {
     methods: outcomes,
     consensus: c.consensus,

@@ -12,14 +12,17 @@ import { veVsVco2 } from './ve-vs-vco2';
 import { veVo2 } from './ventilatory-equivalents';
 import { detect as vslope } from './vslope';
 import { vslopeHinge } from './vslope-hinge';
+import { detect as vslopeVe } from './vslope-shared';
 
 export const VT1_METHODS: readonly DetectorEntry[] = [
+  { threshold: 'vt1', method: 'vslope-ve', detect: vslopeVe },
   { threshold: 'vt1', method: 'vslope', detect: vslope },
   { threshold: 'vt1', method: 'vslope-hinge', detect: vslopeHinge.detect },
   { threshold: 'vt1', method: 've-vo2', detect: veVo2.detect },
   { threshold: 'vt1', method: 'excess-co2', detect: excessCo2.detect },
   { threshold: 'vt1', method: 'peto2', detect: peto2.detect },
 ];
+
 
 export const VT2_METHODS: readonly DetectorEntry[] = [
   { threshold: 'vt2', method: 've-vco2-ratio', detect: veVco2Ratio.detect },

@@ -44,10 +44,15 @@ function subject(base: TestParams, seed: number): Pick<TestParams, 'vo2PeakMlMin
   };
 }
 
-/** Every condition × seedsPerCondition tests. */
-export function validationCases(seedsPerCondition: number): ValidationCase[] {
+/** First seed of the held-out validation set; tuning uses DEVELOPMENT_FIRST_SEED instead. */
+export const VALIDATION_FIRST_SEED = 1;
+/** First seed of the development set: the same conditions, other subjects and noise. */
+export const DEVELOPMENT_FIRST_SEED = 5000;
+
+/** Every condition × seedsPerCondition tests, seeds counting up from `firstSeed`. */
+export function validationCases(seedsPerCondition: number, firstSeed = VALIDATION_FIRST_SEED): ValidationCase[] {
   const cases: ValidationCase[] = [];
-  let seed = 1;
+  let seed = firstSeed;
   for (const noiseScale of NOISE_SCALES) {
     for (const outliers of [0, 15]) {
       const conditions: { modality: 'cycle' | 'treadmill'; ramp: number | null }[] = [

@@ -17,6 +17,9 @@ export interface CaseResult {
   readonly vt2ErrPct: number;
   readonly vt1Covered: boolean | null;
   readonly vt2Covered: boolean | null;
+  /** Interval width as % of the true VO2, null without an interval. */
+  readonly vt1CiWidthPct: number | null;
+  readonly vt2CiWidthPct: number | null;
 }
 
 export interface Summary {
@@ -30,18 +33,25 @@ export interface Summary {
   /** Share of found thresholds whose 95 % interval holds the true VO2, %. */
   readonly vt1CoveragePct: number;
   readonly vt2CoveragePct: number;
+  /** Median interval width, % of the true VO2. */
+  readonly vt1CiWidthPct: number;
+  readonly vt2CiWidthPct: number;
 }
 
 function errPct(found: number | undefined, truth: number): number {
   return found === undefined ? MISS_ERROR_PCT : (100 * Math.abs(found - truth)) / truth;
 }
 
+function widthPct(ci: readonly [number, number] | null, truth: number): number | null {
+  return ci ? (100 * (ci[1] - ci[0])) / truth : null;
+}
+
 function covered(ci: readonly [number, number] | null, truth: number): boolean | null {
   return ci ? ci[0] <= truth && truth <= ci[1] : null;
 }
 
-export function runCases(seedsPerCondition: number): CaseResult[] {
-  return validationCases(seedsPerCondition).map((c) => {
+export function runCases(seedsPerCondition: number, firstSeed?: number): CaseResult[] {
+  return validationCases(seedsPerCondition, firstSeed).map((c) => {
     const { table, truth } = generateTest(c.params, c.seed);
     const a = analyzeTest(table, DEFAULT_SETTINGS, noClinicalInputs());
     return {
@@ -50,6 +60,8 @@ export function runCases(seedsPerCondition: number): CaseResult[] {
       vt2ErrPct: errPct(a.vt2.at?.vo2MlMin, truth.vt2.vo2MlMin),
       vt1Covered: covered(a.vt1.ci95Vo2MlMin, truth.vt1.vo2MlMin),
       vt2Covered: covered(a.vt2.ci95Vo2MlMin, truth.vt2.vo2MlMin),
+      vt1CiWidthPct: widthPct(a.vt1.ci95Vo2MlMin, truth.vt1.vo2MlMin),
+      vt2CiWidthPct: widthPct(a.vt2.ci95Vo2MlMin, truth.vt2.vo2MlMin),
     };
   });
 }
@@ -57,6 +69,11 @@ export function runCases(seedsPerCondition: number): CaseResult[] {
 function coverage(values: readonly (boolean | null)[]): number {
   const known = values.filter((v): v is boolean => v !== null);
   return known.length ? (100 * known.filter(Boolean).length) / known.length : Number.NaN;
+}
+
+function medianKnown(values: readonly (number | null)[]): number {
+  const known = values.filter((v): v is number => v !== null);
+  return known.length ? median(known) : Number.NaN;
 }
 
 export function summarise(results: readonly CaseResult[]): Summary {
@@ -72,6 +89,8 @@ export function summarise(results: readonly CaseResult[]): Summary {
     vt2Misses: e2.filter((e) => e === MISS_ERROR_PCT).length,
     vt1CoveragePct: coverage(results.map((r) => r.vt1Covered)),
     vt2CoveragePct: coverage(results.map((r) => r.vt2Covered)),
+    vt1CiWidthPct: medianKnown(results.map((r) => r.vt1CiWidthPct)),
+    vt2CiWidthPct: medianKnown(results.map((r) => r.vt2CiWidthPct)),
   };
 }
 

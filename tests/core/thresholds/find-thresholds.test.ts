@@ -12,7 +12,7 @@ describe('findThresholds', () => {
     const { vt1, vt2 } = findThresholds(syntheticSeries(), phases, DEFAULT_SETTINGS);
     expect(Math.abs(vt1.consensus!.vo2MlMin - TRUE_VT1_VO2) / TRUE_VT1_VO2).toBeLessThan(0.03);
     expect(Math.abs(vt2.consensus!.vo2MlMin - TRUE_VT2_VO2) / TRUE_VT2_VO2).toBeLessThan(0.03);
-    expect(vt1.methods.map((m) => m.method)).toEqual(['vslope', 'vslope-hinge', 've-vo2', 'excess-co2', 'peto2']);
+    expect(vt1.methods.map((m) => m.method)).toEqual(['vslope-ve', 'vslope', 'vslope-hinge', 've-vo2', 'excess-co2', 'peto2']);
     expect(vt2.methods.map((m) => m.method)).toEqual(['ve-vco2-ratio', 'petco2', 've-vs-vco2']);
   });
 
