@@ -13,7 +13,8 @@ import { fail, locatedError, ok, type Result } from '../model/errors';
 const positive = z.number().positive();
 const nullableTime = z.number().nonnegative().nullable();
 
-const settingsSchema = z.strictObject({
+/** The full settings, every field checked; the case file validates its settings with it too. */
+export const settingsSchema = z.strictObject({
   version: z.literal(SETTINGS_VERSION),
   import: z.strictObject({
     implausible: z.strictObject({ vo2MaxMlMin: positive, hrMinBpm: positive, hrMaxBpm: positive, rerMin: positive, rerMax: positive }),

@@ -3,6 +3,7 @@
  * against it before anything is trusted; the TypeScript types in case-file.ts and this
  * schema describe the same shape, and the test suite checks that a saved case parses.
  */
+import { settingsSchema } from '../analyze/settings-input';
 import { z } from 'zod';
 import { CASE_FORMAT, CASE_VERSION } from './case-file';
 
@@ -10,43 +11,6 @@ const num = z.number().finite();
 const nullableNum = num.nullable();
 const sha = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lowercase hex');
 const isoTime = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/, 'an ISO 8601 date-time with a zone');
-
-const settingsSchema = z.object({
-  version: z.literal(1),
-  import: z.object({
-    implausible: z.object({ vo2MaxMlMin: num, hrMinBpm: num, hrMaxBpm: num, rerMin: num, rerMax: num }),
-    rerMismatch: num,
-  }),
-  clean: z.object({
-    outliers: z.discriminatedUnion('kind', [
-      z.object({ kind: z.literal('none') }),
-      z.object({ kind: z.literal('local-sd'), windowBreaths: num, limitSd: num }),
-    ]),
-    averaging: z.discriminatedUnion('kind', [
-      z.object({ kind: z.literal('rolling-time'), windowS: num }),
-      z.object({ kind: z.literal('time-bins'), binS: num }),
-      z.object({ kind: z.literal('rolling-breaths'), breaths: num }),
-    ]),
-    phases: z.object({ incrementalStartS: nullableNum, incrementalEndS: nullableNum }),
-  }),
-  thresholds: z.object({
-    minPointsPerSegment: num,
-    disagreementPct: num,
-    bootstrap: z.object({ replicates: num, seed: num }),
-  }),
-  peaks: z.object({ windowS: num }),
-  effort: z.object({
-    rerMin: num,
-    plateauMlMin: num,
-    plateauMlKgMin: num,
-    hrMaxFormula: z.enum(['tanaka', 'fox']),
-    hrPctMin: num,
-    rpeMin: num,
-    lactateMinMmolL: num,
-  }),
-  compare: z.object({ intervalHMin: num, intervalHMax: num, workloadStepW: num, bandKind: z.enum(['typical', 'mdc95']) }),
-  report: z.object({ paper: z.enum(['a4', 'letter']) }),
-});
 
 const clinicalSchema = z.object({
   peakRpe: nullableNum,
