@@ -117,7 +117,7 @@ function thresholdResult(id: ThresholdId, e: ThresholdEstimate, series: TestAnal
   return {
     id,
     methods: e.methods,
-    at: e.consensus ? valuesAt(series, e.consensus.timeS, context) : null,
+    at: e.consensus ? valuesAt(series, e.consensus.timeS, context, e.consensus.vo2MlMin) : null,
     ci95Vo2MlMin: e.ci95Vo2MlMin,
     ci95TimeS: e.ci95TimeS,
     spreadVo2MlMin: e.spreadVo2MlMin,

@@ -4,6 +4,11 @@
  * outside the series). RER is VCO2/VO2 of the interpolated values; VO2/kg divides by body
  * mass; % of peak and % of predicted divide by the values passed in (mL/min).
  * An optional variable (HR, work) is null unless both neighbours recorded it.
+ * `thresholdVo2MlMin`, when given, is the VO2 the threshold methods found (their consensus):
+ * it then stands for VO2 and what derives from it (VO2/kg, % of peak, % of predicted), because
+ * the averaged series at that instant carries a breath-noise error of its own (a few % of VO2)
+ * that the methods' estimate, fitted over the whole window, does not; the 95 % interval is
+ * about that same estimate. RER stays the ratio of the series at the instant.
  *
  * Example: points at 100 s (VO2 1000) and 110 s (VO2 1200) → at 105 s, VO2 1100 mL/min;
  * with peak 2200 mL/min, 50% of peak.
@@ -31,7 +36,7 @@ export function valuesAtContext(peak: PeakValues, predicted: PredictedValues, we
   };
 }
 
-export function valuesAt(series: ProcessedSeries, timeS: number, context: ValuesAtContext): ValuesAt {
+export function valuesAt(series: ProcessedSeries, timeS: number, context: ValuesAtContext, thresholdVo2MlMin?: number): ValuesAt {
   const t = series.timeS;
   let i = 0;
   let f = 0;
@@ -58,7 +63,8 @@ export function valuesAt(series: ProcessedSeries, timeS: number, context: Values
     if (a === null || b === null) return f === 0 ? a : f === 1 ? b : null;
     return a + f * (b - a);
   };
-  const vo2MlMin = num(series.vo2MlMin);
+  const seriesVo2MlMin = num(series.vo2MlMin);
+  const vo2MlMin = thresholdVo2MlMin !== undefined && Number.isFinite(thresholdVo2MlMin) ? thresholdVo2MlMin : seriesVo2MlMin;
   const vco2MlMin = num(series.vco2MlMin);
   const w = context.weightKg;
   return {
@@ -69,7 +75,7 @@ export function valuesAt(series: ProcessedSeries, timeS: number, context: Values
     workW: opt(series.workW),
     hrBpm: opt(series.hrBpm),
     veLMin: num(series.veLMin),
-    rer: vco2MlMin / vo2MlMin,
+    rer: vco2MlMin / seriesVo2MlMin,
     pctPeakVo2: percentOf(vo2MlMin, context.peakVo2MlMin),
     pctPredictedPeakVo2: percentOf(vo2MlMin, context.predictedPeakVo2MlMin),
   };

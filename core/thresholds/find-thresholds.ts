@@ -4,10 +4,15 @@
  * Order of search (each later window depends on an earlier answer):
  *  1. a preliminary VT2 by the VT2 methods over the whole incremental phase, so that VT1 is
  *     searched below it, as the V-slope method requires (Beaver, Wasserman & Whipp, J Appl
- *     Physiol 1986;60:2020–7: the VCO2–VO2 fit runs up to the respiratory compensation point);
- *  2. VT1 by the VT1 methods from one minute into the incremental phase to the preliminary VT2
- *     (to the end of the phase when there is none, or when no method finds VT1 below it: a
- *     preliminary VT2 that came too early must not hide VT1);
+ *     Physiol 1986;60:2020–7: the VCO2–VO2 fit runs up to the respiratory compensation point).
+ *     Over the whole phase the VE/VCO2 and PetCO2 methods answer early (below VT1 both still
+ *     drift, which bends their two-line fits), while VE against VCO2 stays straight up to VT2;
+ *     so the bound is the latest of the methods' answers, plus 30 s (`VT2_BOUND_MARGIN_S`) so
+ *     that a bound a little early does not cut VT1 off;
+ *  2. VT1 by the VT1 methods over the VT1 window (`vt1Window`): the last minute of the warm-up
+ *     (steady state, it anchors the line below VT1 when VT1 comes early in a short ramp), then
+ *     the incremental phase from one minute in (the on-transient left out) up to that bound; to
+ *     the end of the phase when there is no bound, or when no method finds VT1 below it;
  *  3. VT2 by the VT2 methods from VT1 to the end of the incremental phase (from its start
  *     when VT1 was not found).
  * Each threshold is the consensus of its methods (consensus.ts) with a 95 % interval that joins
@@ -32,6 +37,46 @@ const NAMES: Record<ThresholdId, string> = { vt1: 'VT1', vt2: 'VT2' };
  * out of ΔVO2/ΔWR in core/analyze).
  */
 export const KINETIC_LAG_S = 60;
+/** The steady end of the warm-up joins the VT1 search, s (our choice). */
+export const WARMUP_ANCHOR_S = 60;
+/** The VT1 window ends this long after the latest preliminary VT2, s (our choice, development seeds). */
+export const VT2_BOUND_MARGIN_S = 30;
+
+/**
+ * The VT1 search window: from the last `WARMUP_ANCHOR_S` of a warm-up phase (when the test has
+ * one right before the incremental phase) to `toS`, with the first `KINETIC_LAG_S` of the
+ * incremental phase left out. Returned as the window and the series with the left-out span's
+ * gas-exchange values blanked (NaN, end-tidal null), so every detector and the bootstrap see
+ * the same points.
+ */
+export function vt1Window(series: ProcessedSeries, phases: Phases, toS: number): { series: ProcessedSeries; fromS: number; toS: number } {
+  const inc0 = phases.incrementalStartS;
+  const skipTo = Math.min(inc0 + KINETIC_LAG_S, phases.incrementalEndS);
+  const warmup = phases.phases.find((p) => p.name === 'warmup' && Math.abs(p.endS - inc0) < 1);
+  if (!warmup) return { series, fromS: skipTo, toS };
+  const fromS = Math.max(warmup.startS, inc0 - WARMUP_ANCHOR_S);
+  const out = (i: number) => series.timeS[i] > inc0 && series.timeS[i] < skipTo;
+  const blank = (a: readonly number[]) => a.map((v, i) => (out(i) ? Number.NaN : v));
+  const blankNull = (a: readonly (number | null)[]) => a.map((v, i) => (out(i) ? null : v));
+  return {
+    series: {
+      ...series,
+      vo2MlMin: blank(series.vo2MlMin),
+      vco2MlMin: blank(series.vco2MlMin),
+      veLMin: blank(series.veLMin),
+      peto2Mmhg: blankNull(series.peto2Mmhg),
+      petco2Mmhg: blankNull(series.petco2Mmhg),
+    },
+    fromS,
+    toS,
+  };
+}
+
+/** The bound of the VT1 search from the preliminary VT2: its latest method, plus the margin. */
+export function vt2Bound(preliminary: ThresholdEstimate, incrementalEndS: number): number | null {
+  const times = preliminary.methods.flatMap((o) => (o.found ? [o.timeS] : []));
+  return times.length ? Math.min(incrementalEndS, Math.max(...times) + VT2_BOUND_MARGIN_S) : null;
+}
 
 export function estimateThreshold(
   id: ThresholdId,
@@ -66,9 +111,10 @@ export function findThresholds(
   const inc: [number, number] = [phases.incrementalStartS, phases.incrementalEndS];
   const input = (fromS: number, toS: number): DetectorInput => ({ series, fromS, toS, settings });
   const preliminary = estimateThreshold('vt2', VT2_METHODS, input(inc[0], inc[1]), inc, false);
-  const vt1From = Math.min(inc[0] + KINETIC_LAG_S, inc[1]);
-  const below = estimateThreshold('vt1', VT1_METHODS, input(vt1From, preliminary.consensus?.timeS ?? inc[1]), inc, true);
-  const vt1 = below.consensus || !preliminary.consensus ? below : estimateThreshold('vt1', VT1_METHODS, input(vt1From, inc[1]), inc, true);
+  const bound = vt2Bound(preliminary, inc[1]);
+  const vt1Input = (toS: number): DetectorInput => ({ ...vt1Window(series, phases, toS), settings });
+  const below = estimateThreshold('vt1', VT1_METHODS, vt1Input(bound ?? inc[1]), inc, true);
+  const vt1 = below.consensus || bound === null ? below : estimateThreshold('vt1', VT1_METHODS, vt1Input(inc[1]), inc, true);
   const vt2 = estimateThreshold('vt2', VT2_METHODS, input(vt1.consensus?.timeS ?? inc[0], inc[1]), inc, true);
   return { vt1, vt2 };
 }

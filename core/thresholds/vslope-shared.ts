@@ -11,8 +11,8 @@
  * (combining methods improves reliability: Gaskill et al., Med Sci Sports Exerc
  * 2001;33:1841–8). The x-axis is VO2 smoothed over ±60 s by a local straight line
  * (core/thresholds/smooth-vo2.ts, regression calibration for noise in x); VCO2 and VE are the
- * processed (averaged) values. Window: as the other VT1 methods (ramp + 1 min to the
- * preliminary VT2). The ±60 s width was chosen on development seeds only (docs/validation.md).
+ * processed (averaged) values. Window: as the other VT1 methods (find-thresholds.ts
+ * `vt1Window`). The ±60 s width was chosen on development seeds only (docs/validation.md).
  * Units: VO2, VCO2 mL/min, VE L/min; time read off the monotone VO2 curve. Acceptance: the
  * V-slope expectation on the VCO2 line (vslope-hinge.ts) and a steeper VE line after the knot.
  */

@@ -8,7 +8,10 @@
 //
 // Requirements not yet met are written as `it.fails`: they pass while the detectors fall short
 // and fail as soon as they meet the requirement, to be turned into plain tests then. The
-// regression guards hold the figures measured on 2026-12-01 (docs/validation.md) with a small margin.
+// regression guards hold the figures measured on 2026-12-01 (docs/validation.md, "VT1 window
+// and reported VO2") with a small margin. tests/validation/information-limit.test.ts shows why
+// the VT1 p95 cannot reach 8 % on this grid: an oracle told the noise-free VO2 and the true
+// window reaches only p95 21 %.
 import { describe, expect, it } from 'vitest';
 import { runCases, summarise } from './measure';
 
@@ -25,29 +28,28 @@ describe('threshold accuracy on 72 generated tests (full pipeline, default setti
     expect(s.vt2Median).toBeLessThanOrEqual(4);
   });
 
-  it.fails('VT1 median ≤ 3 % (requirement; not met: measured 4.8 %)', () => {
+  it.fails('VT1 median ≤ 3 % (requirement; not met: measured 4.9 %)', () => {
     expect(s.vt1Median).toBeLessThanOrEqual(3);
   });
 
-  it.fails('VT1 95th percentile ≤ 8 % (requirement; not met: measured 25.0 %)', () => {
+  it.fails('VT1 95th percentile ≤ 8 % (requirement; not met: measured 16.5 %, the oracle 21.0 %)', () => {
     expect(s.vt1P95).toBeLessThanOrEqual(8);
   });
 
-  it.fails('VT2 95th percentile ≤ 10 % (requirement; not met: measured 10.3 %)', () => {
+  it('meets the VT2 95th percentile requirement: ≤ 10 % (measured 9.5 %)', () => {
     expect(s.vt2P95).toBeLessThanOrEqual(10);
   });
 
-  it('regression guard: no worse than measured (VT1 4.8 / 25.0 %, VT2 3.0 / 10.3 %, no misses)', () => {
-    expect(s.vt1Median).toBeLessThanOrEqual(5.1);
-    expect(s.vt1P95).toBeLessThanOrEqual(26);
-    expect(s.vt2Median).toBeLessThanOrEqual(3.3);
-    expect(s.vt2P95).toBeLessThanOrEqual(11);
+  it('regression guard: no worse than measured (VT1 4.9 / 16.5 %, VT2 2.4 / 9.5 %, no misses)', () => {
+    expect(s.vt1Median).toBeLessThanOrEqual(5.2);
+    expect(s.vt1P95).toBeLessThanOrEqual(17.5);
+    expect(s.vt2Median).toBeLessThanOrEqual(2.7);
     expect(s.vt1Misses + s.vt2Misses).toBe(0);
   });
 
-  it('95 % interval coverage of the true VO2 (measured VT1 95.8 %, VT2 77.8 %; common practice: near 95 %)', () => {
+  it('95 % interval coverage of the true VO2 (measured VT1 95.8 %, VT2 81.9 %; common practice: near 95 %)', () => {
     expect(s.vt1CoveragePct).toBeGreaterThanOrEqual(90);
-    expect(s.vt2CoveragePct).toBeGreaterThanOrEqual(75);
+    expect(s.vt2CoveragePct).toBeGreaterThanOrEqual(78);
   });
 
   it('is near-exact at the lowest noise for VT2 (noise ×0.5: median ≤ 2 %)', () => {

@@ -46,4 +46,12 @@ describe('valuesAtContext', () => {
     expect(valuesAtContext(peak, both, 70)).toEqual({ peakVo2MlMin: 2000, predictedPeakVo2MlMin: 2100, weightKg: 70 });
     expect(valuesAtContext(peak, { ...both, friendVo2MlKgMin: null }, 70).predictedPeakVo2MlMin).toBe(1800);
   });
+
+  it('takes the threshold VO2 the methods found, when given, for VO2 and what derives from it', () => {
+    // At 105 s with the methods' VO2 1,150: VO2/kg 1150/50 = 23; % of peak 1150/2300 = 50 %;
+    // RER stays the series ratio 1020/1100; VCO2, VE, HR and work are read at 105 s as before.
+    const v = valuesAt(series, 105, { peakVo2MlMin: 2300, predictedPeakVo2MlMin: null, weightKg: 50 }, 1150);
+    expect(v).toMatchObject({ vo2MlMin: 1150, vo2MlKgMin: 23, pctPeakVo2: 50, vco2MlMin: 1020, veLMin: 33, hrBpm: 125, workW: 85 });
+    expect(v.rer).toBeCloseTo(1020 / 1100, 12);
+  });
 });

@@ -2,7 +2,8 @@
 import { describe, expect, it } from 'vitest';
 import type { Phases } from '../../../core/model/analysis';
 import { DEFAULT_SETTINGS } from '../../../core/model/settings';
-import { findThresholds } from '../../../core/thresholds/find-thresholds';
+import { findThresholds, vt1Window, vt2Bound, KINETIC_LAG_S, VT2_BOUND_MARGIN_S, WARMUP_ANCHOR_S } from '../../../core/thresholds/find-thresholds';
+import type { ThresholdEstimate } from '../../../core/thresholds/detector';
 import { INC_END_S, INC_START_S, TRUE_VT1_VO2, TRUE_VT2_VO2, syntheticSeries } from './synthetic-series';
 
 const phases: Phases = { phases: [], incrementalStartS: INC_START_S, incrementalEndS: INC_END_S, rampWPerMin: 20, source: 'detected' };
@@ -40,5 +41,31 @@ describe('findThresholds', () => {
     expect(vt2.consensus).toBeNull();
     expect(vt1.reason).toMatch(/^No method found VT1\./);
     expect(vt1.ci95Vo2MlMin).toBeNull();
+  });
+
+  it('VT1 window: the last minute of a warm-up joins, the first minute of the ramp is blanked', () => {
+    const s = syntheticSeries();
+    const withWarmup: Phases = { ...phases, phases: [{ name: 'warmup', startS: INC_START_S - 180, endS: INC_START_S }] };
+    const w = vt1Window(s, withWarmup, INC_END_S);
+    expect(w.fromS).toBe(INC_START_S - WARMUP_ANCHOR_S);
+    expect(w.toS).toBe(INC_END_S);
+    s.timeS.forEach((t, i) => {
+      const blanked = t > INC_START_S && t < INC_START_S + KINETIC_LAG_S;
+      expect(Number.isNaN(w.series.vo2MlMin[i])).toBe(blanked);
+      expect(Number.isNaN(w.series.vco2MlMin[i])).toBe(blanked);
+      if (blanked) expect(w.series.petco2Mmhg[i]).toBeNull();
+    });
+    // Without a warm-up phase right before the ramp, the search starts one minute in, unmasked.
+    const plain = vt1Window(s, phases, INC_END_S);
+    expect(plain.fromS).toBe(INC_START_S + KINETIC_LAG_S);
+    expect(plain.series).toBe(s);
+  });
+
+  it('VT1 bound: the latest preliminary VT2 method plus the margin, within the phase', () => {
+    const outcome = (timeS: number) => ({ method: 'm', label: 'm', source: 's', found: true as const, timeS, vo2MlMin: 2000, evidence: { xName: 't', yName: 'y', window: [0, 1] as [number, number], segments: [], residualSumSquares: 0, points: 10 } });
+    const estimate = (times: number[]): ThresholdEstimate => ({ methods: times.map(outcome), consensus: null, ci95Vo2MlMin: null, ci95TimeS: null, spreadVo2MlMin: null, methodsDisagree: false, reason: null });
+    expect(vt2Bound(estimate([500, 560, 530]), 900)).toBe(560 + VT2_BOUND_MARGIN_S);
+    expect(vt2Bound(estimate([890]), 900)).toBe(900);
+    expect(vt2Bound(estimate([]), 900)).toBeNull();
   });
 });
