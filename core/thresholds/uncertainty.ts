@@ -22,7 +22,7 @@
  */
 import type { MethodOutcome } from '../model/analysis';
 import { seededRandom, type Random } from '../math/random';
-import { quantile, sampleSd } from '../math/stats';
+import { median, quantile, sampleSd } from '../math/stats';
 import type { DetectorInput } from './detector';
 import { minPerSide } from './edge-floor';
 import { fitSample, type MethodSample } from './hinge-method';
@@ -165,16 +165,37 @@ export function combinationInterval(
   return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates.length };
 }
 
+/** Fewest found methods for which the between-method spread is taken robustly (scaled MAD). */
+export const ROBUST_SPREAD_MIN_METHODS = 5;
+
+/**
+ * The between-method spread, mL/min: with at least `ROBUST_SPREAD_MIN_METHODS` estimates the
+ * scaled median absolute deviation, 1.4826 · median |x − median x| (consistent for the SD of
+ * a normal sample; Rousseeuw & Croux, J Am Stat Assoc 1993;88:1273–83), so that one method
+ * biased far from the rest does not widen the interval on its own; with fewer, the sample SD
+ * (with three estimates one deviation from the median is zero by construction and the MAD is
+ * not a usable scale). 0 with one estimate.
+ * Example: 1,000, 1,020, 1,040, 1,060 and 1,400 → median 1,040, deviations 40, 20, 0, 20, 360,
+ * MAD 20, spread 29.65 (the sample SD would be 167).
+ */
+export function methodSpread(estimatesVo2MlMin: readonly number[]): number {
+  const n = estimatesVo2MlMin.length;
+  if (n < 2) return 0;
+  if (n < ROBUST_SPREAD_MIN_METHODS) return sampleSd(estimatesVo2MlMin);
+  const m = median(estimatesVo2MlMin);
+  return 1.4826 * median(estimatesVo2MlMin.map((v) => Math.abs(v - m)));
+}
+
 /**
  * The reported 95 % interval: the bootstrap spread (noise) and the between-method spread (the
  * methods' own biases, which the bootstrap cannot see) added in quadrature, centred on the
  * consensus: consensus ± 1.96 · √(s_boot² + s_methods²), with s_boot = (hi − lo) / 3.92 of
- * the bootstrap percentile interval and s_methods the sample SD of the found methods' VO2
- * estimates (0 with one method). Independent error sources add in variance (common practice,
- * as in a combined standard uncertainty: JCGM 100:2008, Guide to the Expression of
- * Uncertainty in Measurement, §5.1). Checked by its coverage on development and validation
- * seeds (docs/validation.md). Example: bootstrap 1,450–1,550 (s_boot 25.5), estimates 1,400,
- * 1,500 and 1,600 (s_methods 100), consensus 1,500 → 1,500 ± 1.96 · 103.2 = 1,297.7–1,702.3.
+ * the bootstrap percentile interval and s_methods from `methodSpread`. Independent error
+ * sources add in variance (common practice, as in a combined standard uncertainty: JCGM
+ * 100:2008, Guide to the Expression of Uncertainty in Measurement, §5.1). Checked by its
+ * coverage on development and validation seeds (docs/validation.md). Example: bootstrap
+ * 1,450–1,550 (s_boot 25.5), estimates 1,400, 1,500 and 1,600 (s_methods 100, the SD of three),
+ * consensus 1,500 → 1,500 ± 1.96 · 103.2 = 1,297.7–1,702.3.
  */
 export function methodAwareInterval(
   bootstrap: ThresholdCi,
@@ -183,7 +204,7 @@ export function methodAwareInterval(
   vo2: MonotoneCurve,
 ): ThresholdCi {
   const sBoot = (bootstrap.ci95Vo2MlMin[1] - bootstrap.ci95Vo2MlMin[0]) / 3.92;
-  const sMethods = estimatesVo2MlMin.length >= 2 ? sampleSd(estimatesVo2MlMin) : 0;
+  const sMethods = methodSpread(estimatesVo2MlMin);
   const half = 1.96 * Math.sqrt(sBoot * sBoot + sMethods * sMethods);
   const lo = consensusVo2MlMin - half;
   const hi = consensusVo2MlMin + half;

@@ -159,6 +159,8 @@ describe('browser mode, demo pair', () => {
   it('after a reload, the reopened case still holds the override and its log entry', async () => {
     await page.reload();
     await page.waitForSelector('.recent li');
+    // The intake screen carries the clinical caution too, before any file is chosen.
+    expect(await page.locator('.intake [aria-label="Clinical caution"]').textContent()).toContain('does not diagnose');
     await shot('7-intake-recent');
     await page.locator('.recent button').first().click();
     await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });

@@ -47,9 +47,13 @@ describe('threshold accuracy on 72 generated tests (full pipeline, default setti
     expect(s.vt1Misses + s.vt2Misses).toBe(0);
   });
 
-  it('95 % interval coverage of the true VO2 (measured VT1 95.8 %, VT2 81.9 %; common practice: near 95 %)', () => {
-    expect(s.vt1CoveragePct).toBeGreaterThanOrEqual(90);
+  it('95 % interval coverage of the true VO2 (measured VT1 90.3 %, VT2 81.9 %; common practice: near 95 %)', () => {
+    expect(s.vt1CoveragePct).toBeGreaterThanOrEqual(88);
     expect(s.vt2CoveragePct).toBeGreaterThanOrEqual(78);
+  });
+
+  it('VT1 interval is narrower than before the robust method spread (median width 23.3 % of VO2, was 35.7 %)', () => {
+    expect(s.vt1CiWidthPct).toBeLessThanOrEqual(25);
   });
 
   it('is near-exact at the lowest noise for VT2 (noise ×0.5: median ≤ 2 %)', () => {

@@ -10,6 +10,7 @@ import type { LocatedError } from '../../../core/model/errors';
 import type { MappingQuestion } from '../engine/protocol';
 import { toBase64 } from '../ui/files';
 import { MappingStep } from './MappingStep';
+import { Caution } from '../ui/notices';
 
 interface Props {
   readonly host: HostClient;
@@ -101,6 +102,7 @@ export function Intake({ host, chooseRef, question, onStart, onOpen, onAnswerMap
 
   return (
     <div className="intake">
+      <Caution />
       <section className="panel">
         <h2>Start a case</h2>
         <label className="field">

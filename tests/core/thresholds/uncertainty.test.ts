@@ -6,7 +6,8 @@ import { median } from '../../../core/math/stats';
 import type { DetectorInput } from '../../../core/thresholds/detector';
 import { VT1_METHODS } from '../../../core/thresholds/methods';
 import { vo2Curve } from '../../../core/thresholds/read-off';
-import { blockLength, combinationInterval, methodReplicates } from '../../../core/thresholds/uncertainty';
+import { blockLength, combinationInterval, methodAwareInterval, methodReplicates, methodSpread } from '../../../core/thresholds/uncertainty';
+import { monotoneCurve } from '../../../core/thresholds/read-off';
 import { INC_START_S, TRUE_VT1_VO2, TRUE_VT2_VO2, syntheticSeries, timeAtVo2 } from './synthetic-series';
 
 function interval(noise: number, seed: number, settings: Settings = DEFAULT_SETTINGS) {
@@ -61,3 +62,26 @@ describe('bootstrap interval of VT1', () => {
     expect(Math.abs(ci.ci95TimeS[1] - timeAtVo2(ci.ci95Vo2MlMin[1]))).toBeLessThan(10);
   });
 });
+
+describe('the between-method spread and the reported interval (worked by hand)', () => {
+  it('takes the scaled MAD from five estimates, so one far method does not widen it alone', () => {
+    // 1,000, 1,020, 1,040, 1,060, 1,400: median 1,040, |deviations| 40, 20, 0, 20, 360 → MAD 20 → 1.4826 · 20 = 29.652.
+    expect(methodSpread([1000, 1020, 1040, 1060, 1400])).toBeCloseTo(29.652, 9);
+  });
+
+  it('takes the sample SD from fewer than five estimates, and 0 from one', () => {
+    expect(methodSpread([1400, 1500, 1600])).toBeCloseTo(100, 9);
+    expect(methodSpread([1500])).toBe(0);
+  });
+
+  it('adds the bootstrap and the spread in quadrature about the consensus', () => {
+    // s_boot = (1,550 − 1,450) / 3.92 = 25.510; s_methods = 100; half = 1.96 · √(25.510² + 100²) = 1.96 · 103.20 = 202.28.
+    const curve = monotoneCurve([0, 1000], [0, 3000], 0, 1000);
+    const ci = methodAwareInterval({ ci95Vo2MlMin: [1450, 1550], ci95TimeS: [0, 0], replicates: 200 }, 1500, [1400, 1500, 1600], curve);
+    const half = 1.96 * Math.sqrt((100 / 3.92) ** 2 + 100 ** 2);
+    expect(ci.ci95Vo2MlMin[0]).toBeCloseTo(1500 - half, 9);
+    expect(ci.ci95Vo2MlMin[1]).toBeCloseTo(1500 + half, 9);
+    expect(half).toBeCloseTo(202.28, 2); // → 1,297.72–1,702.28 mL/min
+  });
+});
+
