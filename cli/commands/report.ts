@@ -3,28 +3,43 @@
  *
  *   twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
  *                  [--reviewer "Name, credential"] [--paper a4|letter]
+ *                  [--dayN-rest-hr BPM --dayN-lactate MMOL --dayN-rpe N
+ *                   --dayN-fev1-l L | --dayN-mvv-l-min L_MIN] [--amend-clinical]
  *
  * The case folder (default: REPORT-case/ beside the report) holds twofold-case.json and the
  * raw copies; an existing case is reopened (its reviewer log kept) and must be of the same two
  * files. The certificate password comes from the environment variable named by --pass-env,
  * or from a prompt on an interactive terminal; never from the command line.
+ *
+ * Clinical inputs (what the lab recorded beside each breath file) go into the case's
+ * `clinical.day1` / `clinical.day2`. A reopened case keeps the inputs it recorded; a flag
+ * that repeats a recorded value is accepted. A flag that differs from a recorded value is
+ * refused with the differences listed, because a changed input changes the numbers: it is
+ * applied only with --amend-clinical, and only while the reviewer log is empty, since the
+ * log's first entry is chained to the clinical inputs (core/case/audit-log.ts) and changing
+ * them would break the chain. Every amendment is printed, value by value.
  * Exit 0 when the report was written, 2 for bad input, 1 otherwise.
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { noClinicalInputs } from '../../core/analyze/analyze-test';
+import type { CaseFile, DayNumber } from '../../core/case/case-file';
 import { newCase } from '../../core/case/new-case';
 import { sha256Hex } from '../../core/case/sha256';
+import type { ClinicalInputs } from '../../core/model/analysis';
 import { formatLocated } from '../../core/model/errors';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
 import { readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
-import { parseFlags } from '../args';
+import { numberFlag, parseFlags } from '../args';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
                       [--reviewer "Name, credential"] [--paper a4|letter]
+                      [--day1-rest-hr BPM] [--day1-lactate MMOL] [--day1-rpe N]
+                      [--day1-fev1-l L | --day1-mvv-l-min L_MIN]   (and the same for --day2-…)
+                      [--amend-clinical]
 
   --out FILE        where the PDF is written (replaced atomically)
   --case FOLDER     the case folder (or its twofold-case.json) to reopen or create
@@ -34,7 +49,95 @@ const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] 
                     (without it, Twofold asks on the terminal)
   --reviewer TEXT   "Name, credential" printed in the signature block
   --paper a4|letter page size for a new case (default a4)
+
+  What the lab recorded beside each breath file (N is 1 or 2):
+  --dayN-rest-hr BPM      resting heart rate, bpm (20–200)
+  --dayN-lactate MMOL     peak blood lactate, mmol/L (0–40)
+  --dayN-rpe N            peak Borg rating, 6–20
+  --dayN-fev1-l L         FEV1, L (0.2–9; MVV is estimated as FEV1 × 40)
+  --dayN-mvv-l-min L_MIN  measured MVV, L/min (5–400); give FEV1 or MVV, not both
+  --amend-clinical        change inputs an existing case recorded (only while its reviewer
+                          log is empty); without it a differing value is refused
 `;
+
+/** One clinical input as a flag: its case field, range and words. Ranges match the workbench's intake. */
+interface ClinicalFlag {
+  readonly key: keyof ClinicalInputs;
+  readonly flag: string;
+  readonly label: string;
+  readonly unit: string;
+  readonly min: number;
+  readonly max: number;
+}
+
+const CLINICAL_FLAGS: readonly ClinicalFlag[] = [
+  { key: 'restingHrBpm', flag: 'rest-hr', label: 'resting HR', unit: 'bpm', min: 20, max: 200 },
+  { key: 'lactateMmolL', flag: 'lactate', label: 'peak lactate', unit: 'mmol/L', min: 0, max: 40 },
+  { key: 'peakRpe', flag: 'rpe', label: 'peak Borg RPE', unit: '', min: 6, max: 20 },
+  { key: 'fev1L', flag: 'fev1-l', label: 'FEV1', unit: 'L', min: 0.2, max: 9 },
+  { key: 'mvvLMin', flag: 'mvv-l-min', label: 'measured MVV', unit: 'L/min', min: 5, max: 400 },
+];
+
+const DAYS = [1, 2] as const;
+
+function clinicalOptions() {
+  const options: Record<string, { type: 'string' }> = {};
+  for (const day of DAYS) for (const f of CLINICAL_FLAGS) options[`day${day}-${f.flag}`] = { type: 'string' };
+  return options;
+}
+
+type GivenClinical = Partial<Record<keyof ClinicalInputs, number | null>>;
+
+/**
+ * The clinical inputs given on the command line for one day. FEV1 and a measured MVV are two
+ * sources of the same quantity, so giving one also clears the other.
+ */
+function givenClinical(values: Record<string, string | boolean | undefined>, day: DayNumber): GivenClinical {
+  const given: GivenClinical = {};
+  for (const f of CLINICAL_FLAGS) {
+    const name = `day${day}-${f.flag}`;
+    const raw = values[name];
+    const value = numberFlag(name, typeof raw === 'string' ? raw : undefined);
+    if (value === undefined) continue;
+    if (value < f.min || value > f.max) throw new UsageError(`--${name} expects ${f.label} from ${f.min} to ${f.max}${f.unit ? ` ${f.unit}` : ''}, got ${value}`);
+    given[f.key] = value;
+  }
+  if (given.fev1L !== undefined && given.mvvLMin !== undefined) throw new UsageError(`give either --day${day}-fev1-l or --day${day}-mvv-l-min, not both`);
+  if (given.fev1L !== undefined) given.mvvLMin = null;
+  else if (given.mvvLMin !== undefined) given.fev1L = null;
+  return given;
+}
+
+function clinicalValue(f: ClinicalFlag, value: number | null): string {
+  return value === null ? 'not given' : `${value}${f.unit ? ` ${f.unit}` : ''}`;
+}
+
+interface ClinicalChange {
+  readonly day: DayNumber;
+  readonly field: ClinicalFlag;
+  readonly recorded: number | null;
+  readonly given: number | null;
+}
+
+function clinicalChanges(recorded: CaseFile['clinical'], given: Record<DayNumber, GivenClinical>): ClinicalChange[] {
+  const changes: ClinicalChange[] = [];
+  for (const day of DAYS) {
+    const before = day === 1 ? recorded.day1 : recorded.day2;
+    for (const field of CLINICAL_FLAGS) {
+      const value = given[day][field.key];
+      if (value !== undefined && value !== before[field.key]) changes.push({ day, field, recorded: before[field.key], given: value });
+    }
+  }
+  return changes;
+}
+
+function describeChange(c: ClinicalChange): string {
+  return `day ${c.day} ${c.field.label}: ${clinicalValue(c.field, c.recorded)} → ${clinicalValue(c.field, c.given)}`;
+}
+
+function clinicalLine(day: DayNumber, inputs: ClinicalInputs): string {
+  return `day ${day}   ${CLINICAL_FLAGS.map((f) => `${f.label} ${clinicalValue(f, inputs[f.key])}`).join(', ')}`;
+}
 
 /** --case names the folder, or the twofold-case.json inside it; by default REPORT-case/ beside the report. */
 function caseFolder(flag: string | undefined, out: string, cwd: string): string {
@@ -53,6 +156,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     'pass-env': { type: 'string' },
     reviewer: { type: 'string' },
     paper: { type: 'string' },
+    'amend-clinical': { type: 'boolean' },
+    ...clinicalOptions(),
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -62,6 +167,10 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 2 || !values.out) throw new UsageError(`expected DAY1 DAY2 and --out\n\n${USAGE}`);
   if (values.paper !== undefined && values.paper !== 'a4' && values.paper !== 'letter') throw new UsageError(`--paper expects a4 or letter, got '${values.paper}'`);
   if (values['pass-env'] && !values.sign) throw new UsageError('--pass-env needs --sign FILE.p12');
+  const given: Record<DayNumber, GivenClinical> = { 1: givenClinical(values, 1), 2: givenClinical(values, 2) };
+  if (values['amend-clinical'] && Object.keys(given[1]).length + Object.keys(given[2]).length === 0) {
+    throw new UsageError('--amend-clinical needs at least one --day1-… or --day2-… clinical input to change');
+  }
   const out = resolve(io.cwd, values.out);
   const folder = caseFolder(values.case, out, io.cwd);
   const paths = positionals.map((p) => resolve(io.cwd, p));
@@ -76,7 +185,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const paper = (values.paper as 'a4' | 'letter' | undefined) ?? 'a4';
   const now = new Date();
 
-  let caseFile;
+  let caseFile: CaseFile;
+  let amended: ClinicalChange[] = [];
   if (existsSync(caseFilePath(folder))) {
     const loaded = loadCase(folder);
     if (!loaded.ok) {
@@ -94,9 +204,26 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       io.err(`${caseFilePath(folder)}:0:0: This case is set to ${caseFile.settings.report.paper} paper; settings of a case with a reviewer log are fixed, so --paper cannot change it.\n`);
       return EXIT_BAD_INPUT;
     }
+    const changes = clinicalChanges(caseFile.clinical, given);
+    if (changes.length > 0) {
+      const listed = changes.map((c) => `  ${describeChange(c)}`).join('\n');
+      if (caseFile.log.length > 0) {
+        io.err(
+          `${caseFilePath(folder)}:0:0: These clinical inputs differ from the ones this case recorded, and its reviewer log (${caseFile.log.length} ${caseFile.log.length === 1 ? 'entry' : 'entries'}) is chained to the recorded inputs, so they cannot be changed here. ` +
+            `Nothing was written. To use the new values, start another case folder (--case NEW_FOLDER) and record the review there.\n${listed}\n`,
+        );
+        return EXIT_BAD_INPUT;
+      }
+      if (!values['amend-clinical']) {
+        io.err(`${caseFilePath(folder)}:0:0: These clinical inputs differ from the ones this case recorded; nothing was written. Add --amend-clinical to change them.\n${listed}\n`);
+        return EXIT_BAD_INPUT;
+      }
+      caseFile = { ...caseFile, clinical: { day1: { ...caseFile.clinical.day1, ...given[1] }, day2: { ...caseFile.clinical.day2, ...given[2] } } };
+      amended = changes;
+    }
   } else {
     const at = now.toISOString().replace(/\.\d{3}Z$/, 'Z');
-    caseFile = newCase(at, day1, day2, { ...DEFAULT_SETTINGS, report: { paper } }, { day1: noClinicalInputs(), day2: noClinicalInputs() });
+    caseFile = newCase(at, day1, day2, { ...DEFAULT_SETTINGS, report: { paper } }, { day1: { ...noClinicalInputs(), ...given[1] }, day2: { ...noClinicalInputs(), ...given[2] } });
   }
 
   let certificate = null;
@@ -119,6 +246,17 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     io.err(`${formatLocated(result.error)}\n`);
     return EXIT_BAD_INPUT;
   }
-  io.out(`report  ${result.value.outPath} (${result.value.bytes} bytes, ${certificate ? 'signed' : 'unsigned'})\ncase    ${result.value.casePath}\n`);
+  const clinical = result.value.caseFile.clinical;
+  io.out(
+    [
+      `report  ${result.value.outPath} (${result.value.bytes} bytes, ${certificate ? 'signed' : 'unsigned'})`,
+      `case    ${result.value.casePath}`,
+      ...amended.map((c) => `amended ${describeChange(c)}`),
+      'clinical inputs used:',
+      `  ${clinicalLine(1, clinical.day1)}`,
+      `  ${clinicalLine(2, clinical.day2)}`,
+      '',
+    ].join('\n'),
+  );
   return EXIT_OK;
 }
