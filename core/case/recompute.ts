@@ -4,6 +4,12 @@
  * threshold (values read off the series at the override's time with `valuesAt`), then
  * compare the days. The same case file and raw bytes always give the same numbers, because
  * every step is a pure function and the bootstrap is seeded by the settings.
+ *
+ * Two steps, so an interactive shell can show the values before it records them:
+ * `recomputeValues` gives what the screen shows; `recordResults` adds the headline numbers
+ * and the SHA-256 digest of the canonical JSON of the whole result (about 400 kB for two
+ * 1,600-breath tests, most of the recompute's time). `recomputeCase` does both, and is what
+ * saving, reports and verification use.
  */
 import type { TestAnalysis, ThresholdId, ThresholdResult } from '../model/analysis';
 import { fail, locatedError, ok, type Result } from '../model/errors';
@@ -32,10 +38,14 @@ export interface DayOutcome {
   readonly vt2: ThresholdState;
 }
 
-export interface CaseOutcome<C> {
+/** The recomputed case before its results are recorded. */
+export interface CaseValues<C> {
   readonly day1: DayOutcome;
   readonly day2: DayOutcome;
   readonly comparison: C;
+}
+
+export interface CaseOutcome<C> extends CaseValues<C> {
   readonly recorded: RecordedResults;
 }
 
@@ -44,7 +54,17 @@ export interface RawBytes {
   readonly day2: Uint8Array;
 }
 
+/** Values and recorded results in one step (`recomputeValues`, then `recordResults`). */
 export function recomputeCase<C>(caseFile: CaseFile, raw: RawBytes, engine: Engine<C>): Result<CaseOutcome<C>> {
+  const values = recomputeValues(caseFile, raw, engine);
+  if (!values.ok) return values;
+  const recorded = recordResults(values.value);
+  if (!recorded.ok) return recorded;
+  return ok({ ...values.value, recorded: recorded.value });
+}
+
+/** Both days analysed with the overrides in place, and compared; nothing recorded yet. */
+export function recomputeValues<C>(caseFile: CaseFile, raw: RawBytes, engine: Engine<C>): Result<CaseValues<C>> {
   const overrides = activeOverrides(caseFile.log);
   const days: DayOutcome[] = [];
   for (const day of [1, 2] as const) {
@@ -59,10 +79,7 @@ export function recomputeCase<C>(caseFile: CaseFile, raw: RawBytes, engine: Engi
     days.push(applyOverrides(day, analysed.value, overrides.get(overrideKey(day, 'vt1')) ?? null, overrides.get(overrideKey(day, 'vt2')) ?? null, engine));
   }
   const [day1, day2] = days;
-  const comparison = engine.compareTests(day1.analysis, day2.analysis, caseFile.settings);
-  const recorded = recordResults(day1, day2, comparison);
-  if (!recorded.ok) return recorded;
-  return ok({ day1, day2, comparison, recorded: recorded.value });
+  return ok({ day1, day2, comparison: engine.compareTests(day1.analysis, day2.analysis, caseFile.settings) });
 }
 
 function checkRaw(input: RawInput, bytes: Uint8Array): Result<true> {
@@ -92,8 +109,12 @@ function applyOverrides<C>(day: DayNumber, automatic: TestAnalysis, vt1: ActiveO
   };
 }
 
-/** The headline numbers (thresholds as used, peaks, effort, the whole comparison) and a digest of everything. */
-function recordResults<C>(day1: DayOutcome, day2: DayOutcome, comparison: C): Result<RecordedResults> {
+/**
+ * The headline numbers (thresholds as used, peaks, effort, the whole comparison) and a digest
+ * of everything: SHA-256 (FIPS 180-4) of the canonical JSON of both analyses and the
+ * comparison, non-finite numbers written as strings.
+ */
+export function recordResults<C>({ day1, day2, comparison }: CaseValues<C>): Result<RecordedResults> {
   const headline = (d: DayOutcome) => ({
     vt1: d.analysis.vt1.at,
     vt2: d.analysis.vt2.at,

@@ -1,8 +1,9 @@
 /**
  * The workbench shell: one case at a time, four screens (Intake, Breakpoints, Day 2 vs Day 1,
  * Sign-off), a toolbar and keyboard shortcuts that both go through the command registry.
- * The analysis runs in the worker; the host keeps the files. Every change is saved
- * atomically through the host the moment the worker returns it.
+ * The analysis runs in the worker; the host keeps the files. A change's values are drawn the
+ * moment the worker sends them; its record (digest and case text) follows, and is saved
+ * atomically through the host, in revision order (engine/autosave.ts).
  */
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import type { CaseSummary, FilePayload, HostClient } from '../../host/workbench/api';
@@ -14,7 +15,8 @@ import { activeOverrides } from '../../core/case/overrides';
 import { commandForKeys, COMMAND_CATALOG, keysOf, type CommandId } from './command-catalog';
 import { COMMANDS, keysLabel, runCommand, type CommandContext, type Screen } from './commands';
 import { startEngine, type EngineClient, type Settled } from './engine/client';
-import type { EngineRequest, EngineView, MappingQuestion, Reviewer } from './engine/protocol';
+import { createAutosave, type Autosave } from './engine/autosave';
+import type { CaseRecord, EngineRequest, EngineView, MappingQuestion, Reviewer } from './engine/protocol';
 import { ErrorNotice, ProgressStrip } from './ui/notices';
 import { toBase64 } from './ui/files';
 import { Intake } from './screens/Intake';
@@ -50,6 +52,7 @@ export function App({ host }: { host: HostClient }) {
   const [summary, setSummary] = useState<CaseSummary | null>(null);
   const [files, setFiles] = useState<{ day1: FilePayload; day2: FilePayload; caseJson: string } | null>(null);
   const [view, setView] = useState<View | null>(null);
+  const [record, setRecord] = useState<CaseRecord | null>(null);
   const [question, setQuestion] = useState<MappingQuestion | null>(null);
   const [busy, setBusy] = useState<{ stage: string; fraction: number } | null>(null);
   const [error, setError] = useState<LocatedError | null>(null);
@@ -60,11 +63,53 @@ export function App({ host }: { host: HostClient }) {
   const replyAt = useRef<number | null>(null);
   const [previewUrl, setPreviewUrl] = useState<string | null>(null);
   const engineRef = useRef<EngineClient<Comparison> | null>(null);
+  const autosaveRef = useRef<Autosave | null>(null);
+  /** The revision on screen, the newest record received, and who waits for the one to catch up with the other. */
+  const shownRevision = useRef(0);
+  const latestRecord = useRef<CaseRecord | null>(null);
+  const recordWaiters = useRef<{ revision: number; resolve: () => void }[]>([]);
   const verifyInput = useRef<HTMLInputElement>(null);
   const chooseInput = useRef<HTMLInputElement>(null);
   const changeStarted = useRef<number | null>(null);
 
-  if (!engineRef.current) engineRef.current = startEngine<Comparison>((stage, fraction) => setBusy({ stage, fraction }));
+  if (!autosaveRef.current) {
+    autosaveRef.current = createAutosave(async (r) => {
+      setSaveNote('Saving…');
+      const reply = await host.call('saveCase', { caseId: r.caseId, caseJson: r.caseJson });
+      if (reply.ok) setSaveNote(`Saved ${new Date(reply.value.savedAt).toLocaleTimeString('en-GB')}`);
+      else {
+        setSaveNote('Not saved');
+        setError(reply.error);
+      }
+      return reply.ok;
+    });
+  }
+  const autosave = autosaveRef.current;
+  /** Lets go of those waiting for a record up to `revision` (all: no record for them will come). */
+  const releaseWaiters = (revision = Infinity) => {
+    const ready = recordWaiters.current.filter((w) => w.revision <= revision);
+    recordWaiters.current = recordWaiters.current.filter((w) => w.revision > revision);
+    for (const w of ready) w.resolve();
+  };
+  if (!engineRef.current) {
+    engineRef.current = startEngine<Comparison>({
+      onProgress: (stage, fraction) => setBusy({ stage, fraction }),
+      onRecord: (r) => {
+        latestRecord.current = r;
+        setRecord(r);
+        autosave.offer(r);
+        releaseWaiters(r.revision);
+      },
+      onRecordFailed: (failure, previous) => {
+        // The dropped change will have no record; the restored view's record was received before.
+        shownRevision.current = previous.revision;
+        releaseWaiters();
+        setView(previous);
+        setError({ ...failure, message: `The change was not kept, because its results could not be recorded: ${failure.message}` });
+      },
+      onStopped: () => releaseWaiters(),
+    });
+  }
   const engine = engineRef.current;
 
   const setReviewer = (next: Reviewer) => {
@@ -84,46 +129,44 @@ export function App({ host }: { host: HostClient }) {
     requestAnimationFrame(() => setTimeout(() => setRenderMs({ replyMs, valuesMs, chartsMs: performance.now() - started }), 0));
   }, [view]);
 
-  const save = useCallback(
-    async (caseId: string, caseJson: string) => {
-      setSaveNote('Saving…');
-      const reply = await host.call('saveCase', { caseId, caseJson });
-      if (reply.ok) setSaveNote(`Saved ${new Date(reply.value.savedAt).toLocaleTimeString('en-GB')}`);
-      else {
-        setSaveNote('Not saved');
-        setError(reply.error);
-      }
-    },
-    [host],
-  );
+  const settle = useCallback((reply: Settled<Comparison>) => {
+    setBusy(null);
+    if (reply.type === 'error') return setError(reply.error);
+    if (reply.type === 'needs-mapping') return setQuestion(reply.question);
+    setQuestion(null);
+    setError(null);
+    shownRevision.current = reply.view.revision;
+    setView(reply.view);
+  }, []);
 
-  const settle = useCallback(
-    async (reply: Settled<Comparison>, caseId: string | null) => {
-      setBusy(null);
-      if (reply.type === 'error') return setError(reply.error);
-      if (reply.type === 'needs-mapping') return setQuestion(reply.question);
-      setQuestion(null);
-      setError(null);
-      setView(reply.view);
-      if (caseId) await save(caseId, reply.view.caseJson);
-    },
-    [save],
-  );
+  /** Settles once the values on screen are recorded (their record follows them by tens of ms). */
+  const untilRecorded = useCallback(async () => {
+    const wanted = shownRevision.current;
+    if (wanted === 0 || (latestRecord.current?.revision ?? 0) >= wanted) return;
+    await new Promise<void>((resolve) => recordWaiters.current.push({ revision: wanted, resolve }));
+  }, []);
+
+  /** Settles once the case on screen is written: export and preview read the saved case. */
+  const untilSaved = useCallback(async () => {
+    await untilRecorded();
+    await autosave.idle();
+  }, [untilRecorded, autosave]);
 
   const openFiles = useCallback(
     async (opened: { summary: CaseSummary; day1: FilePayload; day2: FilePayload; caseJson: string }) => {
       setSummary(opened.summary);
       setFiles({ day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson });
       setView(null);
+      setRecord(null);
       setReviewDay(1);
       setRenderMs(null);
       setExportState((s) => ({ ...s, result: null, verification: null }));
       setPreviewUrl(null);
       const mappings = await host.call('listMappings', {});
-      const request: EngineRequest = { type: 'open', day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson, mappings: mappings.ok ? mappings.value.mappings : [] };
+      const request: EngineRequest = { type: 'open', caseId: opened.summary.caseId, day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson, mappings: mappings.ok ? mappings.value.mappings : [] };
       setBusy({ stage: 'Starting the analysis', fraction: 0 });
       const reply = await engine.request(request);
-      await settle(reply, opened.summary.caseId);
+      settle(reply);
       if (reply.type === 'view') setScreen('breakpoints');
     },
     [engine, host, settle],
@@ -170,7 +213,7 @@ export function App({ host }: { host: HostClient }) {
       changeStarted.current = performance.now();
       const reply = await engine.request(request);
       replyAt.current = performance.now();
-      await settle(reply, summary.caseId);
+      settle(reply);
     },
     [engine, settle, summary],
   );
@@ -200,6 +243,7 @@ export function App({ host }: { host: HostClient }) {
     const signerId = exportState.signerId;
     if (!signerId) return setError({ code: 'no-signer', file: 'certificates', line: null, column: null, message: 'Choose a certificate to sign with.' });
     setBusy({ stage: 'Building and signing the report', fraction: 0.3 });
+    await untilSaved();
     const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})` });
     setBusy(null);
     if (!reply.ok) return setError(reply.error);
@@ -209,6 +253,7 @@ export function App({ host }: { host: HostClient }) {
   const preview = async () => {
     if (!summary) return;
     setBusy({ stage: 'Building the report preview', fraction: 0.3 });
+    await untilSaved();
     const reply = await host.call('previewReport', { caseId: summary.caseId, reviewer: reviewer.who ? `${reviewer.who} (${reviewer.role})` : '' });
     setBusy(null);
     if (!reply.ok) return setError(reply.error);
@@ -236,7 +281,9 @@ export function App({ host }: { host: HostClient }) {
     reviewDay: setReviewDay,
     loadDemo,
     saveNow: async () => {
-      if (summary && view) await save(summary.caseId, view.caseJson);
+      await untilRecorded();
+      if (latestRecord.current) autosave.offer(latestRecord.current, true);
+      await autosave.idle();
     },
     undo: async () => {
       if (!needReviewer()) await act({ type: 'undo', reviewer, at: new Date().toISOString() });
@@ -309,7 +356,7 @@ export function App({ host }: { host: HostClient }) {
         <span className="case-title" data-testid="case-title">
           {summary ? summary.title : 'No case open'}
         </span>
-        <span className="save-note" data-testid="save-note">
+        <span className="save-note" data-testid="save-note" data-revision={record?.revision} title={record ? `Recorded (digest and case text) in ${record.recordMs.toFixed(1)} ms after the values` : undefined}>
           {saveNote}
         </span>
       </div>
@@ -336,6 +383,7 @@ export function App({ host }: { host: HostClient }) {
         {screen === 'signoff' && view && summary && (
           <SignOff
             view={view}
+            digest={record && record.revision === view.revision ? record.digest : null}
             state={exportState}
             reviewer={reviewer}
             onSigner={(signerId) => setExportState((s) => ({ ...s, signerId }))}

@@ -1,18 +1,23 @@
 /**
  * Reviewing a long test through the page: files chosen through the file inputs, the time
  * from an override to the updated values (target under 50 ms for a 1,500-breath test),
- * undo, redo and withdrawal, and the mapping step for an export whose units the importer
- * had to infer. References: data generated from the project's stated physiological model
- * with known thresholds (sample-tests/generator), linear interpolation worked by hand, and
- * the importer's own reading of the layout sample (core/import) for the mapping question.
+ * undo, redo and withdrawal, autosave after every change (also two changes in quick
+ * succession), and the mapping step for an export whose units the importer had to infer.
+ * References: data generated from the project's stated physiological model with known
+ * thresholds (sample-tests/generator), linear interpolation worked by hand, core's own
+ * recomputeCase on the saved case file and raw copies for the saved record, and the
+ * importer's own reading of the layout sample (core/import) for the mapping question.
  */
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { defaultCycleParams, generateTest } from '../../sample-tests/generator';
 import { writeBreathCsv } from '../../core/export/breath-csv';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
+import { loadCase, type LoadedCase } from '../../host/case-folder';
+import { defaultEngine } from '../../core/case/default-engine';
+import { recomputeCase } from '../../core/case/recompute';
 import { numberIn, ROOT, SCREENSHOTS, startWorkbench, type Workbench } from './harness';
 
 let bench: Workbench;
@@ -27,7 +32,29 @@ function longPair() {
   return { day1, day2 };
 }
 
+const pair = longPair();
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+/** The one case in the data folder as saved on disk, once its log has `entries` entries (autosave follows the values). */
+async function savedCase(entries: number): Promise<LoadedCase> {
+  const casesDir = join(bench.dataDir, 'cases');
+  let seen = -1;
+  for (const deadline = Date.now() + 15_000; Date.now() < deadline; await new Promise((resolve) => setTimeout(resolve, 50))) {
+    const [caseId] = readdirSync(casesDir);
+    const loaded = loadCase(join(casesDir, caseId));
+    if (loaded.ok) seen = loaded.value.caseFile.log.length;
+    if (loaded.ok && seen === entries) return loaded.value;
+  }
+  throw new Error(`The saved case has ${seen} log entries, expected ${entries}.`);
+}
+
+/** Core's own recompute of a saved case gives the record saved with it (what verify checks). */
+function expectRecordReproduced(saved: LoadedCase): void {
+  const recomputed = recomputeCase(saved.caseFile, saved.raw, defaultEngine);
+  expect(recomputed.ok && recomputed.value.recorded).toEqual(saved.caseFile.recorded);
+}
+
+const savedNote = () => page.waitForFunction(() => document.querySelector('[data-testid="save-note"]')?.textContent?.startsWith('Saved'));
 
 beforeAll(async () => {
   bench = await startWorkbench();
@@ -42,10 +69,10 @@ afterAll(async () => {
 });
 
 describe('a 1,500-breath pair', () => {
-  const timings: { worker: number; reply: number; values: number; charts: number }[] = [];
+  const timings: { worker: number; reply: number; values: number; charts: number; record: number }[] = [];
 
   it('opens from chosen files and updates every value quickly after each override', async () => {
-    const { day1, day2 } = longPair();
+    const { day1, day2 } = pair;
     expect(day1.table.breaths.length).toBeGreaterThanOrEqual(1500);
     await page.setInputFiles('[data-testid="day1-file"]', { name: 'long-day1.csv', mimeType: 'text/csv', buffer: Buffer.from(writeBreathCsv(day1.table)) });
     await page.setInputFiles('[data-testid="day2-file"]', { name: 'long-day2.csv', mimeType: 'text/csv', buffer: Buffer.from(writeBreathCsv(day2.table)) });
@@ -64,24 +91,44 @@ describe('a 1,500-breath pair', () => {
       await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), k + 1);
       expect(numberIn((await page.locator('[data-testid="row-vt1"] > :nth-child(3)').textContent())!.split('(')[1])).toBe(t);
       await page.waitForSelector('[data-testid="charts-ms"]');
+      // The record (digest and case text) follows the values; its time is on the save note.
+      await page.waitForFunction((seq) => document.querySelector('[data-testid="save-note"]')?.getAttribute('data-revision') === String(seq + 1), k + 1);
       timings.push({
+        record: numberIn(await page.locator('[data-testid="save-note"]').getAttribute('title')),
         worker: numberIn(await page.locator('[data-testid="worker-ms"]').textContent()),
         reply: numberIn(await page.locator('[data-testid="reply-ms"]').textContent()),
         values: numberIn(await page.locator('[data-testid="values-ms"]').textContent()),
         charts: numberIn(await page.locator('[data-testid="charts-ms"]').textContent()),
       });
     }
-    const figures = { breaths: day2.table.breaths.length, workerMs: median(timings.map((x) => x.worker)), replyMs: median(timings.map((x) => x.reply)), valuesMs: median(timings.map((x) => x.values)), chartsMs: median(timings.map((x) => x.charts)) };
+    const figures = {
+      breaths: day2.table.breaths.length,
+      workerMs: median(timings.map((x) => x.worker)),
+      replyMs: median(timings.map((x) => x.reply)),
+      valuesMs: median(timings.map((x) => x.values)),
+      chartsMs: median(timings.map((x) => x.charts)),
+      recordMs: median(timings.map((x) => x.record)),
+    };
     mkdirSync(join(ROOT, '.test-results'), { recursive: true });
     writeFileSync(join(ROOT, '.test-results', 'workbench-timing.json'), `${JSON.stringify({ figures, timings }, null, 2)}\n`);
-    console.log(`override → values on screen, ${figures.breaths} breaths (median of 5): worker ${figures.workerMs} ms, values ${figures.valuesMs} ms, charts ${figures.chartsMs} ms`);
+    console.log(`override → values on screen, ${figures.breaths} breaths (median of 5): worker ${figures.workerMs} ms, values ${figures.valuesMs} ms, charts ${figures.chartsMs} ms; record after the values ${figures.recordMs} ms`);
     // The target is 50 ms from action to values on screen (docs/workbench.md gives the measured
     // figures and where the time goes). On this shared two-core machine the figure moves with
-    // the load (in CI it runs beside the other suites on both cores: 114 ms was seen once), so
-    // the test holds only a regression bound of five times the target on the median; the
-    // target itself is measured on a quiet machine and written in docs/workbench.md.
-    expect(figures.valuesMs).toBeLessThan(250);
+    // the load (beside the other suites on both cores it has more than doubled), so the test
+    // holds a regression bound of three times the target on the median; the target itself is
+    // measured on a quiet machine and written in docs/workbench.md. The worker's share (the
+    // values, without the digest and case text) measured 4–8 ms, 30–44 ms with them: a bound
+    // of 20 ms keeps the digest (about 19 ms alone in Node, 20–30 ms here) off that path.
+    expect(figures.valuesMs).toBeLessThan(150);
+    expect(figures.workerMs).toBeLessThan(20);
     expect(figures.replyMs).toBeLessThanOrEqual(figures.valuesMs);
+
+    // Autosave followed every change: the saved case is the newest, with the fifth time.
+    await savedNote();
+    const saved = await savedCase(5);
+    const last = saved.caseFile.log[4].action;
+    expect(last.kind === 'set-threshold' && last.after.timeS).toBe(Math.round(ramp.incrementalStartS + 300 + 60 * 4));
+    expectRecordReproduced(saved);
   }, 150_000);
 
   it('undo withdraws the newest override, redo puts it back, withdraw needs a reason', async () => {
@@ -100,6 +147,44 @@ describe('a 1,500-breath pair', () => {
     await page.locator('nav.screens button', { hasText: 'Sign-off' }).click();
     // 5 overrides, the undo (6), the redo (7), the withdrawal (8): the log only grows.
     expect(await page.locator('[data-testid="review-log"] li').count()).toBe(8);
+    await savedCase(8);
+  });
+
+  it('an override and an undo in quick succession: both logged, the saved case is the newer', async () => {
+    await page.locator('nav.screens button', { hasText: 'Breakpoints' }).click();
+    await page.waitForSelector('[data-testid="override-apply"]');
+    expect(await page.locator('button[data-command="review.redo"]').isDisabled()).toBe(true);
+    const t = Math.round(pair.day2.truth.phases.incrementalStartS + 330);
+    // The undo is sent in the same task as the override, long before the override's values,
+    // record and save come back (tens of ms), so the two saves can race.
+    await page.evaluate(async (timeS) => {
+      const type = (selector: string, text: string) => {
+        const field = document.querySelector(selector) as HTMLInputElement | HTMLTextAreaElement;
+        Object.getOwnPropertyDescriptor(Object.getPrototypeOf(field), 'value')!.set!.call(field, text);
+        field.dispatchEvent(new Event('input', { bubbles: true }));
+      };
+      type('[data-testid="override-value"]', String(timeS));
+      type('[data-testid="override-reason"]', 'quick change, undone at once');
+      // Lets React take the typed text before the click reads it.
+      await new Promise((resolve) => setTimeout(resolve, 0));
+      (document.querySelector('[data-testid="override-apply"]') as HTMLButtonElement).click();
+      (document.querySelector('button[data-command="review.undo"]') as HTMLButtonElement).click();
+    }, t);
+    const saved = await savedCase(10);
+    const [set, undo] = saved.caseFile.log.slice(8).map((e) => e.action);
+    expect(set.kind === 'set-threshold' && set.after.timeS).toBe(t);
+    expect(undo.kind === 'withdraw' && undo.withdraws).toBe(9);
+    expect(saved.caseFile.log[9].reason).toBe('undo');
+    // The screen shows the undo's view: entry 4 in force again, the undone override redoable.
+    await page.waitForFunction(() => !(document.querySelector('button[data-command="review.redo"]') as HTMLButtonElement | null)?.disabled);
+    expect(await page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent()).toContain('reviewer (entry 4)');
+    await savedNote();
+    // Nothing older lands afterwards.
+    await new Promise((resolve) => setTimeout(resolve, 500));
+    const after = loadCase(saved.path);
+    expect(after.ok && after.value.caseFile.log.length).toBe(10);
+    expectRecordReproduced(saved);
+    await page.screenshot({ path: join(SCREENSHOTS, '9-quick-change-saved.png'), fullPage: true });
   });
 });
 

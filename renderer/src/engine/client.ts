@@ -1,21 +1,39 @@
-/** The page's side of the analysis worker: one promise per request, progress on the side. */
-import type { EngineReply, EngineRequest } from './protocol';
+/**
+ * The page's side of the analysis worker: one promise per request, settled by its view (or
+ * error, or mapping question); progress, and the record that follows a view, on the side.
+ */
+import type { CaseRecord, EngineReply, EngineRequest, EngineView } from './protocol';
+import type { LocatedError } from '../../../core/model/errors';
 
-export type Settled<C> = Exclude<EngineReply<C>, { type: 'progress' }>;
+type Aside = 'progress' | 'record' | 'record-failed';
+export type Settled<C> = Exclude<EngineReply<C>, { type: Aside }>;
 
-export function startEngine<C>(onProgress: (stage: string, fraction: number) => void) {
+export interface EngineListeners<C> {
+  readonly onProgress: (stage: string, fraction: number) => void;
+  /** A view's record (digest and case text to autosave), after that view's request settled. */
+  readonly onRecord: (record: CaseRecord) => void;
+  /** A change whose results could not be recorded was dropped; the case is back at `view`. */
+  readonly onRecordFailed: (error: LocatedError, view: EngineView<C>) => void;
+  /** The worker stopped: no record will follow. */
+  readonly onStopped: () => void;
+}
+
+export function startEngine<C>(listeners: EngineListeners<C>) {
   const worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'twofold-engine' });
   let next = 1;
   const pending = new Map<number, (reply: Settled<C>) => void>();
   worker.addEventListener('message', (event: MessageEvent<EngineReply<C>>) => {
     const reply = event.data;
-    if (reply.type === 'progress') return onProgress(reply.stage, reply.fraction);
+    if (reply.type === 'progress') return listeners.onProgress(reply.stage, reply.fraction);
+    if (reply.type === 'record') return listeners.onRecord(reply.record);
+    if (reply.type === 'record-failed') return listeners.onRecordFailed(reply.error, reply.view);
     pending.get(reply.id)?.(reply);
     pending.delete(reply.id);
   });
   worker.addEventListener('error', (event) => {
     for (const [id, settle] of pending) settle({ id, type: 'error', error: { code: 'worker-failed', file: 'analysis worker', line: event.lineno || null, column: event.colno || null, message: `The analysis stopped unexpectedly: ${event.message}` } });
     pending.clear();
+    listeners.onStopped();
   });
   return {
     request(message: EngineRequest): Promise<Settled<C>> {

@@ -5,11 +5,16 @@
  *
  * Undo withdraws the newest override still in force (a logged withdrawal, reason "undo");
  * redo records that override again with its first reason. The log only ever grows.
+ *
+ * A change is answered with its view as soon as the values are computed, and then, in the
+ * same task (so no later request can come between), with its record: the digest of the
+ * whole result and the case text to autosave. Those two take most of the recompute's time
+ * and the screen does not need them. A change becomes the open case only once recorded.
  */
 /// <reference lib="webworker" />
 import type { CaseFile, DayNumber } from '../../../core/case/case-file';
 import { caseFromText, caseToText } from '../../../core/case/case-text';
-import { recomputeCase, type CaseOutcome, type RawBytes } from '../../../core/case/recompute';
+import { recomputeCase, recomputeValues, recordResults, type CaseOutcome, type CaseValues, type RawBytes } from '../../../core/case/recompute';
 import { recordOverride, recordWithdrawal } from '../../../core/case/review';
 import { activeOverrides } from '../../../core/case/overrides';
 import type { LocatedError } from '../../../core/model/errors';
@@ -17,11 +22,20 @@ import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
 import type { ImportResult } from '../../../core/import/types';
 import { workbenchEngine, layoutKeyOf, mappingQuestion, needsMapping, type WorkbenchEngine } from './core-engine';
-import type { DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer } from './protocol';
+import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer } from './protocol';
 
 declare const self: DedicatedWorkerGlobalScope;
 
+interface RedoItem {
+  readonly day: DayNumber;
+  readonly threshold: 'vt1' | 'vt2';
+  readonly timeS: number;
+  readonly reason: string;
+}
+
 interface OpenCase {
+  readonly caseId: string;
+  readonly revision: number;
   caseFile: CaseFile;
   raw: RawBytes;
   mappings: ReadonlyMap<string, ColumnMapping>;
@@ -29,10 +43,12 @@ interface OpenCase {
   outcome: CaseOutcome<Comparison>;
   imports: { day1: ImportResult; day2: ImportResult };
   /** Overrides undone, newest last: what redo puts back. */
-  redo: { day: DayNumber; threshold: 'vt1' | 'vt2'; timeS: number; reason: string }[];
+  redo: readonly RedoItem[];
 }
 
 let open: OpenCase | null = null;
+/** The newest revision given out; never reused, so a record names one state of one case. */
+let revisions = 0;
 
 function bytesOf(base64: string): Uint8Array {
   const text = atob(base64);
@@ -49,24 +65,25 @@ function notesOf(result: ImportResult): DayImportNotes {
   return { warnings: result.warnings, rejected: result.rejected, flagged: result.flags.length };
 }
 
-function viewOf(state: OpenCase, updateMs: number): EngineView<Comparison> {
-  const saved: CaseFile = { ...state.caseFile, recorded: state.outcome.recorded };
+type ViewState = Pick<OpenCase, 'revision' | 'caseFile' | 'imports' | 'redo'> & { values: CaseValues<Comparison> };
+
+function viewOf(state: ViewState, updateMs: number): EngineView<Comparison> {
   return {
-    day1: state.outcome.day1,
-    day2: state.outcome.day2,
-    comparison: state.outcome.comparison,
+    day1: state.values.day1,
+    day2: state.values.day2,
+    comparison: state.values.comparison,
     notes: { day1: notesOf(state.imports.day1), day2: notesOf(state.imports.day2) },
     log: state.caseFile.log,
-    digest: state.outcome.recorded.digest,
-    caseJson: caseToText(saved),
+    revision: state.revision,
     redoable: state.redo.length,
     updateMs,
   };
 }
 
-function recompute(state: Pick<OpenCase, 'raw' | 'engine'>, caseFile: CaseFile): { ok: true; outcome: CaseOutcome<Comparison> } | { ok: false; error: LocatedError } {
-  const result = recomputeCase(caseFile, state.raw, state.engine);
-  return result.ok ? { ok: true, outcome: result.value } : { ok: false, error: result.error };
+/** The state's record; `recordMs` runs from `startedMs` to the case text written. */
+function recordOf(state: OpenCase, startedMs: number): CaseRecord {
+  const caseJson = caseToText({ ...state.caseFile, recorded: state.outcome.recorded });
+  return { caseId: state.caseId, revision: state.revision, digest: state.outcome.recorded.digest, caseJson, recordMs: performance.now() - startedMs };
 }
 
 async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'open' }>): Promise<void> {
@@ -95,25 +112,38 @@ async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'o
   }
   post({ id, type: 'progress', stage: 'Analysing both days (thresholds, bootstrap, comparison)', fraction: 0.5 });
   const started = performance.now();
-  const base = { caseFile: parsed.value, raw, mappings, engine, imports: { day1: imports.day1!, day2: imports.day2! }, redo: [] };
-  const done = recompute(base, parsed.value);
+  // Opening is not on the path from a change to the screen: recorded before it is shown.
+  const done = recomputeCase(parsed.value, raw, engine);
   if (!done.ok) return post({ id, type: 'error', error: done.error });
-  open = { ...base, outcome: done.outcome };
-  post({ id, type: 'view', view: viewOf(open, performance.now() - started) });
+  const state: OpenCase = { caseId: message.caseId, revision: ++revisions, caseFile: parsed.value, raw, mappings, engine, outcome: done.value, imports: { day1: imports.day1!, day2: imports.day2! }, redo: [] };
+  open = state;
+  const updateMs = performance.now() - started;
+  post({ id, type: 'view', view: viewOf({ ...state, values: state.outcome }, updateMs) });
+  post({ id, type: 'record', record: recordOf(state, performance.now()) });
 }
 
-/** Appends one reviewed action (built by `change`) and recomputes; the timing covers both. */
-function applyChange(id: number, change: (state: OpenCase) => { ok: true; value: CaseFile } | { ok: false; error: LocatedError }, after?: (state: OpenCase) => void): void {
+/**
+ * Appends one reviewed action (built by `change`), recomputes, posts the view (its timing
+ * covers the action and the values), then records the new state and posts the record. A
+ * state whose results cannot be recorded is dropped: the page gets the previous view back.
+ */
+function applyChange(id: number, change: (state: OpenCase) => { ok: true; value: CaseFile } | { ok: false; error: LocatedError }, redoAfter: (state: OpenCase) => readonly RedoItem[] = (s) => s.redo): void {
   const state = open;
   if (!state) return post({ id, type: 'error', error: { code: 'no-case', file: 'workbench', line: null, column: null, message: 'Open a case first.' } });
   const started = performance.now();
   const next = change(state);
   if (!next.ok) return post({ id, type: 'error', error: next.error });
-  const done = recompute(state, next.value);
-  if (!done.ok) return post({ id, type: 'error', error: done.error });
-  open = { ...state, caseFile: next.value, outcome: done.outcome };
-  after?.(open);
-  post({ id, type: 'view', view: viewOf(open, performance.now() - started) });
+  const values = recomputeValues(next.value, state.raw, state.engine);
+  if (!values.ok) return post({ id, type: 'error', error: values.error });
+  const changed = { revision: ++revisions, caseFile: next.value, redo: redoAfter(state) };
+  post({ id, type: 'view', view: viewOf({ ...changed, imports: state.imports, values: values.value }, performance.now() - started) });
+
+  const recordStarted = performance.now();
+  const recorded = recordResults(values.value);
+  if (!recorded.ok) return post({ id, type: 'record-failed', error: recorded.error, view: viewOf({ ...state, values: state.outcome }, performance.now() - started) });
+  const kept: OpenCase = { ...state, ...changed, outcome: { ...values.value, recorded: recorded.value } };
+  open = kept;
+  post({ id, type: 'record', record: recordOf(kept, recordStarted) });
 }
 
 const stamp = (reviewer: Reviewer, at: string) => ({ who: reviewer.who, role: reviewer.role, at });
@@ -127,9 +157,7 @@ function handle(id: number, message: EngineRequest): void {
       return applyChange(
         id,
         (s) => recordOverride(s.caseFile, s.outcome, stamp(message.reviewer, message.at), message.day, message.threshold, message.givenAs === 'time' ? { timeS: message.value } : { vo2MlMin: message.value }, message.reason),
-        (s) => {
-          s.redo = [];
-        },
+        () => [],
       );
     case 'withdraw':
       return applyChange(id, (s) => recordWithdrawal(s.caseFile, s.outcome, stamp(message.reviewer, message.at), message.seq, message.reason));
@@ -139,9 +167,7 @@ function handle(id: number, message: EngineRequest): void {
       return applyChange(
         id,
         (s) => recordWithdrawal(s.caseFile, s.outcome, stamp(message.reviewer, message.at), newest.seq, 'undo'),
-        (s) => {
-          s.redo = [...s.redo, { day: newest.day, threshold: newest.threshold, timeS: newest.point.timeS, reason: newest.reason }];
-        },
+        (s) => [...s.redo, { day: newest.day, threshold: newest.threshold, timeS: newest.point.timeS, reason: newest.reason }],
       );
     }
     case 'redo': {
@@ -150,9 +176,7 @@ function handle(id: number, message: EngineRequest): void {
       return applyChange(
         id,
         (s) => recordOverride(s.caseFile, s.outcome, stamp(message.reviewer, message.at), item.day, item.threshold, { timeS: item.timeS }, item.reason),
-        (s) => {
-          s.redo = s.redo.slice(0, -1);
-        },
+        (s) => s.redo.slice(0, -1),
       );
     }
   }

@@ -1,6 +1,11 @@
 /**
  * Messages between the page and its analysis worker. The worker owns the case file and the
  * core engine; the page sends intents and receives whole views to draw.
+ *
+ * Each state of the case has a revision number, increasing across the worker's life. A
+ * change is answered in two messages: first its view (the values to draw), then its record
+ * (digest and case text, to autosave). The revision ties a record to its view, and lets
+ * autosave refuse a case text older than one it has already written.
  */
 import type { FilePayload } from '../../../host/workbench/api';
 import type { LocatedError } from '../../../core/model/errors';
@@ -40,18 +45,29 @@ export interface EngineView<C = unknown> {
   readonly comparison: C;
   readonly notes: { readonly day1: DayImportNotes; readonly day2: DayImportNotes };
   readonly log: readonly AuditEntry[];
-  /** SHA-256 of every recomputed number (core/case `recorded.digest`). */
-  readonly digest: string;
-  /** The case file to autosave. */
-  readonly caseJson: string;
+  /** The case state these values belong to. */
+  readonly revision: number;
   /** Overrides withdrawn by undo that redo can put back, newest last. */
   readonly redoable: number;
-  /** Wall time of the last recompute in the worker, ms. */
+  /** Wall time in the worker from the request to these values, ms. */
   readonly updateMs: number;
 }
 
+/** A case state's recorded form: what autosave writes, posted after the view of the same revision. */
+export interface CaseRecord {
+  /** The shell's name for the case, as given when it was opened. */
+  readonly caseId: string;
+  readonly revision: number;
+  /** SHA-256 of every recomputed number (core/case `recorded.digest`). */
+  readonly digest: string;
+  /** The case file, with its recorded results, as text to save. */
+  readonly caseJson: string;
+  /** Wall time in the worker to record it after its view (digest and case text), ms; for an opened case, the case text alone. */
+  readonly recordMs: number;
+}
+
 export type EngineRequest =
-  | { readonly type: 'open'; readonly day1: FilePayload; readonly day2: FilePayload; readonly caseJson: string; readonly mappings: readonly { layoutKey: string; mappingJson: string }[] }
+  | { readonly type: 'open'; readonly caseId: string; readonly day1: FilePayload; readonly day2: FilePayload; readonly caseJson: string; readonly mappings: readonly { layoutKey: string; mappingJson: string }[] }
   | { readonly type: 'set-threshold'; readonly day: DayNumber; readonly threshold: ThresholdId; readonly givenAs: 'time' | 'vo2'; readonly value: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'withdraw'; readonly seq: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'undo'; readonly reviewer: Reviewer; readonly at: string }
@@ -61,4 +77,11 @@ export type EngineReply<C = unknown> =
   | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
   | { readonly id: number; readonly type: 'needs-mapping'; readonly question: MappingQuestion }
   | { readonly id: number; readonly type: 'error'; readonly error: LocatedError }
-  | { readonly id: number; readonly type: 'progress'; readonly stage: string; readonly fraction: number };
+  | { readonly id: number; readonly type: 'progress'; readonly stage: string; readonly fraction: number }
+  /** Follows the request's view. */
+  | { readonly id: number; readonly type: 'record'; readonly record: CaseRecord }
+  /**
+   * Follows the request's view when its results could not be recorded: the change is not
+   * kept, and the case is back at `view` (the previous revision, already recorded).
+   */
+  | { readonly id: number; readonly type: 'record-failed'; readonly error: LocatedError; readonly view: EngineView<C> };

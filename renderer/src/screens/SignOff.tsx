@@ -18,6 +18,8 @@ export interface ExportState {
 
 interface Props {
   readonly view: EngineView<Comparison>;
+  /** The digest recorded for this view, or null while the worker is still recording it. */
+  readonly digest: string | null;
   readonly state: ExportState;
   readonly reviewer: Reviewer;
   readonly onSigner: (id: string) => void;
@@ -40,7 +42,7 @@ function describe(action: EngineView['log'][number]['action']): string {
   }
 }
 
-export function SignOff({ view, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl }: Props) {
+export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl }: Props) {
   const signer = state.signers.find((s) => s.id === state.signerId) ?? null;
   return (
     <div className="signoff">
@@ -92,7 +94,7 @@ export function SignOff({ view, state, reviewer, onSigner, onExport, onVerifyExp
               ))}
             </ol>
           )}
-          <p className="hint">Record digest {view.digest.slice(0, 16)}… (SHA-256 of every recomputed number).</p>
+          <p className="hint">Record digest {digest ? `${digest.slice(0, 16)}…` : '(being computed)'} (SHA-256 of every recomputed number).</p>
           <button type="button" data-testid="preview" onClick={onPreview}>
             {previewUrl ? 'Rebuild the preview' : 'Preview the report (unsigned)'}
           </button>

@@ -2,13 +2,17 @@
 // the same numbers; an override given as a VO2 puts exactly that VO2 at the threshold
 // (the inverse of linear interpolation, worked in overrides.ts, read back through valuesAt's
 // own linear interpolation), and the comparison row follows it; withdrawing the override
-// restores the automatic numbers exactly.
+// restores the automatic numbers exactly. Recording in a second step gives the same record,
+// and its digest is the SHA-256 of the canonical JSON of the result, checked against Node's
+// own crypto (OpenSSL), an implementation independent of the one core uses.
+import { createHash } from 'node:crypto';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { noClinicalInputs } from '../../../core/analyze/analyze-test';
 import { defaultEngine } from '../../../core/case/default-engine';
 import { newCase } from '../../../core/case/new-case';
-import { recomputeCase } from '../../../core/case/recompute';
+import { canonicalJson } from '../../../core/case/canonical-json';
+import { recomputeCase, recomputeValues, recordResults } from '../../../core/case/recompute';
 import { recordOverride, recordWithdrawal } from '../../../core/case/review';
 import { DEFAULT_SETTINGS } from '../../../core/model/settings';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../../host/demo-job';
@@ -52,6 +56,24 @@ describe('recomputeCase', () => {
     expect(action.kind === 'withdraw' && action.after?.vo2MlMin).toBe(auto.day2.vt1.automatic.at?.vo2MlMin);
     const restored = run(back.value);
     expect(restored.recorded.digest).toBe(auto.recorded.digest);
+  });
+
+  it('values first and the record on request give exactly what recomputeCase gives', () => {
+    const whole = run();
+    const values = recomputeValues(base, raw, defaultEngine);
+    if (!values.ok) throw new Error(values.error.message);
+    expect(values.value).toEqual({ day1: whole.day1, day2: whole.day2, comparison: whole.comparison });
+    const recorded = recordResults(values.value);
+    if (!recorded.ok) throw new Error(recorded.error.message);
+    expect(recorded.value).toEqual(whole.recorded);
+    const text = canonicalJson({ day1: whole.day1.analysis, day2: whole.day2.analysis, comparison: whole.comparison }, 'test', 'as-string');
+    if (!text.ok) throw new Error(text.error.message);
+    expect(whole.recorded.digest).toBe(createHash('sha256').update(text.value, 'utf8').digest('hex'));
+  });
+
+  it('recomputeValues refuses changed raw bytes as recomputeCase does', () => {
+    const r = recomputeValues(base, { day1: raw.day1, day2: raw.day1 }, defaultEngine);
+    expect(!r.ok && r.error.code).toBe('raw-file-changed');
   });
 
   it('refuses raw bytes that are not the ones the case names', () => {
