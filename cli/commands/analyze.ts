@@ -93,7 +93,7 @@ function clinicalInputs(v: Values): ClinicalInputs {
     ...noClinicalInputs(),
     peakRpe: ranged('rpe', v.rpe, 6, 20) ?? null,
     lactateMmolL: ranged('lactate', v.lactate, 0, 40) ?? null,
-    fev1L: ranged('fev1-l', v['fev1-l'], 0.2, 10) ?? null,
+    fev1L: ranged('fev1-l', v['fev1-l'], 0.2, 9) ?? null,
     mvvLMin: ranged('mvv-l-min', v['mvv-l-min'], 5, 400) ?? null,
   };
 }
