@@ -1,8 +1,9 @@
 /**
  * The default engine with each day's analysis remembered for the life of the process, keyed
- * by the raw file's SHA-256, the settings and the clinical inputs. A reviewer action changes
- * only what follows the analysis (values at the threshold, the comparison), so recomputing
- * after an override need not re-read and re-analyse the breath files. Safe because
+ * by the raw file's SHA-256, its column map, the settings and the clinical inputs. A
+ * reviewer action changes only what follows the analysis (values at the threshold, the
+ * comparison), so recomputing after an override need not re-read and re-analyse the
+ * breath files. Safe because
  * readTable and analyzeTest are pure and their results are never mutated.
  */
 import { canonicalJson } from '../core/case/canonical-json';
@@ -21,12 +22,12 @@ export function cachedEngine(): Engine<Comparison> {
   const analyses = new WeakMap<BreathTable, Map<string, Result<TestAnalysis>>>();
   return {
     ...defaultEngine,
-    readTable: (name, bytes, settings) => {
-      const key = canonicalJson({ name, sha: sha256Hex(bytes), settings });
-      if (!key.ok) return defaultEngine.readTable(name, bytes, settings);
+    readTable: (name, bytes, settings, columnMap) => {
+      const key = canonicalJson({ name, sha: sha256Hex(bytes), settings, columnMap });
+      if (!key.ok) return defaultEngine.readTable(name, bytes, settings, columnMap);
       const hit = tables.get(key.value);
       if (hit) return hit;
-      const read = defaultEngine.readTable(name, bytes, settings);
+      const read = defaultEngine.readTable(name, bytes, settings, columnMap);
       if (tables.size >= LIMIT) tables.delete(tables.keys().next().value as string);
       tables.set(key.value, read);
       return read;

@@ -1,8 +1,9 @@
 /**
  * The report job shared by `twofold report` and `twofold demo`: open or create the case,
- * recompute it, save the case folder atomically, build the PDF, sign it if asked, and write
- * it atomically. File reading, the clock and the certificate come in from here; every
- * computation is a core function.
+ * recompute it (each raw file read with the column map the case records for it, so the
+ * report shows what the workbench showed), save the case folder atomically, build the PDF,
+ * sign it if asked, and write it atomically. File reading, the clock and the certificate
+ * come in from here; every computation is a core function.
  */
 import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';

@@ -2,9 +2,11 @@
  * Everything `twofold verify` checks, in order, each step a plain statement:
  * the signature (valid, covering the whole file), the embedded files (present, their SHA-256
  * matching the case file), the case file (schema and reviewer-log chain), and the numbers
- * (recomputed from the embedded raw files, settings and reviewer log, equal to the recorded
- * ones). The report passes only when every step holds.
+ * (recomputed from the embedded raw files, each read with the column map the embedded case
+ * file records for it, the settings and reviewer log, equal to the recorded ones). The
+ * report passes only when every step holds.
  */
+import { columnMapOf } from '../core/case/case-file';
 import { caseFromText } from '../core/case/case-text';
 import { differingPaths } from '../core/case/flatten';
 import { recomputeCase } from '../core/case/recompute';
@@ -54,7 +56,9 @@ export function verifyReport(pdf: Uint8Array, file: string): VerifyOutcome {
     if (hash !== input.sha256) return done(false, `Embedded files: the day ${day} raw file ${input.name} has SHA-256 ${hash}, but the case records ${input.sha256}.`);
     raw.push(entry.bytes);
   }
-  steps.push({ ok: true, what: `Both raw files attached, SHA-256 as recorded (${caseFile.inputs.day1.sha256.slice(0, 12)}…, ${caseFile.inputs.day2.sha256.slice(0, 12)}…).` });
+  const mapped = ([1, 2] as const).filter((day) => columnMapOf(day === 1 ? caseFile.inputs.day1 : caseFile.inputs.day2) !== null);
+  const maps = mapped.length === 0 ? '' : ` ${mapped.map((d) => `Day ${d}`).join(' and ')} read with the column map${mapped.length > 1 ? 's' : ''} the case records.`;
+  steps.push({ ok: true, what: `Both raw files attached, SHA-256 as recorded (${caseFile.inputs.day1.sha256.slice(0, 12)}…, ${caseFile.inputs.day2.sha256.slice(0, 12)}…).${maps}` });
 
   if (!caseFile.recorded) return done(false, 'Numbers: the case file records no results to compare with.');
   let outcome: ReturnType<typeof recomputeCase<Comparison>>;

@@ -1,15 +1,17 @@
 /**
  * The reviewer log as a hash chain. Each entry's hash is the SHA-256 of the canonical JSON
  * of its body (every field but `hash`), and each body carries the hash of the entry before.
- * The first entry points at the case's anchor: the hash of the inputs' SHA-256s, the
- * settings and the clinical inputs, so swapping a raw file or a setting also breaks the
- * chain. Editing, removing or reordering any entry changes a hash that a later entry (or
- * the entry itself) has recorded, and `verifyLog` names the first entry that fails.
+ * The first entry points at the case's anchor: the hash of the inputs' SHA-256s (and the
+ * column map a file is read with, when it has one), the settings and the clinical inputs,
+ * so swapping a raw file, its column map or a setting also breaks the chain. Editing,
+ * removing or reordering any entry changes a hash that a later entry (or the entry itself)
+ * has recorded, and `verifyLog` names the first entry that fails.
  * The technique is the ordinary linked hash chain (Haber & Stornetta, J Cryptology 1991).
  */
 import { canonicalJson } from './canonical-json';
 import { sha256Hex } from './sha256';
-import type { AuditEntry, AuditEntryBody, CaseFile } from './case-file';
+import { columnMapOf, type AuditEntry, type AuditEntryBody, type CaseFile, type RawInput } from './case-file';
+import type { ColumnMapping } from '../import/mapping';
 import { fail, locatedError, ok, type LocatedError, type Result } from '../model/errors';
 
 /** What the chain's first entry points at. */
@@ -18,16 +20,23 @@ export function anchorHash(caseFile: Pick<CaseFile, 'format' | 'version' | 'crea
     format: caseFile.format,
     version: caseFile.version,
     createdAt: caseFile.createdAt,
-    inputs: {
-      day1: { name: caseFile.inputs.day1.name, sha256: caseFile.inputs.day1.sha256 },
-      day2: { name: caseFile.inputs.day2.name, sha256: caseFile.inputs.day2.sha256 },
-    },
+    inputs: { day1: anchorOfInput(caseFile.inputs.day1), day2: anchorOfInput(caseFile.inputs.day2) },
     settings: caseFile.settings,
     clinical: caseFile.clinical,
   };
   const text = canonicalJson(anchor);
   // Settings and clinical inputs are validated finite numbers, so this cannot fail; keep a visible marker if it ever does.
   return sha256Hex(text.ok ? text.value : `unserialisable:${text.error.message}`);
+}
+
+/**
+ * A raw input as the anchor covers it: name, SHA-256 and, when one is recorded, the column
+ * map it is read with (a map changes the numbers as surely as the bytes do). A day with no
+ * map, or a case file older than the field, adds nothing, so their anchors are unchanged.
+ */
+function anchorOfInput(input: RawInput): { name: string; sha256: string; columnMap?: ColumnMapping } {
+  const columnMap = columnMapOf(input);
+  return columnMap ? { name: input.name, sha256: input.sha256, columnMap } : { name: input.name, sha256: input.sha256 };
 }
 
 export function entryHash(body: AuditEntryBody): Result<string> {
@@ -74,7 +83,7 @@ export function verifyLog(caseFile: CaseFile, file = 'case file', lineOf: (seq: 
       return fail(where('log-order', `Reviewer log entry ${i + 1} carries number ${entry.seq}: entries have been removed or reordered, so the history cannot be trusted.`));
     }
     if (entry.prevHash !== expectedPrev) {
-      const what = i === 0 ? 'the raw files, settings or clinical inputs it was recorded against' : `entry ${i}`;
+      const what = i === 0 ? 'the raw files, column maps, settings or clinical inputs it was recorded against' : `entry ${i}`;
       return fail(where('log-chain-broken', `Reviewer log entry ${entry.seq} does not follow from ${what}: the history or the inputs were changed after the entry was recorded.`));
     }
     const hash = entryHash(entry);

@@ -1,11 +1,12 @@
 /**
  * The case file: everything needed to reproduce one two-day comparison and its review.
  * Format `twofold-case`, version 1, documented in docs/case-file.md. It holds the two raw
- * breath files by SHA-256 (their copies sit beside it in the case folder), the settings,
- * the clinical inputs, the numbers recorded when it was last saved, and the reviewer log: an
- * append-only, hash-chained list of actions. Times are ISO 8601 strings passed in by the
- * shell; core/ has no clock.
+ * breath files by SHA-256 (their copies sit beside it in the case folder) with the column
+ * map each is read with, the settings, the clinical inputs, the numbers recorded when it
+ * was last saved, and the reviewer log: an append-only, hash-chained list of
+ * actions. Times are ISO 8601 strings passed in by the shell; core/ has no clock.
  */
+import type { ColumnMapping } from '../import/mapping';
 import type { ClinicalInputs, ThresholdId } from '../model/analysis';
 import type { Settings } from '../model/settings';
 
@@ -22,6 +23,17 @@ export interface RawInput {
   readonly sizeBytes: number;
   /** Path of the copy inside the case folder, relative to the case file. */
   readonly storedAs: string;
+  /**
+   * The column map (core/import/mapping.ts) the file is read with, so every recompute reads
+   * it the same way; null when detection alone reads it. Absent in case files written before
+   * the field existed, which reads as null (`columnMapOf`).
+   */
+  readonly columnMap?: ColumnMapping | null;
+}
+
+/** The column map a raw input is read with: the recorded one, or none. */
+export function columnMapOf(input: RawInput): ColumnMapping | null {
+  return input.columnMap ?? null;
 }
 
 /** A threshold position: the time on the recording and the VO2 there. */

@@ -4,6 +4,7 @@
  * schema describe the same shape, and the test suite checks that a saved case parses.
  */
 import { settingsSchema } from '../analyze/settings-input';
+import { parseMapping } from '../import/mapping';
 import { z } from 'zod';
 import { CASE_FORMAT, CASE_VERSION } from './case-file';
 
@@ -20,11 +21,21 @@ const clinicalSchema = z.object({
   restingHrBpm: nullableNum,
 });
 
+/** A column map is checked by the importer's own parser, so its format has one owner (core/import/mapping.ts). */
+const columnMapSchema = z.record(z.string(), z.unknown()).transform((value, ctx) => {
+  const parsed = parseMapping(JSON.stringify(value), 'column map');
+  if (parsed.ok) return parsed.value;
+  ctx.addIssue({ code: 'custom', message: parsed.error.message.replace(/\.$/, '') });
+  return z.NEVER;
+});
+
 const rawInputSchema = z.object({
   name: z.string().min(1),
   sha256: sha,
   sizeBytes: z.number().int().nonnegative(),
   storedAs: z.string().regex(/^raw\/[0-9a-f]{64}(\.[A-Za-z0-9]{1,8})?$/, 'raw/<sha256>.<extension>'),
+  // Absent in case files written before it existed: read as no column map.
+  columnMap: columnMapSchema.nullable().optional(),
 });
 
 const point = z.object({ timeS: num, vo2MlMin: num });

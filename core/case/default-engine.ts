@@ -1,5 +1,6 @@
 /**
- * The engine the shells use: Twofold's importer, one-test analysis, values at a threshold
+ * The engine the shells use: Twofold's importer (each file read with the column map the
+ * case records for it, core/import/mapping.ts), one-test analysis, values at a threshold
  * and the day-2-against-day-1 comparison (default band table).
  */
 import { analyzeTest } from '../analyze/analyze-test';
@@ -10,8 +11,8 @@ import { ok } from '../model/errors';
 import type { Engine } from './engine';
 
 export const defaultEngine: Engine<Comparison> = {
-  readTable: (name, bytes, settings) => {
-    const read = readBreathBytes(bytes, { sourceName: name, settings });
+  readTable: (name, bytes, settings, columnMap) => {
+    const read = readBreathBytes(bytes, { sourceName: name, settings, mapping: columnMap });
     return read.ok ? ok(read.value.table) : read;
   },
   analyzeTest: (table, settings, clinical) => ok(analyzeTest(table, settings, clinical)),

@@ -2,14 +2,15 @@
  * The analysis steps the case needs, passed in as functions so that the case logic depends
  * on a contract rather than on particular modules (the shells pass `defaultEngine`).
  */
+import type { ColumnMapping } from '../import/mapping';
 import type { ClinicalInputs, TestAnalysis, ValuesAt } from '../model/analysis';
 import type { BreathTable } from '../model/breath-table';
 import type { Result } from '../model/errors';
 import type { Settings } from '../model/settings';
 
 export interface Engine<C> {
-  /** Reads one raw breath file (bytes as stored in the case folder). */
-  readonly readTable: (name: string, bytes: Uint8Array, settings: Settings) => Result<BreathTable>;
+  /** Reads one raw breath file (bytes as stored in the case folder) with the column map the case records for it. */
+  readonly readTable: (name: string, bytes: Uint8Array, settings: Settings, columnMap: ColumnMapping | null) => Result<BreathTable>;
   readonly analyzeTest: (table: BreathTable, settings: Settings, clinical: ClinicalInputs) => Result<TestAnalysis>;
   /** Every value read off the processed series at `timeS`. */
   readonly valuesAt: (analysis: TestAnalysis, timeS: number) => ValuesAt;

@@ -1,11 +1,15 @@
 /**
  * A new case from two raw breath files: each is named by its SHA-256 and stored in the case
  * folder as raw/<sha256>.<extension>, so the folder is self-contained and a copy can never be
- * confused with another file of the same name.
+ * confused with another file of the same name. Each file carries the column map it is read
+ * with (null when detection alone reads it); the map is part of the case's anchor
+ * (audit-log.ts), so it can be set only while the reviewer log is empty.
  *
  * Example: a file "day1.csv" whose SHA-256 is ab12… is stored as "raw/ab12….csv".
  */
+import type { ColumnMapping } from '../import/mapping';
 import type { ClinicalInputs } from '../model/analysis';
+import { fail, locatedError, ok, type Result } from '../model/errors';
 import type { Settings } from '../model/settings';
 import { CASE_FORMAT, CASE_VERSION, type CaseFile, type RawInput } from './case-file';
 import { sha256Hex } from './sha256';
@@ -13,12 +17,14 @@ import { sha256Hex } from './sha256';
 export interface RawFile {
   readonly name: string;
   readonly bytes: Uint8Array;
+  /** The column map to read it with; absent or null: detection alone. */
+  readonly columnMap?: ColumnMapping | null;
 }
 
 export function rawInput(file: RawFile): RawInput {
   const sha256 = sha256Hex(file.bytes);
   const ext = /\.([A-Za-z0-9]{1,8})$/.exec(file.name)?.[1].toLowerCase();
-  return { name: file.name, sha256, sizeBytes: file.bytes.length, storedAs: `raw/${sha256}${ext ? `.${ext}` : ''}` };
+  return { name: file.name, sha256, sizeBytes: file.bytes.length, storedAs: `raw/${sha256}${ext ? `.${ext}` : ''}`, columnMap: file.columnMap ?? null };
 }
 
 export function newCase(createdAt: string, day1: RawFile, day2: RawFile, settings: Settings, clinical: { day1: ClinicalInputs; day2: ClinicalInputs }): CaseFile {
@@ -32,4 +38,21 @@ export function newCase(createdAt: string, day1: RawFile, day2: RawFile, setting
     log: [],
     recorded: null,
   };
+}
+
+/**
+ * The case with each day read by the column map given (null: detection alone). Refused once
+ * the reviewer log has an entry: the log is chained to the inputs as they were read, and a
+ * different map would give other numbers under the same reviewed history. Recorded results
+ * are cleared, since they were computed with the old maps.
+ */
+export function withColumnMaps(caseFile: CaseFile, maps: { readonly day1: ColumnMapping | null; readonly day2: ColumnMapping | null }, file = 'case file'): Result<CaseFile> {
+  if (caseFile.log.length > 0) {
+    return fail(locatedError('column-map-after-review', file, null, null, 'The column maps of a case cannot change once its reviewer log has an entry: the review was made on the files as they were read. Start a new case to read them another way.'));
+  }
+  return ok({
+    ...caseFile,
+    inputs: { day1: { ...caseFile.inputs.day1, columnMap: maps.day1 }, day2: { ...caseFile.inputs.day2, columnMap: maps.day2 } },
+    recorded: null,
+  });
 }

@@ -1,6 +1,6 @@
 /**
  * Recomputes a case from its raw files, settings, clinical inputs and reviewer log:
- * read and analyse each day, put every active override in place of the automatic
+ * read each day with its recorded column map and analyse it, put every active override in place of the automatic
  * threshold (values read off the series at the override's time with `valuesAt`), then
  * compare the days. The same case file and raw bytes always give the same numbers, because
  * every step is a pure function and the bootstrap is seeded by the settings.
@@ -14,7 +14,7 @@
 import type { TestAnalysis, ThresholdId, ThresholdResult } from '../model/analysis';
 import { fail, locatedError, ok, type Result } from '../model/errors';
 import { SOFTWARE_VERSION } from '../version';
-import type { CaseFile, DayNumber, RawInput, RecordedResults, ThresholdPoint } from './case-file';
+import { columnMapOf, type CaseFile, type DayNumber, type RawInput, type RecordedResults, type ThresholdPoint } from './case-file';
 import { canonicalJson } from './canonical-json';
 import type { Engine } from './engine';
 import { flattenLeaves } from './flatten';
@@ -72,7 +72,7 @@ export function recomputeValues<C>(caseFile: CaseFile, raw: RawBytes, engine: En
     const bytes = day === 1 ? raw.day1 : raw.day2;
     const checked = checkRaw(input, bytes);
     if (!checked.ok) return checked;
-    const table = engine.readTable(input.name, bytes, caseFile.settings);
+    const table = engine.readTable(input.name, bytes, caseFile.settings, columnMapOf(input));
     if (!table.ok) return table;
     const analysed = engine.analyzeTest(table.value, caseFile.settings, day === 1 ? caseFile.clinical.day1 : caseFile.clinical.day2);
     if (!analysed.ok) return analysed;

@@ -110,10 +110,11 @@ export function workbenchEngine(mappings: ReadonlyMap<string, ColumnMapping>): W
   return {
     preload,
     importOf,
-    readTable: (name, bytes, settings) => {
-      const cached = importOf(name, bytes, settings);
+    readTable: (name, bytes, settings, columnMap) => {
+      // The case's own map decides: a preloaded import is used only when it was read with that map.
+      const cached = imports.get(importKey(name, bytes, settings, columnMap));
       if (cached) return cached.ok ? ok(cached.value.table) : cached;
-      return defaultEngine.readTable(name, bytes, settings);
+      return defaultEngine.readTable(name, bytes, settings, columnMap);
     },
     analyzeTest: (table, settings, clinical) => {
       const key = `${JSON.stringify(settings)}\u0000${JSON.stringify(clinical)}`;

@@ -12,12 +12,13 @@
  * and the screen does not need them. A change becomes the open case only once recorded.
  */
 /// <reference lib="webworker" />
-import type { CaseFile, DayNumber } from '../../../core/case/case-file';
+import { columnMapOf, type CaseFile, type DayNumber } from '../../../core/case/case-file';
+import { withColumnMaps } from '../../../core/case/new-case';
 import { caseFromText, caseToText } from '../../../core/case/case-text';
 import { recomputeCase, recomputeValues, recordResults, type CaseOutcome, type CaseValues, type RawBytes } from '../../../core/case/recompute';
 import { recordOverride, recordWithdrawal } from '../../../core/case/review';
 import { activeOverrides } from '../../../core/case/overrides';
-import type { LocatedError } from '../../../core/model/errors';
+import { locatedError, ok, type LocatedError } from '../../../core/model/errors';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
 import type { ImportResult } from '../../../core/import/types';
@@ -97,25 +98,52 @@ async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'o
   }
   const raw = { day1: bytesOf(message.day1.base64), day2: bytesOf(message.day2.base64) };
   const names = { day1: parsed.value.inputs.day1.name, day2: parsed.value.inputs.day2.name };
-  const engine = workbenchEngine(mappings);
-  const imports: Partial<Record<'day1' | 'day2', ImportResult>> = {};
+  // Each day is read with the column map its case records (core/case/new-case.ts). While the
+  // reviewer log is empty (nothing is chained to the inputs yet), a day without one takes the
+  // map remembered for its layout, and the case records it; after that the maps stand.
+  const reviewed = parsed.value.log.length > 0;
+  const probe = workbenchEngine(new Map());
+  const plain: Partial<Record<'day1' | 'day2', ImportResult>> = {};
+  const columnMaps: Record<'day1' | 'day2', ColumnMapping | null> = { day1: null, day2: null };
   for (const day of [1, 2] as const) {
     const key = day === 1 ? 'day1' : 'day2';
     post({ id, type: 'progress', stage: `Importing day ${day} (${names[key]})`, fraction: day === 1 ? 0.1 : 0.3 });
-    const result = await engine.preload(names[key], raw[key], parsed.value.settings);
+    const result = await probe.preload(names[key], raw[key], parsed.value.settings);
     if (!result.ok) return post({ id, type: 'error', error: result.error });
-    const layoutKey = layoutKeyOf(result.value);
-    if (!mappings.has(layoutKey) && needsMapping(result.value)) {
+    const recorded = columnMapOf(parsed.value.inputs[key]);
+    const remembered = reviewed ? null : (mappings.get(layoutKeyOf(result.value)) ?? null);
+    if (!recorded && !remembered && !reviewed && needsMapping(result.value)) {
       return post({ id, type: 'needs-mapping', question: mappingQuestion(day, names[key], raw[key], result.value) });
     }
+    plain[key] = result.value;
+    columnMaps[key] = recorded ?? remembered;
+  }
+  const withMaps = reviewed ? ok(parsed.value) : withColumnMaps(parsed.value, columnMaps, 'twofold-case.json');
+  if (!withMaps.ok) return post({ id, type: 'error', error: withMaps.error });
+  const caseFile = withMaps.value;
+  const layoutKeys = { day1: layoutKeyOf(plain.day1!), day2: layoutKeyOf(plain.day2!) };
+  // The workbench's engine applies one map per layout.
+  if (layoutKeys.day1 === layoutKeys.day2 && JSON.stringify(columnMaps.day1) !== JSON.stringify(columnMaps.day2)) {
+    return post({ id, type: 'error', error: locatedError('column-maps-one-layout', 'twofold-case.json', null, null, 'Both days share one export layout, but the case reads them with different column maps, which the workbench cannot do; `twofold report` can still recompute this case.') });
+  }
+  const mapped = new Map<string, ColumnMapping>();
+  for (const key of ['day1', 'day2'] as const) {
+    const map = columnMaps[key];
+    if (map) mapped.set(layoutKeys[key], map);
+  }
+  const engine = mapped.size === 0 ? probe : workbenchEngine(mapped);
+  const imports: Partial<Record<'day1' | 'day2', ImportResult>> = {};
+  for (const key of ['day1', 'day2'] as const) {
+    const result = engine === probe ? ok(plain[key]!) : await engine.preload(names[key], raw[key], caseFile.settings);
+    if (!result.ok) return post({ id, type: 'error', error: result.error });
     imports[key] = result.value;
   }
   post({ id, type: 'progress', stage: 'Analysing both days (thresholds, bootstrap, comparison)', fraction: 0.5 });
   const started = performance.now();
   // Opening is not on the path from a change to the screen: recorded before it is shown.
-  const done = recomputeCase(parsed.value, raw, engine);
+  const done = recomputeCase(caseFile, raw, engine);
   if (!done.ok) return post({ id, type: 'error', error: done.error });
-  const state: OpenCase = { caseId: message.caseId, revision: ++revisions, caseFile: parsed.value, raw, mappings, engine, outcome: done.value, imports: { day1: imports.day1!, day2: imports.day2! }, redo: [] };
+  const state: OpenCase = { caseId: message.caseId, revision: ++revisions, caseFile, raw, mappings, engine, outcome: done.value, imports: { day1: imports.day1!, day2: imports.day2! }, redo: [] };
   open = state;
   const updateMs = performance.now() - started;
   post({ id, type: 'view', view: viewOf({ ...state, values: state.outcome }, updateMs) });

@@ -3,7 +3,9 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { anchorHash, appendEntry, verifyLog } from '../../../core/case/audit-log';
+import { canonicalJson } from '../../../core/case/canonical-json';
 import { caseFromText, caseToText } from '../../../core/case/case-text';
+import { withColumnMaps } from '../../../core/case/new-case';
 import { caseWithLog, smallCase } from './fixtures';
 
 const sha = (s: string) => createHash('sha256').update(s, 'utf8').digest('hex');
@@ -66,5 +68,47 @@ describe('audit log', () => {
     const r = caseFromText(text, 'case.json');
     expect(!r.ok && r.error.code).toBe('case-invalid');
     if (!r.ok) expect(r.error.message).toContain('inputs.day1.sha256');
+  });
+});
+
+describe('audit log: the anchor covers each day\'s column map', () => {
+  const map = { format: 'twofold-column-map', version: 1, columns: [{ header: 'cardiac_beats', variable: 'hrBpm', unit: 'bpm' }] } as const;
+  const mapped = () => {
+    const r = withColumnMaps(smallCase(), { day1: map, day2: null });
+    if (!r.ok) throw new Error(r.error.message);
+    return r.value;
+  };
+
+  it('a day without a map hashes as before the field existed; a map changes the anchor', () => {
+    const c = smallCase();
+    const { columnMap: _a, ...day1 } = c.inputs.day1;
+    const { columnMap: _b, ...day2 } = c.inputs.day2;
+    expect(anchorHash({ ...c, inputs: { day1, day2 } })).toBe(anchorHash(c));
+    expect(anchorHash(mapped())).not.toBe(anchorHash(c));
+  });
+
+  it('the anchor is the SHA-256 of the canonical JSON with the map inside the day it reads', () => {
+    const c = mapped();
+    const plainAnchor = canonicalJson({ ...c, inputs: { day1: { name: c.inputs.day1.name, sha256: c.inputs.day1.sha256 }, day2: { name: c.inputs.day2.name, sha256: c.inputs.day2.sha256 } }, log: undefined, recorded: undefined });
+    if (!plainAnchor.ok) throw new Error(plainAnchor.error.message);
+    // Written out by hand: keys in code-unit order, so "columnMap" sorts before "name" in day1.
+    const day1 = `"day1":{"columnMap":{"columns":[{"header":"cardiac_beats","unit":"bpm","variable":"hrBpm"}],"format":"twofold-column-map","version":1},"name":"day1.csv","sha256":"${c.inputs.day1.sha256}"}`;
+    const expected = plainAnchor.value.replace(`"day1":{"name":"day1.csv","sha256":"${c.inputs.day1.sha256}"}`, day1);
+    expect(expected).toContain('"columnMap"');
+    expect(anchorHash(c)).toBe(sha(expected));
+  });
+
+  it('editing a recorded map after a review entry breaks the chain at entry 1', () => {
+    const reviewed = appendEntry(mapped(), { at: '2026-03-10T09:00:00Z', who: 'R. Reviewer', role: 'exercise physiologist', reason: 'checked', action: { kind: 'sign-off', statement: 'Reviewed.' } });
+    if (!reviewed.ok) throw new Error(reviewed.error.message);
+    const text = caseToText(reviewed.value);
+    expect(caseFromText(text, 'case.json').ok).toBe(true);
+    const r = caseFromText(text.replace('"unit": "bpm"', '"unit": "1/min"'), 'case.json');
+    expect(r.ok ? null : [r.error.code, r.error.message.includes('column maps')]).toEqual(['log-chain-broken', true]);
+    // Removing the map (as if the file said "read it with detection alone") breaks it too.
+    const data = JSON.parse(text) as { inputs: { day1: { columnMap?: unknown } } };
+    delete data.inputs.day1.columnMap;
+    const removed = caseFromText(JSON.stringify(data, null, 2), 'case.json');
+    expect(removed.ok ? null : removed.error.code).toBe('log-chain-broken');
   });
 });
