@@ -33,13 +33,14 @@ import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
 import { readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
 import { numberFlag, parseFlags } from '../args';
+import { differingMaps, readMapFlags } from '../column-maps';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
                       [--reviewer "Name, credential"] [--paper a4|letter]
                       [--day1-rest-hr BPM] [--day1-lactate MMOL] [--day1-rpe N]
                       [--day1-fev1-l L | --day1-mvv-l-min L_MIN]   (and the same for --day2-…)
-                      [--amend-clinical]
+                      [--amend-clinical] [--day1-map MAP.json] [--day2-map MAP.json]
 
   --out FILE        where the PDF is written (replaced atomically)
   --case FOLDER     the case folder (or its twofold-case.json) to reopen or create
@@ -58,6 +59,9 @@ const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] 
   --dayN-mvv-l-min L_MIN  measured MVV, L/min (5–400); give FEV1 or MVV, not both
   --amend-clinical        change inputs an existing case recorded (only while its reviewer
                           log is empty); without it a differing value is refused
+
+  --dayN-map MAP.json     the column map (twofold-column-map, docs/formats.md) to read day N's
+                          file with, for a new case; a reopened case keeps its recorded maps
 `;
 
 /** One clinical input as a flag: its case field, range and words. Ranges match the workbench's intake. */
@@ -157,6 +161,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     reviewer: { type: 'string' },
     paper: { type: 'string' },
     'amend-clinical': { type: 'boolean' },
+    'day1-map': { type: 'string' },
+    'day2-map': { type: 'string' },
     ...clinicalOptions(),
     help: { type: 'boolean', short: 'h' },
   });
@@ -170,6 +176,11 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const given: Record<DayNumber, GivenClinical> = { 1: givenClinical(values, 1), 2: givenClinical(values, 2) };
   if (values['amend-clinical'] && Object.keys(given[1]).length + Object.keys(given[2]).length === 0) {
     throw new UsageError('--amend-clinical needs at least one --day1-… or --day2-… clinical input to change');
+  }
+  const maps = readMapFlags(values, io.cwd);
+  if (!maps.ok) {
+    io.err(`${maps.message}\n`);
+    return EXIT_BAD_INPUT;
   }
   const out = resolve(io.cwd, values.out);
   const folder = caseFolder(values.case, out, io.cwd);
@@ -204,6 +215,14 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       io.err(`${caseFilePath(folder)}:0:0: This case is set to ${caseFile.settings.report.paper} paper; settings of a case with a reviewer log are fixed, so --paper cannot change it.\n`);
       return EXIT_BAD_INPUT;
     }
+    const mapDays = differingMaps(caseFile, maps.maps);
+    if (mapDays.length > 0) {
+      io.err(
+        `${caseFilePath(folder)}:0:0: The column map given for day ${mapDays.join(' and ')} differs from the one this case recorded; a case keeps the reading its numbers and review were made on. ` +
+          'Nothing was written. To read the files another way, start another case folder (--case NEW_FOLDER).\n',
+      );
+      return EXIT_BAD_INPUT;
+    }
     const changes = clinicalChanges(caseFile.clinical, given);
     if (changes.length > 0) {
       const listed = changes.map((c) => `  ${describeChange(c)}`).join('\n');
@@ -223,7 +242,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     }
   } else {
     const at = now.toISOString().replace(/\.\d{3}Z$/, 'Z');
-    caseFile = newCase(at, day1, day2, { ...DEFAULT_SETTINGS, report: { paper } }, { day1: { ...noClinicalInputs(), ...given[1] }, day2: { ...noClinicalInputs(), ...given[2] } });
+    caseFile = newCase(at, { ...day1, columnMap: maps.maps[1] }, { ...day2, columnMap: maps.maps[2] }, { ...DEFAULT_SETTINGS, report: { paper } }, { day1: { ...noClinicalInputs(), ...given[1] }, day2: { ...noClinicalInputs(), ...given[2] } });
   }
 
   let certificate = null;
