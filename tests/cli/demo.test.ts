@@ -6,14 +6,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../cli/main';
-import type { CliIo } from '../../cli/io';
+import { io } from './capture-io';
 
-function io(env: Record<string, string> = {}) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const value: CliIo = { out: (t) => out.push(t), err: (t) => err.push(t), env, cwd: process.cwd(), interactive: false };
-  return { io: value, out: () => out.join(''), err: () => err.join('') };
-}
 
 describe('twofold demo', () => {
   it('builds, signs and verifies the demo report', async () => {

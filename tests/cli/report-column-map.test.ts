@@ -9,17 +9,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../../cli/main';
-import type { CliIo } from '../../cli/io';
+import { io } from './capture-io';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
 import { heartRateMap, renamed } from '../host/mapped-case';
 import { opensslCertificate, type LabCertificate } from '../core/report/fixture';
 
-function io(env: Record<string, string> = {}) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const value: CliIo = { out: (t) => out.push(t), err: (t) => err.push(t), env, cwd: process.cwd(), interactive: false };
-  return { io: value, out: () => out.join(''), err: () => err.join('') };
-}
 
 const day2 = join(DEMO_FOLDER, DEMO_PAIR.day2);
 let dir: string;
