@@ -9,7 +9,7 @@
  * by the end of the window, |slopeAfter − slopeBefore| · (xEnd − knot), must be at least
  * twice the residual standard deviation √(RSS / (n − 4)). A smaller bend is no breakpoint.
  */
-import type { MethodOutcome } from '../model/analysis';
+import type { MethodEvidence, MethodOutcome } from '../model/analysis';
 import type { Detector, DetectorInput } from './detector';
 import { minPerSide } from './edge-floor';
 import { hingeFit, preparePoints, type HingeFit, type PreparedPoints } from './segments';
@@ -61,6 +61,32 @@ export function bendReason(fit: HingeFit, p: PreparedPoints, bend: 'rise' | 'fal
   return null;
 }
 
+/**
+ * The evidence of a continuous two-segment fit over the x-range `window`: the line left of the
+ * knot and the line right of it, which meet at the knot (so the right intercept follows from
+ * the left line's value there).
+ */
+export function hingeEvidence(
+  xName: string,
+  yName: string,
+  window: readonly [number, number],
+  fit: { readonly knot: number; readonly intercept: number; readonly slopeBefore: number; readonly slopeAfter: number; readonly rss: number; readonly n: number },
+): MethodEvidence {
+  const [x0, x1] = window;
+  const knotY = fit.intercept + fit.slopeBefore * fit.knot;
+  return {
+    xName,
+    yName,
+    window: [x0, x1],
+    segments: [
+      { x0, x1: fit.knot, slope: fit.slopeBefore, intercept: fit.intercept },
+      { x0: fit.knot, x1, slope: fit.slopeAfter, intercept: knotY - fit.slopeAfter * fit.knot },
+    ],
+    residualSumSquares: fit.rss,
+    points: fit.n,
+  };
+}
+
 export function failed(spec: { method: string; label: string; source: string }, reason: string): MethodOutcome {
   return { method: spec.method, label: spec.label, source: spec.source, found: false, reason };
 }
@@ -92,9 +118,6 @@ export function hingeMethod(spec: HingeMethodSpec): HingeMethod {
     if (!Number.isFinite(at.timeS) || !Number.isFinite(at.vo2MlMin)) {
       return failed(spec, 'The breakpoint could not be read off the VO2 series.');
     }
-    const x0 = p.x[0];
-    const x1 = p.x[p.x.length - 1];
-    const knotY = fit.intercept + fit.slopeBefore * fit.knot;
     return {
       method: spec.method,
       label: spec.label,
@@ -102,17 +125,7 @@ export function hingeMethod(spec: HingeMethodSpec): HingeMethod {
       found: true,
       timeS: at.timeS,
       vo2MlMin: at.vo2MlMin,
-      evidence: {
-        xName: spec.xName,
-        yName: spec.yName,
-        window: [x0, x1],
-        segments: [
-          { x0, x1: fit.knot, slope: fit.slopeBefore, intercept: fit.intercept },
-          { x0: fit.knot, x1, slope: fit.slopeAfter, intercept: knotY - fit.slopeAfter * fit.knot },
-        ],
-        residualSumSquares: fit.rss,
-        points: fit.n,
-      },
+      evidence: hingeEvidence(spec.xName, spec.yName, [p.x[0], p.x[p.x.length - 1]], fit),
     };
   };
   return { spec, detect };

@@ -18,7 +18,7 @@
  */
 import type { Detector } from './detector';
 import { minPerSide } from './edge-floor';
-import { failed } from './hinge-method';
+import { failed, hingeEvidence } from './hinge-method';
 import { timeAtValue, vo2Curve } from './read-off';
 import { sharedKnotFit } from './shared-knot';
 import { locallySmoothedVo2 } from './smooth-vo2';
@@ -53,24 +53,11 @@ export const detect: Detector = (input) => {
   if (!(vent.slopeAfter > vent.slopeBefore)) return failed(spec, 'VE does not rise more steeply against VO2 after the break, as it should at VT1.');
   const timeS = timeAtValue(vo2Curve(series, fromS, toS), fit.knot);
   if (!Number.isFinite(timeS)) return failed(spec, 'The breakpoint could not be read off the VO2 series.');
-  const x0 = Math.min(...x);
-  const x1 = Math.max(...x);
-  const knotY = co2.intercept + co2.slopeBefore * fit.knot;
   return {
     ...spec,
     found: true,
     timeS,
     vo2MlMin: fit.knot,
-    evidence: {
-      xName: 'vo2MlMin',
-      yName: 'vco2MlMin',
-      window: [x0, x1],
-      segments: [
-        { x0, x1: fit.knot, slope: co2.slopeBefore, intercept: co2.intercept },
-        { x0: fit.knot, x1, slope: co2.slopeAfter, intercept: knotY - co2.slopeAfter * fit.knot },
-      ],
-      residualSumSquares: co2.rss,
-      points: fit.n,
-    },
+    evidence: hingeEvidence('vo2MlMin', 'vco2MlMin', [Math.min(...x), Math.max(...x)], { knot: fit.knot, intercept: co2.intercept, slopeBefore: co2.slopeBefore, slopeAfter: co2.slopeAfter, rss: co2.rss, n: fit.n }),
   };
 };

@@ -43,6 +43,8 @@ describe('findThresholds', () => {
     expect(vt1.ci95Vo2MlMin).toBeNull();
   });
 
+  // The window rules stated in find-thresholds.ts (our choice, docs/methods.md "Search windows"),
+  // checked point by point against the series' own times.
   it('VT1 window: the last minute of a warm-up joins, the first minute of the ramp is blanked', () => {
     const s = syntheticSeries();
     const withWarmup: Phases = { ...phases, phases: [{ name: 'warmup', startS: INC_START_S - 180, endS: INC_START_S }] };
@@ -64,6 +66,7 @@ describe('findThresholds', () => {
   it('VT1 bound: the latest preliminary VT2 method plus the margin, within the phase', () => {
     const outcome = (timeS: number) => ({ method: 'm', label: 'm', source: 's', found: true as const, timeS, vo2MlMin: 2000, evidence: { xName: 't', yName: 'y', window: [0, 1] as [number, number], segments: [], residualSumSquares: 0, points: 10 } });
     const estimate = (times: number[]): ThresholdEstimate => ({ methods: times.map(outcome), consensus: null, ci95Vo2MlMin: null, ci95TimeS: null, spreadVo2MlMin: null, methodsDisagree: false, reason: null });
+    // Worked by hand: latest of 500, 560, 530 s is 560; + 30 s margin = 590 s; 890 + 30 is capped at the phase end 900 s.
     expect(vt2Bound(estimate([500, 560, 530]), 900)).toBe(560 + VT2_BOUND_MARGIN_S);
     expect(vt2Bound(estimate([890]), 900)).toBe(900);
     expect(vt2Bound(estimate([]), 900)).toBeNull();

@@ -36,6 +36,18 @@ function created() {
   return result.value;
 }
 
+/** A new case, reopened, with one sign-off entry appended (not yet saved). */
+function createdWithEntry() {
+  const summary = created();
+  const opened = store.open(summary.caseId);
+  if (!opened.ok) throw new Error(opened.error.message);
+  const caseFile = caseFromText(opened.value.caseJson, 'case');
+  if (!caseFile.ok) throw new Error(caseFile.error.message);
+  const next = appendEntry(caseFile.value, { at: '2026-03-09T09:00:00Z', who: 'R. Okafor', role: 'physiologist', reason: 'checked', action: { kind: 'sign-off', statement: 'Reviewed.' } });
+  if (!next.ok) throw new Error(next.error.message);
+  return { summary, next };
+}
+
 describe('case store', () => {
   it('names a case by its creation time and a random suffix', () => {
     // 2026-03-09T08:10:00Z → date 20260309, time 081000.
@@ -65,13 +77,7 @@ describe('case store', () => {
   });
 
   it('saves a case with a new reviewer entry, and it is there on reopening', () => {
-    const summary = created();
-    const opened = store.open(summary.caseId);
-    if (!opened.ok) throw new Error(opened.error.message);
-    const caseFile = caseFromText(opened.value.caseJson, 'case');
-    if (!caseFile.ok) throw new Error(caseFile.error.message);
-    const next = appendEntry(caseFile.value, { at: '2026-03-09T09:00:00Z', who: 'R. Okafor', role: 'physiologist', reason: 'checked', action: { kind: 'sign-off', statement: 'Reviewed.' } });
-    if (!next.ok) throw new Error(next.error.message);
+    const { summary, next } = createdWithEntry();
     const saved = store.save(summary.caseId, caseToText(next.value));
     expect(saved.ok).toBe(true);
     const again = store.open(summary.caseId);
@@ -81,13 +87,7 @@ describe('case store', () => {
   });
 
   it('refuses to save a case whose log entry was edited, and keeps the saved one', () => {
-    const summary = created();
-    const opened = store.open(summary.caseId);
-    if (!opened.ok) throw new Error(opened.error.message);
-    const caseFile = caseFromText(opened.value.caseJson, 'case');
-    if (!caseFile.ok) throw new Error(caseFile.error.message);
-    const next = appendEntry(caseFile.value, { at: '2026-03-09T09:00:00Z', who: 'R. Okafor', role: 'physiologist', reason: 'checked', action: { kind: 'sign-off', statement: 'Reviewed.' } });
-    if (!next.ok) throw new Error(next.error.message);
+    const { summary, next } = createdWithEntry();
     const forged = caseToText(next.value).replace('"reason": "checked"', '"reason": "changed later"');
     const before = readFileSync(join(store.folderOf(summary.caseId), 'twofold-case.json'), 'utf8');
     const result = store.save(summary.caseId, forged);
