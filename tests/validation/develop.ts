@@ -39,3 +39,34 @@ for (const [name, cases] of sets) {
     for (const r of worst) console.log(`worst VT1 ${r.vt1SignedPct.toFixed(1)} % VT2 ${r.vt2SignedPct.toFixed(1)} %: ${r.c.label} seed ${r.c.seed}; ${Object.entries(r.methods).map(([m, v]) => `${m} ${v === null ? '—' : v.toFixed(1)}`).join(', ')}`);
   }
 }
+
+// Candidate VT1/VT2 consensus rules, formed from the methods' own errors (same truth, so the
+// median of errors is the error of the median).
+if (process.env.CAND) {
+  const { median: med, quantile: q } = await import('../../core/math/stats');
+  const subsets: Record<string, string[]> = {
+    'vt1 all': ['vslope-ve', 'vslope', 'vslope-hinge', 've-vo2', 'excess-co2', 'peto2'],
+    'vt1 ve+hinge+excess': ['vslope-ve', 'vslope-hinge', 'excess-co2'],
+    'vt1 ve+hinge': ['vslope-ve', 'vslope-hinge'],
+    'vt1 ve+hinge+vevo2': ['vslope-ve', 'vslope-hinge', 've-vo2'],
+    'vt1 ve+hinge+excess+vevo2': ['vslope-ve', 'vslope-hinge', 'excess-co2', 've-vo2'],
+    'vt1 ve only': ['vslope-ve'],
+    'vt2 all': ['ve-vco2-ratio', 'petco2', 've-vs-vco2'],
+    'vt2 ratio+vsvco2': ['ve-vco2-ratio', 've-vs-vco2'],
+  };
+  for (const [name, cases] of sets) {
+    const results = measureAll(cases);
+    console.log(`\n${name}`);
+    for (const [cand, ms] of Object.entries(subsets)) {
+      const id = cand.slice(0, 3);
+      const errs = results.map((r) => {
+        const v = ms.map((m) => r.methods[`${id} ${m}`]).filter((x): x is number => x !== null && x !== undefined);
+        if (v.length) return med(v);
+        const all = Object.entries(r.methods).filter(([k, x]) => k.startsWith(id) && x !== null).map(([, x]) => x as number);
+        return all.length ? med(all) : 100;
+      });
+      const abs = errs.map(Math.abs);
+      console.log(`${cand}: median ${med(abs).toFixed(1)} p95 ${q(abs, 0.95).toFixed(1)} bias ${med(errs).toFixed(1)}`);
+    }
+  }
+}
