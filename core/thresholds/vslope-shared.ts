@@ -29,7 +29,7 @@ import { windowPoints } from './window';
 export const SMOOTH_HALF_WIDTH_S = 60;
 
 /** Whether the breath-size covariate is removed from VCO2 and VE (docs/validation.md). */
-export const BREATH_SIZE_ADJUST = process.env.BSA !== '0';
+export const BREATH_SIZE_ADJUST = true;
 
 /**
  * VCO2 or VE with the part that moves with VO2's own short-term scatter removed:
