@@ -5,12 +5,13 @@
 import type { BreathTable, Modality } from '../model/breath-table';
 import type { EffortAssessment, PeakValues, Phases, ThresholdResult } from '../model/analysis';
 
-/**
- * An incremental phase shorter than this is flagged: labs aim for about 10 (8–12) min (ERS task
- * force, Palange et al., Eur Respir J 2007), and on generated tests thresholds are clearly less
- * accurate below 8 min (docs/validation.md, "hard" condition).
+import { SHORT_RAMP_S } from '../thresholds/ramp-length';
+
+/*
+ * An incremental phase shorter than SHORT_RAMP_S (8 min) is flagged: labs aim for about 10
+ * (8–12) min (ERS task force, Palange et al., Eur Respir J 2007), and on generated tests
+ * thresholds are clearly less accurate below 8 min (docs/validation.md, "hard" condition).
  */
-export const SHORT_RAMP_S = 8 * 60;
 /** Share of removed breaths above which the data quality is flagged, % (common practice). */
 const REMOVED_WARN_PCT = 5;
 

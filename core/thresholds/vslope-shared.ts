@@ -42,7 +42,7 @@ export const BREATH_SIZE_ADJUST = true;
  * least squares; r is nearly orthogonal to the slow two-segment shape, so it is removed
  * first, after Frisch–Waugh–Lovell, approximately). Our choice, tuned on development seeds.
  */
-function withoutBreathScatter(y: readonly number[], ySmooth: readonly number[], r: readonly number[]): number[] {
+export function withoutBreathScatter(y: readonly number[], ySmooth: readonly number[], r: readonly number[]): number[] {
   let srr = 0;
   let sry = 0;
   for (let i = 0; i < y.length; i++) {

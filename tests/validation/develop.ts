@@ -70,3 +70,9 @@ if (process.env.CAND) {
     }
   }
 }
+
+if (process.env.ORACLE) {
+  const { oracleSummary } = await import('./oracle');
+  const s = oracleSummary(mainCases(k, DEVELOPMENT_FIRST_SEED));
+  console.log(`\noracle (achievable reference, family 1 main, development): VT1 median ${s.median.toFixed(1)} %, p95 ${s.p95.toFixed(1)} %`);
+}

@@ -10,6 +10,7 @@ import { median, quantile } from '../../core/math/stats';
 import type { BreathTable } from '../../core/model/breath-table';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { generateTest } from '../../sample-tests/generator';
+import { findThresholds } from '../../core/thresholds/find-thresholds';
 import type { ValidationCase } from './cases';
 
 export const MISS_ERROR_PCT = 100;
@@ -49,8 +50,19 @@ export interface CaseResult {
   /** Interval width as % of the true VO2, null without an interval. */
   readonly vt1CiWidthPct: number | null;
   readonly vt2CiWidthPct: number | null;
+  /** Interval half-width and the consensus error, mL/min (null without an interval), for calibration. */
+  readonly vt1Calib: Calib | null;
+  readonly vt2Calib: Calib | null;
   /** Each method's signed VO2 error, % (null when that method found nothing). */
   readonly methods: Readonly<Record<string, number | null>>;
+}
+
+export interface Calib {
+  readonly halfMlMin: number;
+  readonly errMlMin: number;
+  readonly vo2MlMin: number;
+  /** The interval's SD parts (only when measured with parts). */
+  readonly parts: { readonly bootSdMlMin: number; readonly methodSdMlMin: number; readonly floorSdMlMin: number } | null;
 }
 
 export interface Summary {
@@ -108,9 +120,10 @@ export function family1(cases: readonly ValidationCase[]): TruthCase[] {
   }));
 }
 
-export function measureCase(c: TruthCase): CaseResult {
+export function measureCase(c: TruthCase, withParts = false): CaseResult {
   const { table, vt1, vt2 } = c.generate();
   const a = analyzeTest(table, DEFAULT_SETTINGS, noClinicalInputs());
+  const parts = withParts ? findThresholds(a.series, a.phases, DEFAULT_SETTINGS) : null;
   const work = (found: number | null | undefined, truth: number | null) => (truth === null || !(truth > 0) ? null : signedPct(found, truth));
   const methods: Record<string, number | null> = {};
   for (const m of a.vt1.methods) methods[`vt1 ${m.method}`] = m.found ? signedPct(m.vo2MlMin, vt1.vo2MlMin) : null;
@@ -129,12 +142,18 @@ export function measureCase(c: TruthCase): CaseResult {
     vt2Covered: covered(a.vt2.ci95Vo2MlMin, vt2.vo2MlMin),
     vt1CiWidthPct: widthPct(a.vt1.ci95Vo2MlMin, vt1.vo2MlMin),
     vt2CiWidthPct: widthPct(a.vt2.ci95Vo2MlMin, vt2.vo2MlMin),
+    vt1Calib: calib(a.vt1.ci95Vo2MlMin, a.vt1.at?.vo2MlMin, vt1.vo2MlMin, parts?.vt1.ciParts ?? null),
+    vt2Calib: calib(a.vt2.ci95Vo2MlMin, a.vt2.at?.vo2MlMin, vt2.vo2MlMin, parts?.vt2.ciParts ?? null),
     methods,
   };
 }
 
-export function measureAll(cases: readonly TruthCase[]): CaseResult[] {
-  return cases.map(measureCase);
+function calib(ci: readonly [number, number] | null, found: number | undefined, truth: number, parts: Calib['parts']): Calib | null {
+  return ci && found !== undefined ? { halfMlMin: (ci[1] - ci[0]) / 2, errMlMin: found - truth, vo2MlMin: found, parts } : null;
+}
+
+export function measureAll(cases: readonly TruthCase[], withParts = false): CaseResult[] {
+  return cases.map((c) => measureCase(c, withParts));
 }
 
 function coverage(values: readonly (boolean | null)[]): number {
