@@ -12,7 +12,7 @@ const k = Number(process.argv[2] ?? 2);
 const fams = (process.argv[3] ?? '1,B').split(',');
 const sets: [string, TruthCase[]][] = [];
 if (fams.includes('1')) sets.push(['f1 main', family1(mainCases(k, DEVELOPMENT_FIRST_SEED))], ['f1 hard', family1(hardCases(k, DEVELOPMENT_FIRST_SEED))]);
-const b = fams.includes('B') ? familyBCases('development', k) : null;
+const b = fams.includes('B') ? familyBCases('development', k * 12) : null;
 if (b) sets.push(['B main', b.filter((c) => c.condition === 'main')], ['B hard', b.filter((c) => c.condition === 'hard')]);
 const results: [string, CaseResult[]][] = sets.map(([n, c]) => [n, measureAll(c, true)]);
 const grid = (name: string, d: string) => (process.env[name] ?? d).split(',').map(Number);

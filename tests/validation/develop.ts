@@ -17,7 +17,7 @@ for (const fam of families) {
     if (which !== 'hard') sets.push(['family 1 main', family1(mainCases(k, DEVELOPMENT_FIRST_SEED))]);
     if (which !== 'main') sets.push(['family 1 hard', family1(hardCases(k, DEVELOPMENT_FIRST_SEED))]);
   } else if (fam === 'B') {
-    const b = familyBCases('development', k);
+    const b = familyBCases('development', k * 12);
     if (b) {
       if (which !== 'hard') sets.push(['family B main', b.filter((c) => c.condition === 'main')]);
       if (which !== 'main') sets.push(['family B hard', b.filter((c) => c.condition === 'hard')]);
