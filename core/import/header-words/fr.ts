@@ -1,0 +1,41 @@
+/** French header words (FC fréquence cardiaque, FR fréquence respiratoire, VC volume courant; common practice). */
+import type { HeaderWords } from './types';
+
+export const FR: HeaderWords = {
+  language: 'fr',
+  name: 'French',
+  columns: {
+    timeS: ['Temps', "Durée", "Temps d'effort"],
+    clock: ['Heure'],
+    vo2MlMin: ["Consommation d'O2", 'Consommation O2'],
+    vco2MlMin: ['Production de CO2', 'Rejet de CO2'],
+    veLMin: ['Débit ventilatoire', 'Ventilation'],
+    hrBpm: ['FC', 'Fréquence cardiaque'],
+    workW: ['Charge', 'Puissance'],
+    speedKmh: ['Vitesse'],
+    gradePct: ['Pente', 'Inclinaison'],
+    peto2Mmhg: ['PO2 fin expiratoire'],
+    petco2Mmhg: ['PCO2 fin expiratoire'],
+    rrPerMin: ['FR', 'Fréquence respiratoire'],
+    vtL: ['VC', 'Volume courant'],
+    vo2MlKgMin: ['VO2 relative'],
+    rer: ['QR', 'Quotient respiratoire'],
+    rpe: ['Effort perçu'],
+    marker: ['Marqueur', 'Événement'],
+    phase: ['Phase', 'Palier', 'Étape'],
+    bloodPressure: ['PA', 'Pression artérielle'],
+  },
+  metadata: {
+    subjectId: ['Patient', 'ID patient', 'Code patient', 'Sujet', 'Identifiant'],
+    date: ['Date', "Date de l'examen", 'Date du test'],
+    clock: ['Heure', 'Heure de début'],
+    ageY: ['Âge', 'Âge (ans)'],
+    sex: ['Sexe'],
+    heightCm: ['Taille'],
+    weightKg: ['Poids'],
+    protocol: ['Protocole'],
+    barometricMmhg: ['Pression barométrique', 'Pression atmosphérique'],
+  },
+  sex: { female: ['f', 'féminin', 'femme'], male: ['h', 'm', 'masculin', 'homme'] },
+  dayFirst: true,
+};

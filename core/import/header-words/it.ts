@@ -1,0 +1,41 @@
+/** Italian header words (FC frequenza cardiaca, FR frequenza respiratoria; `RR` and `PA` are blood pressure; common practice). */
+import type { HeaderWords } from './types';
+
+export const IT: HeaderWords = {
+  language: 'it',
+  name: 'Italian',
+  columns: {
+    timeS: ['Tempo', 'Durata', 'Tempo di test'],
+    clock: ['Ora', 'Orario'],
+    vo2MlMin: ['Consumo di O2', 'Consumo O2'],
+    vco2MlMin: ['Produzione di CO2'],
+    veLMin: ['Ventilazione', 'Ventilazione minuto'],
+    hrBpm: ['FC', 'Frequenza cardiaca'],
+    workW: ['Carico', 'Potenza'],
+    speedKmh: ['Velocità'],
+    gradePct: ['Pendenza', 'Inclinazione'],
+    peto2Mmhg: ['PO2 di fine espirazione'],
+    petco2Mmhg: ['PCO2 di fine espirazione'],
+    rrPerMin: ['FR', 'Frequenza respiratoria'],
+    vtL: ['VC', 'Volume corrente'],
+    vo2MlKgMin: ['VO2 relativo'],
+    rer: ['QR', 'Quoziente respiratorio'],
+    rpe: ['Sforzo percepito'],
+    marker: ['Marcatore', 'Evento'],
+    phase: ['Fase', 'Stadio'],
+    bloodPressure: ['RR', 'PA', 'Pressione arteriosa'],
+  },
+  metadata: {
+    subjectId: ['Paziente', 'ID paziente', 'Codice paziente', 'Soggetto', 'Identificativo'],
+    date: ['Data', 'Data del test', "Data dell'esame"],
+    clock: ['Ora', 'Ora di inizio'],
+    ageY: ['Età', 'Età (anni)'],
+    sex: ['Sesso'],
+    heightCm: ['Altezza', 'Statura'],
+    weightKg: ['Peso'],
+    protocol: ['Protocollo'],
+    barometricMmhg: ['Pressione barometrica', 'Pressione atmosferica'],
+  },
+  sex: { female: ['f', 'femmina', 'femminile', 'donna'], male: ['m', 'maschio', 'maschile', 'uomo'] },
+  dayFirst: true,
+};
