@@ -88,7 +88,7 @@ function firstCell(input: PlanInput, index: number): string | null {
 
 const NOT_USED: Readonly<Record<'marker' | 'phase' | 'bloodPressure', string>> = {
   marker: "the cart's event markers; not used",
-  phase: "the cart's phase or stage labels; not used (Twofold finds the phases from the work rate)",
+  phase: "the cart's phase or stage labels; not used (Twofold finds the phases from the load)",
   bloodPressure: 'a blood pressure; not used',
 };
 

@@ -19,6 +19,7 @@ export const EN: HeaderWords = {
     rrPerMin: ['BF', 'RR', 'fR', 'RF', 'breathing frequency', 'respiratory rate', 'resp rate', 'breaths/min'],
     vtL: ['tidal volume', 'tidal vol'],
     vo2MlKgMin: ['VO2 per kg', 'rel VO2'],
+    rpe: ['perceived exertion', 'exertion'],
     marker: ['marker', 'event'],
     phase: ['phase', 'stage'],
   },
