@@ -23,7 +23,7 @@ import { locatedError, type LocatedError } from '../model/errors';
 import { splitCells, type Delimiter } from './delimiters';
 import { MMHG_PER_KPA } from './units';
 import type { PreambleLine } from './types';
-import { dayFirstIn, metadataKey, metadataMeanings, sexOf } from './header-words/words';
+import { dayFirstIn, metadataKey, metadataMeanings, modalityOf, monthOf, sexOf } from './header-words/words';
 import { languageName, type LanguageCode } from './header-words/index';
 
 export interface MetadataLine {
@@ -150,6 +150,17 @@ function isoDate(value: string, dayFirst = false): string | null {
     if (a > 12 && b <= 12) return validDate(Number(m[3]), b, a);
     if (b > 12 && a <= 12) return validDate(Number(m[3]), a, b);
   }
+  // A written month, in any language of header-words/: `9. März 2026`, `9 de marzo de 2026`, `March 9, 2026`.
+  m = /^(\d{1,2})\.?\s*(?:de\s+)?(\p{L}+)\.?\s*(?:de\s+)?(\d{4})/u.exec(v);
+  if (m) {
+    const month = monthOf(m[2]);
+    if (month !== null) return validDate(Number(m[3]), month, Number(m[1]));
+  }
+  m = /^(\p{L}+)\.?\s+(\d{1,2}),?\s+(\d{4})/u.exec(v);
+  if (m) {
+    const month = monthOf(m[1]);
+    if (month !== null) return validDate(Number(m[3]), month, Number(m[2]));
+  }
   return null;
 }
 
@@ -168,6 +179,8 @@ function clockOf(value: string): string | null {
 
 
 function parseModality(value: string): Modality | null {
+  const named = modalityOf(value);
+  if (named) return named;
   const v = value.trim().toLowerCase();
   if (/cycl|bike|bicycle|ergometer/.test(v)) return 'cycle';
   if (/treadmill|walk|run/.test(v)) return 'treadmill';
@@ -286,7 +299,7 @@ export function parseMetadata(
           break;
         }
         date = d;
-        const c = clockOf(value.slice(10));
+        const c = clockOf(value);
         if (c) startClock = c;
         const v = value.trim();
         out.testStart = /^\d{4}-\d{2}-\d{2}[T ]\d/.test(v) ? v.replace(' ', 'T') : c ? `${d}T${c}` : d;
@@ -300,7 +313,7 @@ export function parseMetadata(
         }
         date = d;
         dateLine = { key: pair.key, value };
-        const c = clockOf(value.slice(10));
+        const c = clockOf(value);
         if (c) clock = c;
         break;
       }

@@ -32,9 +32,12 @@ export const DA: HeaderWords = {
     sex: ['Køn'],
     heightCm: ['Højde'],
     weightKg: ['Vægt'],
+    modality: ['Ergometer', 'Testform'],
     protocol: ['Protokol'],
     barometricMmhg: ['Lufttryk', 'Barometertryk'],
   },
   sex: { female: ['k', 'kvinde', 'kvindelig'], male: ['m', 'mand', 'mandlig'] },
+  months: ['januar', 'februar', 'marts', 'april', 'maj', 'juni', 'juli', 'august', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['cykel', 'cykelergometer'], treadmill: ['løbebånd'] },
   dayFirst: true,
 };

@@ -35,9 +35,12 @@ export const DE: HeaderWords = {
     sex: ['Geschlecht'],
     heightCm: ['Größe', 'Körpergröße'],
     weightKg: ['Gewicht', 'Körpergewicht'],
+    modality: ['Ergometer', 'Belastungsart', 'Ergometrie'],
     protocol: ['Protokoll'],
     barometricMmhg: ['Luftdruck', 'Barometerdruck'],
   },
   sex: { female: ['w', 'weiblich', 'Frau'], male: ['m', 'männlich', 'Mann'] },
+  months: ['Januar', 'Februar', 'März', 'April', 'Mai', 'Juni', 'Juli', 'August', 'September', 'Oktober', 'November', 'Dezember'],
+  modality: { cycle: ['Fahrrad', 'Fahrradergometer', 'Radergometer', 'Rad'], treadmill: ['Laufband', 'Laufbandergometer', 'Gehen', 'Laufen'] },
   dayFirst: true,
 };

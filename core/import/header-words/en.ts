@@ -35,5 +35,7 @@ export const EN: HeaderWords = {
     barometricMmhg: ['barometric', 'barometric pressure', 'pb', 'pbar', 'barometer', 'air pressure'],
   },
   sex: { female: ['f', 'female', 'woman', 'w'], male: ['m', 'male', 'man'] },
+  months: ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'],
+  modality: { cycle: ['cycle', 'cycling', 'bike', 'bicycle', 'ergometer'], treadmill: ['treadmill', 'walk', 'run'] },
   dayFirst: false,
 };

@@ -36,9 +36,12 @@ export const ES: HeaderWords = {
     sex: ['Sexo'],
     heightCm: ['Talla', 'Altura', 'Estatura'],
     weightKg: ['Peso'],
+    modality: ['Ergómetro', 'Modalidad', 'Tipo de prueba'],
     protocol: ['Protocolo'],
     barometricMmhg: ['Presión barométrica', 'Presión atmosférica'],
   },
   sex: { female: ['f', 'm', 'femenino', 'mujer'], male: ['h', 'v', 'm', 'masculino', 'hombre', 'varón'] },
+  months: ['enero', 'febrero', 'marzo', 'abril', 'mayo', 'junio', 'julio', 'agosto', 'septiembre', 'octubre', 'noviembre', 'diciembre'],
+  modality: { cycle: ['cicloergómetro', 'bicicleta', 'bicicleta estática'], treadmill: ['cinta', 'cinta rodante', 'tapiz rodante', 'cinta sin fin'] },
   dayFirst: true,
 };

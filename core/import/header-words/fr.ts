@@ -33,9 +33,12 @@ export const FR: HeaderWords = {
     sex: ['Sexe'],
     heightCm: ['Taille'],
     weightKg: ['Poids'],
+    modality: ['Ergomètre', 'Modalité', 'Type d\'effort'],
     protocol: ['Protocole'],
     barometricMmhg: ['Pression barométrique', 'Pression atmosphérique'],
   },
   sex: { female: ['f', 'féminin', 'femme'], male: ['h', 'm', 'masculin', 'homme'] },
+  months: ['janvier', 'février', 'mars', 'avril', 'mai', 'juin', 'juillet', 'août', 'septembre', 'octobre', 'novembre', 'décembre'],
+  modality: { cycle: ['vélo', 'cycloergomètre', 'ergocycle', 'bicyclette'], treadmill: ['tapis roulant', 'tapis', 'marche', 'course'] },
   dayFirst: true,
 };

@@ -33,9 +33,12 @@ export const IT: HeaderWords = {
     sex: ['Sesso'],
     heightCm: ['Altezza', 'Statura'],
     weightKg: ['Peso'],
+    modality: ['Ergometro', 'Modalità', 'Tipo di test'],
     protocol: ['Protocollo'],
     barometricMmhg: ['Pressione barometrica', 'Pressione atmosferica'],
   },
   sex: { female: ['f', 'femmina', 'femminile', 'donna'], male: ['m', 'maschio', 'maschile', 'uomo'] },
+  months: ['gennaio', 'febbraio', 'marzo', 'aprile', 'maggio', 'giugno', 'luglio', 'agosto', 'settembre', 'ottobre', 'novembre', 'dicembre'],
+  modality: { cycle: ['cicloergometro', 'bicicletta', 'cyclette'], treadmill: ['tapis roulant', 'nastro trasportatore'] },
   dayFirst: true,
 };

@@ -32,9 +32,12 @@ export const NB: HeaderWords = {
     sex: ['Kjønn'],
     heightCm: ['Høyde'],
     weightKg: ['Vekt'],
+    modality: ['Ergometer', 'Testform'],
     protocol: ['Protokoll'],
     barometricMmhg: ['Lufttrykk', 'Barometertrykk'],
   },
   sex: { female: ['k', 'kvinne', 'kvinnelig'], male: ['m', 'mann', 'mannlig'] },
+  months: ['januar', 'februar', 'mars', 'april', 'mai', 'juni', 'juli', 'august', 'september', 'oktober', 'november', 'desember'],
+  modality: { cycle: ['sykkel', 'sykkelergometer'], treadmill: ['tredemølle', 'løpebånd'] },
   dayFirst: true,
 };

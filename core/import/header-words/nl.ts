@@ -32,9 +32,12 @@ export const NL: HeaderWords = {
     sex: ['Geslacht'],
     heightCm: ['Lengte'],
     weightKg: ['Gewicht'],
+    modality: ['Ergometer', 'Modaliteit', 'Testtype'],
     protocol: ['Protocol'],
     barometricMmhg: ['Luchtdruk', 'Barometerdruk'],
   },
   sex: { female: ['v', 'vrouw', 'vrouwelijk'], male: ['m', 'man', 'mannelijk'] },
+  months: ['januari', 'februari', 'maart', 'april', 'mei', 'juni', 'juli', 'augustus', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['fiets', 'fietsergometer'], treadmill: ['loopband'] },
   dayFirst: true,
 };

@@ -32,9 +32,12 @@ export const SV: HeaderWords = {
     sex: ['Kön'],
     heightCm: ['Längd'],
     weightKg: ['Vikt'],
+    modality: ['Ergometer', 'Testform'],
     protocol: ['Protokoll'],
     barometricMmhg: ['Lufttryck', 'Barometertryck'],
   },
   sex: { female: ['k', 'kvinna', 'kvinnlig'], male: ['m', 'man', 'manlig'] },
+  months: ['januari', 'februari', 'mars', 'april', 'maj', 'juni', 'juli', 'augusti', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['cykel', 'cykelergometer'], treadmill: ['löpband', 'gångband'] },
   dayFirst: true,
 };

@@ -17,7 +17,7 @@ export type LanguageCode = 'en' | 'de' | 'fr' | 'es' | 'it' | 'nl' | 'sv' | 'da'
 export type ColumnMeaning = ColumnVariable | 'clock' | 'marker' | 'phase' | 'bloodPressure';
 
 /** Labels of the test's details above the table. `clock` is the time of day the test started. */
-export type MetadataMeaning = 'subjectId' | 'date' | 'clock' | 'ageY' | 'sex' | 'heightCm' | 'weightKg' | 'protocol' | 'barometricMmhg';
+export type MetadataMeaning = 'subjectId' | 'date' | 'clock' | 'ageY' | 'sex' | 'heightCm' | 'weightKg' | 'modality' | 'protocol' | 'barometricMmhg';
 
 export interface HeaderWords {
   readonly language: LanguageCode;
@@ -27,6 +27,10 @@ export interface HeaderWords {
   readonly metadata: Readonly<Partial<Record<MetadataMeaning, readonly string[]>>>;
   /** Values of a sex label (single letters included), as this language writes them. */
   readonly sex: { readonly female: readonly string[]; readonly male: readonly string[] };
+  /** The months January to December, written out (a date `9. März 2026` is read with them). */
+  readonly months: readonly string[];
+  /** Words in a modality value (`Fahrradergometer`, `tapis roulant`) for each modality. */
+  readonly modality: { readonly cycle: readonly string[]; readonly treadmill: readonly string[] };
   /** True when `a/b/yyyy` in this language puts the day first (`09/03/2026` is 9 March). */
   readonly dayFirst: boolean;
 }

@@ -165,3 +165,37 @@ export function sexOf(value: string, languages: readonly LanguageCode[]): 'F' | 
 export function dayFirstIn(languages: readonly LanguageCode[]): boolean {
   return languages.length > 0 && languages.every((code) => LANGUAGES.find((l) => l.language === code)?.dayFirst === true);
 }
+
+const MONTHS: readonly { readonly word: string; readonly month: number }[] = LANGUAGES.flatMap((l) => l.months.map((m, i) => ({ word: foldWord(m), month: i + 1 })));
+
+/**
+ * The month (1–12) a written month names in any of the languages, whole or shortened to at
+ * least three letters (`März`, `mrz` no, `mar`, `févr.`, `dic`); null when it names none or
+ * two different months (`jui` is juin or juillet).
+ */
+export function monthOf(word: string): number | null {
+  const w = foldWord(word);
+  if (w.length < 3) return null;
+  const found = new Set(MONTHS.filter((m) => m.word === w || m.word.startsWith(w)).map((m) => m.month));
+  return found.size === 1 ? [...found][0] : null;
+}
+
+function containsWord(folded: string, words: readonly string[], value: string): boolean {
+  const tokens = value.split(/[^\p{L}]+/u).map(foldWord);
+  return words.some((w) => {
+    const f = foldWord(w);
+    return f.length >= 4 ? folded.includes(f) : tokens.includes(f);
+  });
+}
+
+/**
+ * The modality a value names with the languages' words (treadmill words first, so a German
+ * `Laufbandergometer` is a treadmill, not an ergometer); null when none is named.
+ */
+export function modalityOf(value: string): 'cycle' | 'treadmill' | null {
+  const folded = foldWord(value);
+  const others = LANGUAGES.filter((l) => l.language !== 'en');
+  if (others.some((l) => containsWord(folded, l.modality.treadmill, value))) return 'treadmill';
+  if (others.some((l) => containsWord(folded, l.modality.cycle, value))) return 'cycle';
+  return null;
+}

@@ -143,3 +143,40 @@ describe('metadata labels in the file’s languages', () => {
     expect(metadataMeanings('Körpergröße', ['de']).meanings).toEqual(['heightCm']);
   });
 });
+
+describe('written months and modality words', () => {
+  test.each([
+    ['Datum: 9. März 2026 09:10', 'de'],
+    ['Date : 9 mars 2026 09:10', 'fr'],
+    ['Fecha: 9 de marzo de 2026 09:10', 'es'],
+    ['Data: 9 marzo 2026 09:10', 'it'],
+    ['Datum: 9 maart 2026 09:10', 'nl'],
+    ['Datum: 9 mars 2026 09:10', 'sv'],
+    ['Dato: 9. marts 2026 09:10', 'da'],
+    ['Dato: 9. mars 2026 09:10', 'nb'],
+    ['Date: March 9, 2026 09:10', 'en'],
+    ['Datum: 9.3.2026 9:10', 'de'],
+  ] as const)('%s', (line, lang) => {
+    const m = parseMetadata(lines([line]), null, 'm.txt', false, [lang]);
+    expect(m.metadata.testStart).toBe('2026-03-09T09:10:00');
+    expect(m.warnings).toEqual([]);
+  });
+
+  test('a shortened month that could be two months is not read', () => {
+    // `jui` begins both juin (June) and juillet (July)
+    const m = parseMetadata(lines(['Date: 9 jui 2026']), null, 'm.txt', false, ['fr']);
+    expect(m.metadata.testStart).toBeNull();
+    expect(m.warnings.map((w) => w.code)).toEqual(['metadata-unreadable']);
+  });
+
+  test('modality words of each language; a treadmill ergometer is a treadmill', () => {
+    const modality = (line: string, lang: 'de' | 'fr' | 'es' | 'nl' | 'sv' | 'nb') => parseMetadata(lines([line]), null, 'm.txt', false, [lang]).metadata.modality;
+    expect(modality('Ergometer: Fahrradergometer', 'de')).toBe('cycle');
+    expect(modality('Ergometer: Laufbandergometer', 'de')).toBe('treadmill');
+    expect(modality('Ergomètre : tapis roulant', 'fr')).toBe('treadmill');
+    expect(modality('Ergómetro: cicloergómetro', 'es')).toBe('cycle');
+    expect(modality('Ergometer: loopband', 'nl')).toBe('treadmill');
+    expect(modality('Testform: cykel', 'sv')).toBe('cycle');
+    expect(modality('Testform: tredemølle', 'nb')).toBe('treadmill');
+  });
+});
