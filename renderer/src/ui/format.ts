@@ -12,6 +12,12 @@ export function setDisplayLocale(tag: string): void {
   current = localeByTag(tag);
 }
 
+/** Plotly's `separators`: the decimal mark, then the thousands separator (a space for a no-break space). */
+export function chartSeparators(): string {
+  const thousands = current.thousands === '' ? (current.decimal === '.' ? ',' : '.') : current.thousands === '\u00a0' ? ' ' : current.thousands;
+  return `${current.decimal}${thousands}`;
+}
+
 export function fmt(value: number | null | undefined, digits = 0, unit = ''): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   const text = formatFixed(value, digits, current);
