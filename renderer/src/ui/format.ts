@@ -4,6 +4,7 @@
  * renders the screens, so every screen of one render uses the same one.
  */
 import { formatDateTime, formatFixed } from '../../../core/locale/format-number';
+import { localizeProse } from '../../../core/report/format';
 import { localeByTag, type ReportLocale } from '../../../core/locale/locales';
 
 let current: ReportLocale = localeByTag('en-GB');
@@ -41,3 +42,9 @@ export function clock(timeS: number | null | undefined): string {
 export function when(iso: string | null | undefined): string {
   return iso ? formatDateTime(iso, current) : '—';
 }
+
+/** An English sentence made by core (the summary) with its decimal numbers in the workbench's locale. */
+export function prose(text: string): string {
+  return localizeProse(text, current);
+}
+

@@ -33,8 +33,8 @@ export function LocalePicker({ value, onChange }: { readonly value: string; read
       Numbers
       <select aria-label="Number and date format" data-testid="locale" value={value} onChange={(e) => onChange(e.target.value)}>
         {REPORT_LOCALES.map((l) => (
-          <option key={l.tag} value={l.tag}>
-            {l.tag} · {l.name}
+          <option key={l.tag} value={l.tag} title={l.name}>
+            {l.tag === 'en' ? 'en (ISO)' : l.tag}
           </option>
         ))}
       </select>

@@ -2,7 +2,7 @@
 // de-DE decimal comma and `.` thousands, en-GB decimal point and `,` thousands); the default
 // comes from navigator.language. Expected strings worked by hand.
 import { afterEach, describe, expect, test, vi } from 'vitest';
-import { chartSeparators, fmt, setDisplayLocale, signed, when } from '../../../../renderer/src/ui/format';
+import { chartSeparators, fmt, prose, setDisplayLocale, signed, when } from '../../../../renderer/src/ui/format';
 import { initialLocale } from '../../../../renderer/src/ui/locale';
 
 afterEach(() => {
@@ -24,6 +24,7 @@ describe('screen numbers in the workbench locale', () => {
     expect(signed(-5.38, 2)).toBe('−5,38');
     expect(when('2026-03-09T09:10:00+01:00')).toBe('09.03.2026 09:10 (UTC+01:00)');
     expect(chartSeparators()).toBe(',.');
+    expect(prose('The tests were 24.3 h apart (Weir 2005).')).toBe('The tests were 24,3 h apart (Weir 2005).');
   });
 
   test('the default comes from the browser language; a stored choice wins', () => {
