@@ -1,10 +1,11 @@
 /**
  * Everything `twofold verify` checks, in order, each step a plain statement:
  * the signature (valid, covering the whole file), the embedded files (present, their SHA-256
- * matching the case file), the case file (schema and reviewer-log chain), and the numbers
+ * matching the case file), the case file (schema and reviewer-log chain), the numbers
  * (recomputed from the embedded raw files, each read with the column map the embedded case
- * file records for it, the settings and reviewer log, equal to the recorded ones). The
- * report passes only when every step holds.
+ * file records for it, the settings and reviewer log, equal to the recorded ones), and the
+ * printed comparison figures read back in the locale the case records (printed-numbers.ts).
+ * The report passes only when every step holds.
  */
 import { columnMapOf } from '../core/case/case-file';
 import { caseFromText } from '../core/case/case-text';
@@ -16,6 +17,8 @@ import { SOFTWARE_VERSION } from '../core/version';
 import { verifySignature } from '../core/report/verify-signature';
 import { cachedEngine } from './cached-engine';
 import { embeddedFiles } from './pdf-attachments';
+import { pdfText } from './pdf-text';
+import { checkPrintedNumbers } from './printed-numbers';
 
 export interface VerifyStep {
   readonly ok: boolean;
@@ -74,5 +77,13 @@ export function verifyReport(pdf: Uint8Array, file: string): VerifyOutcome {
     const version = caseFile.recorded.softwareVersion !== SOFTWARE_VERSION ? ` The report was made by version ${caseFile.recorded.softwareVersion}; this is ${SOFTWARE_VERSION}.` : '';
     return done(false, `Numbers: recomputing does not give the recorded results (${differing.length} of ${Object.keys(caseFile.recorded.numbers).length} numbers differ${named.length ? `: ${named.join('; ')}` : '; the full-result digest differs'}).${version}`);
   }
-  return done(true, `Numbers: all ${Object.keys(caseFile.recorded.numbers).length} recorded numbers and the full-result digest reproduced from the embedded files, settings and reviewer log.`);
+  steps.push({ ok: true, what: `Numbers: all ${Object.keys(caseFile.recorded.numbers).length} recorded numbers and the full-result digest reproduced from the embedded files, settings and reviewer log.` });
+
+  // The printed comparison figures, read back in the locale the case records.
+  const locale = caseFile.reportLocale ?? 'en';
+  const text = pdfText(pdf);
+  if (text === null) return done(true, `Printed figures: not read back (pdftotext from poppler-utils is not installed); the report states its numbers in ${locale}.`);
+  const printed = checkPrintedNumbers(text, outcome.value.comparison, caseFile.reportLocale);
+  if (!printed.ok) return done(false, `Printed figures: read in ${locale}, ${printed.problems.length} of ${printed.checked} comparison figures do not match (${printed.problems.slice(0, 3).join('; ')}).`);
+  return done(true, `Printed figures: all ${printed.checked} day 1 and day 2 figures of the comparison table read back in ${locale} equal the recomputed values.`);
 }

@@ -5,6 +5,7 @@
  */
 import { writeBreathCsv } from '../core/export/breath-csv';
 import { generateTest, type TestTruth } from './generator';
+import { LAB_LANGUAGES, writeLabLanguage } from './layout-writers/lab-languages';
 import { writeNarrativeSemicolon } from './layout-writers/narrative-semicolon';
 import { writeQuotedUtf16 } from './layout-writers/quoted-utf16';
 import { writeTabbedUnitsClock } from './layout-writers/tabbed-units-clock';
@@ -47,6 +48,7 @@ export async function buildSampleFiles(): Promise<SampleFile[]> {
         files.push({ path: `layouts/tabbed-units-clock/${test.name}.tsv`, bytes: utf8(writeTabbedUnitsClock(table)) });
         files.push({ path: `layouts/quoted-utf16/${test.name}.csv`, bytes: writeQuotedUtf16(table) });
         files.push({ path: `layouts/workbook/${test.name}.xlsx`, bytes: await writeWorkbook(table, LAB_NAME) });
+        for (const language of LAB_LANGUAGES) files.push({ path: `languages/${language}/${test.name}.csv`, bytes: utf8(writeLabLanguage(table, language)) });
       }
     }
   }

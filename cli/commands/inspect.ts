@@ -13,6 +13,7 @@ import { readBreathFile } from '../../core/import/read-table';
 import type { ImportResult } from '../../core/import/types';
 import { delimiterName } from '../../core/import/delimiters';
 import { formatSeconds } from '../../core/import/time-format';
+import { languageName } from '../../core/import/header-words/index';
 import { parseFlags } from '../args';
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_OTHER, UsageError, type CliIo } from '../io';
 
@@ -51,6 +52,7 @@ function textReport(result: ImportResult): string {
   const widthHeader = Math.max(6, ...columns.map((c) => c.header.length));
   const lines = [
     `${table.sourceName}: ${where}, decimal mark '${layout.decimal}', header on line ${layout.headerLine}${layout.unitsLine ? `, units on line ${layout.unitsLine}` : ''}`,
+    `header words: ${layout.languages.length === 0 ? 'trade abbreviations only (no language)' : layout.languages.map((l) => `${languageName(l)} (${l})`).join(' or ')}`,
     '',
     `  ${'#'.padStart(3)}  ${'header'.padEnd(widthHeader)}  ${'variable'.padEnd(11)}  unit`,
     ...columns.map(

@@ -2,7 +2,7 @@
  * `twofold report`: build the PDF report of a pair, and sign it with the lab's certificate.
  *
  *   twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
- *                  [--reviewer "Name, credential"] [--paper a4|letter]
+ *                  [--reviewer "Name, credential"] [--paper a4|letter] [--locale TAG]
  *                  [--dayN-rest-hr BPM --dayN-lactate MMOL --dayN-rpe N
  *                   --dayN-fev1-l L | --dayN-mvv-l-min L_MIN] [--amend-clinical]
  *
@@ -18,6 +18,9 @@
  * applied only with --amend-clinical, and only while the reviewer log is empty, since the
  * log's first entry is chained to the clinical inputs (core/case/audit-log.ts) and changing
  * them would break the chain. Every amendment is printed, value by value.
+ * The report writes its numbers and dates in a locale (core/locale/): --locale, else the one
+ * a reopened case records, else the environment's (LC_ALL, LC_NUMERIC, LANG); the case
+ * records it, so `twofold verify` reads the printed numbers back in it.
  * Exit 0 when the report was written, 2 for bad input, 1 otherwise.
  */
 import { existsSync, readFileSync } from 'node:fs';
@@ -35,9 +38,10 @@ import { readRaw, runReportJob } from '../../host/report-job';
 import { numberFlag, parseFlags } from '../args';
 import { differingMaps, readMapFlags } from '../column-maps';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
+import { localeFromEnvironment, REPORT_LOCALES, resolveLocale } from '../../core/locale/locales';
 
 const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
-                      [--reviewer "Name, credential"] [--paper a4|letter]
+                      [--reviewer "Name, credential"] [--paper a4|letter] [--locale TAG]
                       [--day1-rest-hr BPM] [--day1-lactate MMOL] [--day1-rpe N]
                       [--day1-fev1-l L | --day1-mvv-l-min L_MIN]   (and the same for --day2-…)
                       [--amend-clinical] [--day1-map MAP.json] [--day2-map MAP.json]
@@ -50,6 +54,9 @@ const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] 
                     (without it, Twofold asks on the terminal)
   --reviewer TEXT   "Name, credential" printed in the signature block
   --paper a4|letter page size for a new case (default a4)
+  --locale TAG      decimal mark, thousands separator and date order of the report's
+                    numbers and dates, e.g. de-DE, fr-FR, sv-SE, en-GB, or en (neutral:
+                    decimal point, ISO dates). Default: the case's, else LC_ALL/LC_NUMERIC/LANG
 
   What the lab recorded beside each breath file (N is 1 or 2):
   --dayN-rest-hr BPM      resting heart rate, bpm (20–200)
@@ -163,6 +170,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     'amend-clinical': { type: 'boolean' },
     'day1-map': { type: 'string' },
     'day2-map': { type: 'string' },
+    locale: { type: 'string' },
     ...clinicalOptions(),
     help: { type: 'boolean', short: 'h' },
   });
@@ -173,6 +181,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 2 || !values.out) throw new UsageError(`expected DAY1 DAY2 and --out\n\n${USAGE}`);
   if (values.paper !== undefined && values.paper !== 'a4' && values.paper !== 'letter') throw new UsageError(`--paper expects a4 or letter, got '${values.paper}'`);
   if (values['pass-env'] && !values.sign) throw new UsageError('--pass-env needs --sign FILE.p12');
+  const givenLocale = values.locale === undefined ? null : resolveLocale(values.locale);
+  if (values.locale !== undefined && givenLocale === null) throw new UsageError(`--locale: Twofold has no number and date format for '${values.locale}' (known: ${REPORT_LOCALES.map((l) => l.tag).join(', ')})`);
   const given: Record<DayNumber, GivenClinical> = { 1: givenClinical(values, 1), 2: givenClinical(values, 2) };
   if (values['amend-clinical'] && Object.keys(given[1]).length + Object.keys(given[2]).length === 0) {
     throw new UsageError('--amend-clinical needs at least one --day1-… or --day2-… clinical input to change');
@@ -245,6 +255,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     caseFile = newCase(at, { ...day1, columnMap: maps.maps[1] }, { ...day2, columnMap: maps.maps[2] }, { ...DEFAULT_SETTINGS, report: { paper } }, { day1: { ...noClinicalInputs(), ...given[1] }, day2: { ...noClinicalInputs(), ...given[2] } });
   }
 
+  caseFile = { ...caseFile, reportLocale: givenLocale?.tag ?? caseFile.reportLocale ?? localeFromEnvironment(io.env) };
+
   let certificate = null;
   if (values.sign) {
     const p12Path = resolve(io.cwd, values.sign);
@@ -270,6 +282,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     [
       `report  ${result.value.outPath} (${result.value.bytes} bytes, ${certificate ? 'signed' : 'unsigned'})`,
       `case    ${result.value.casePath}`,
+      `locale  ${result.value.caseFile.reportLocale ?? 'en'} (numbers and dates in the report)`,
       ...amended.map((c) => `amended ${describeChange(c)}`),
       'clinical inputs used:',
       `  ${clinicalLine(1, clinical.day1)}`,

@@ -106,4 +106,10 @@ export interface CaseFile {
   readonly clinical: { readonly day1: ClinicalInputs; readonly day2: ClinicalInputs };
   readonly log: readonly AuditEntry[];
   readonly recorded: RecordedResults | null;
+  /**
+   * The locale (core/locale/locales.ts, e.g. `de-DE`) the report writes its numbers and dates
+   * in, and `twofold verify` reads them back in. Presentation only: no number depends on it.
+   * Absent in case files written before it existed, which read as the neutral `en`.
+   */
+  readonly reportLocale?: string;
 }

@@ -7,6 +7,7 @@ import { settingsSchema } from '../analyze/settings-input';
 import { parseMapping } from '../import/mapping';
 import { z } from 'zod';
 import { CASE_FORMAT, CASE_VERSION } from './case-file';
+import { resolveLocale } from '../locale/locales';
 
 const num = z.number().finite();
 const nullableNum = num.nullable();
@@ -70,4 +71,9 @@ export const caseSchema = z.object({
   clinical: z.object({ day1: clinicalSchema, day2: clinicalSchema }),
   log: z.array(entrySchema),
   recorded: z.object({ softwareVersion: z.string(), digest: sha, numbers: z.record(z.string(), leaf) }).nullable(),
+  // Absent in case files written before it existed: read as the neutral `en`.
+  reportLocale: z
+    .string()
+    .refine((tag) => resolveLocale(tag) !== null, 'a locale Twofold knows (see docs/locale.md)')
+    .optional(),
 });

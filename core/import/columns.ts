@@ -12,8 +12,10 @@ import { parseNumber, type DecimalMark } from './numbers';
 import { classifyTime } from './time-format';
 import type { ColumnVariable, TimeFormat } from './types';
 import { inferUnit, knownUnitLabels, onlyUnit, parseUnit, type UnitSpec } from './units';
-import { isClockName, normalizeName, readHeaderCell } from './variables';
+import { isClockName, normalizeName, PLAIN_LAYOUT_COLUMNS, readHeaderCell } from './variables';
 import { unitCell } from './header';
+import { columnEntries, readHeaderWords, type CellReading } from './header-words/words';
+import { languageName, type ColumnMeaning, type LanguageCode } from './header-words/index';
 
 export interface ColumnPlan {
   /** 0-based cell index. */
@@ -29,6 +31,8 @@ export interface TablePlan {
   readonly columns: readonly ColumnPlan[];
   readonly timeFormat: TimeFormat;
   readonly warnings: readonly LocatedError[];
+  /** The languages whose header words the row is written in (header-words/), empty when only trade abbreviations matched. */
+  readonly languages: readonly LanguageCode[];
 }
 
 export interface PlanInput {
@@ -82,11 +86,48 @@ function firstCell(input: PlanInput, index: number): string | null {
   return null;
 }
 
+const NOT_USED: Readonly<Record<'marker' | 'phase' | 'bloodPressure', string>> = {
+  marker: "the cart's event markers; not used",
+  phase: "the cart's phase or stage labels; not used (Twofold finds the phases from the load)",
+  bloodPressure: 'a blood pressure; not used',
+};
+
+function meaningLabel(m: ColumnMeaning): string {
+  return m === 'clock' ? 'time of day' : m === 'marker' ? 'event marker' : m === 'phase' ? 'phase label' : m === 'bloodPressure' ? 'blood pressure' : LABELS[m];
+}
+
+function languagesText(codes: readonly string[]): string {
+  return codes.map((c) => (c === 'trade' ? 'the trade abbreviation' : languageName(c as LanguageCode))).join(' and ');
+}
+
+/** A note for a column whose word means something else in a language the row is not written in. */
+function otherReadings(name: string, reading: CellReading): string {
+  const others = columnEntries(name).filter((e) => e.meaning !== reading.meaning && !reading.languages.includes(e.language));
+  if (others.length === 0) return '';
+  const o = others[0];
+  return ` (read in ${languagesText(reading.languages)}; in ${languagesText([o.language])} it would be ${meaningLabel(o.meaning)}: if that is meant, name it in a column map)`;
+}
+
 export function planColumns(input: PlanInput): Result<TablePlan> {
   const { file, headerLine } = input;
   const warnings: LocatedError[] = [];
   const mapped = new Map<string, ColumnMapping['columns'][number]>();
   for (const entry of input.mapping?.columns ?? []) mapped.set(normalizeName(entry.header), entry);
+  const plainRow = input.headerCells.every((c) => PLAIN_LAYOUT_COLUMNS[c.trim().toLowerCase()] !== undefined);
+  const words = readHeaderWords(plainRow ? [] : input.headerCells);
+  for (const a of words.ambiguities) {
+    if (mapped.has(normalizeName(a.header))) continue;
+    const readings = a.readings.map((r) => `${meaningLabel(r.meaning)} in ${languagesText(r.languages)}`).join(', or ');
+    return fail(
+      locatedError(
+        'ambiguous-header',
+        file,
+        headerLine,
+        a.index + 1,
+        `Column '${a.header}' can be read two ways: ${readings}; the other columns do not tell which language the file is written in, so Twofold does not choose. Name the column in a column map (twofold inspect --mapping).`,
+      ),
+    );
+  }
   const seen = new Map<ColumnVariable, number>();
   const columns: ColumnPlan[] = [];
   let timeFormat: TimeFormat = 'seconds';
@@ -95,11 +136,16 @@ export function planColumns(input: PlanInput): Result<TablePlan> {
     const header = input.headerCells[i].trim();
     const fromMap = mapped.get(normalizeName(header));
     const read = readHeaderCell(header);
-    let variable: ColumnVariable | null = fromMap ? fromMap.variable : read.variable;
+    const word: CellReading = words.cells[i] ?? { meaning: null, languages: [] };
+    const meaning = word.meaning;
+    const wordVariable: ColumnVariable | null = meaning === 'clock' ? 'timeS' : meaning === 'marker' || meaning === 'phase' || meaning === 'bloodPressure' ? null : meaning;
+    const plainVariable = PLAIN_LAYOUT_COLUMNS[header.toLowerCase()]?.variable ?? null;
+    let variable: ColumnVariable | null = fromMap ? fromMap.variable : (plainVariable ?? (meaning !== null ? wordVariable : read.variable));
     const unitText = fromMap?.unit ? fromMap.unit : (read.unit ?? unitCell(input.unitCells?.[i]));
     if (header === '' && variable === null) continue;
     if (variable === null) {
-      columns.push({ index: i, header, variable: null, unit: null, unitInferred: false, note: fromMap ? 'ignored by the column map' : 'not a variable Twofold uses' });
+      const known = !fromMap && (meaning === 'marker' || meaning === 'phase' || meaning === 'bloodPressure') ? NOT_USED[meaning] + otherReadings(read.name, word) : null;
+      columns.push({ index: i, header, variable: null, unit: null, unitInferred: false, note: fromMap ? 'ignored by the column map' : (known ?? 'not a variable Twofold uses') });
       continue;
     }
     let unit: UnitSpec | null = null;
@@ -130,7 +176,7 @@ export function planColumns(input: PlanInput): Result<TablePlan> {
 
     if (variable === 'timeS') {
       const cell = firstCell(input, i);
-      const format = cell === null ? null : classifyTime(cell, unit?.label ?? null, isClockName(read.name) || unit?.label === 'clock');
+      const format = cell === null ? null : classifyTime(cell, unit?.label ?? null, isClockName(read.name) || (!fromMap && meaning === 'clock') || unit?.label === 'clock');
       if (format === null) {
         return fail(locatedError('time-unreadable', file, headerLine, i + 1, `Column '${header}' should hold the time of each breath, but it has no readable time.`));
       }
@@ -171,7 +217,8 @@ export function planColumns(input: PlanInput): Result<TablePlan> {
         warnings.push(locatedError('unit-inferred', file, headerLine, i + 1, `Column '${header}' gives no unit; ${guess.reason}.`));
       }
     }
-    columns.push({ index: i, header, variable, unit, unitInferred, note: fromMap ? 'set by the column map' : null });
+    const otherNote = !fromMap && plainVariable === null && meaning !== null ? otherReadings(read.name, word) : '';
+    columns.push({ index: i, header, variable, unit, unitInferred, note: fromMap ? 'set by the column map' : otherNote !== '' ? otherNote.trim().replace(/^\((.*)\)$/, '$1') : null });
   }
 
   for (const entry of input.mapping?.columns ?? []) {
@@ -197,6 +244,6 @@ export function planColumns(input: PlanInput): Result<TablePlan> {
       ),
     );
   }
-  return ok({ columns, timeFormat, warnings });
+  return ok({ columns, timeFormat, warnings, languages: words.languages });
 }
 

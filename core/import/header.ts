@@ -1,23 +1,29 @@
 /**
  * Finding the table in a file: the header is the first row in which several cells (three
- * or more) name variables Twofold knows, or headers the column map names; a units row is
+ * or more) name variables Twofold knows (in any language of header-words/), or headers the column map names; a units row is
  * the row directly under it when none of its cells is a number and at least one is a unit.
  * Everything above the header is the metadata block (metadata.ts).
  */
 import { DELIMITERS, splitCells, type Delimiter } from './delimiters';
-import { normalizeName, readHeaderCell } from './variables';
+import { normalizeName, readHeaderCell, splitHeader } from './variables';
+import { columnEntries } from './header-words/words';
 import { normalizeUnit } from './units';
 
 /** Fewest recognised cells that make a row the header (time plus the gases is four). */
 export const HEADER_MIN_KNOWN = 3;
 
-/** How many cells of a row name a known variable or a mapped header. */
+/** True when a header cell names a variable in some language's header words (header-words/). */
+function namesVariableInSomeLanguage(cell: string): boolean {
+  return columnEntries(splitHeader(cell).name).some((e) => e.meaning !== 'marker' && e.meaning !== 'phase' && e.meaning !== 'bloodPressure');
+}
+
+/** How many cells of a row name a known variable (in any language) or a mapped header. */
 export function headerScore(cells: readonly string[], mappedHeaders: ReadonlySet<string>): number {
   let n = 0;
   for (const cell of cells) {
     if (cell.trim() === '') continue;
     if (mappedHeaders.has(normalizeName(cell))) n++;
-    else if (readHeaderCell(cell).variable !== null) n++;
+    else if (readHeaderCell(cell).variable !== null || namesVariableInSomeLanguage(cell)) n++;
   }
   return n;
 }

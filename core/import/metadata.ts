@@ -7,14 +7,24 @@
  * every other pair is kept verbatim in `extra`. A known key with an unreadable value is a
  * warning and the pair is kept in `extra`.
  *
+ * Labels are read in English and in the languages the header row is written in
+ * (header-words/; every language when the header names none); a label that means two
+ * different things in those languages is a warning, kept in extra. Sex values are read in
+ * the same languages (`w` weiblich, `K` kvinna; Spanish `M` is masculino or mujer and is not
+ * read).
+ *
  * Dates: ISO 8601 (`2026-03-02`, `2026-03-02T09:15:00`), `dd.mm.yyyy`, and `a/b/yyyy` when
  * one part is above 12 (otherwise day and month cannot be told apart: warning, kept in extra).
+ * When every language of the header writes the day first (all but English), `a/b/yyyy` and
+ * `dd-mm-yyyy` are read day first: `09/03/2026` in a French file is 9 March.
  */
-import { emptyMetadata, type Modality, type Sex, type TestMetadata } from '../model/breath-table';
+import { emptyMetadata, type Modality, type TestMetadata } from '../model/breath-table';
 import { locatedError, type LocatedError } from '../model/errors';
 import { splitCells, type Delimiter } from './delimiters';
 import { MMHG_PER_KPA } from './units';
 import type { PreambleLine } from './types';
+import { dayFirstIn, metadataKey, metadataMeanings, modalityOf, monthOf, sexOf } from './header-words/words';
+import { languageName, type LanguageCode } from './header-words/index';
 
 export interface MetadataLine {
   /** 1-based line of the file (or row of the worksheet). */
@@ -116,11 +126,7 @@ function splitPair(line: MetadataLine, delimiter: Delimiter | null, plain: boole
 }
 
 function normalizeKey(key: string): { key: string; unit: string | null } {
-  const m = /^(.*?)\s*[[(]([^\])]*)[\])]\s*$/.exec(key);
-  // `Protocol, "as run"`: the words before a comma name the key.
-  const base = (m ? m[1] : key).split(',')[0];
-  const unit = m ? m[2].trim().toLowerCase() : null;
-  return { key: base.toLowerCase().replace(/[^a-z0-9]/g, ''), unit };
+  return metadataKey(key);
 }
 
 /** A number with an optional trailing unit word (`72.5 kg`, `172cm`, `1,75 m`). */
@@ -130,18 +136,30 @@ function numberWithUnit(value: string): { n: number; unit: string | null } | nul
   return { n: Number(m[1].replace(',', '.')), unit: m[2] ? m[2].toLowerCase() : null };
 }
 
-function isoDate(value: string): string | null {
+function isoDate(value: string, dayFirst = false): string | null {
   const v = value.trim();
   let m = /^(\d{4})-(\d{2})-(\d{2})/.exec(v);
   if (m) return validDate(Number(m[1]), Number(m[2]), Number(m[3]));
   m = /^(\d{1,2})\.(\d{1,2})\.(\d{4})/.exec(v);
   if (m) return validDate(Number(m[3]), Number(m[2]), Number(m[1]));
-  m = /^(\d{1,2})\/(\d{1,2})\/(\d{4})/.exec(v);
+  m = (dayFirst ? /^(\d{1,2})[/-](\d{1,2})[/-](\d{4})/ : /^(\d{1,2})\/(\d{1,2})\/(\d{4})/).exec(v);
   if (m) {
     const a = Number(m[1]);
     const b = Number(m[2]);
+    if (dayFirst) return validDate(Number(m[3]), b, a);
     if (a > 12 && b <= 12) return validDate(Number(m[3]), b, a);
     if (b > 12 && a <= 12) return validDate(Number(m[3]), a, b);
+  }
+  // A written month, in any language of header-words/: `9. März 2026`, `9 de marzo de 2026`, `March 9, 2026`.
+  m = /^(\d{1,2})\.?\s*(?:de\s+)?(\p{L}+)\.?\s*(?:de\s+)?(\d{4})/u.exec(v);
+  if (m) {
+    const month = monthOf(m[2]);
+    if (month !== null) return validDate(Number(m[3]), month, Number(m[1]));
+  }
+  m = /^(\p{L}+)\.?\s+(\d{1,2}),?\s+(\d{4})/u.exec(v);
+  if (m) {
+    const month = monthOf(m[1]);
+    if (month !== null) return validDate(Number(m[3]), month, Number(m[2]));
   }
   return null;
 }
@@ -159,14 +177,10 @@ function clockOf(value: string): string | null {
   return `${m[1].padStart(2, '0')}:${m[2]}:${m[3] ?? '00'}`;
 }
 
-function parseSex(value: string): Sex | null {
-  const v = value.trim().toLowerCase();
-  if (v === 'f' || v === 'female' || v === 'woman' || v === 'w') return 'F';
-  if (v === 'm' || v === 'male' || v === 'man') return 'M';
-  return null;
-}
 
 function parseModality(value: string): Modality | null {
+  const named = modalityOf(value);
+  if (named) return named;
   const v = value.trim().toLowerCase();
   if (/cycl|bike|bicycle|ergometer/.test(v)) return 'cycle';
   if (/treadmill|walk|run/.test(v)) return 'treadmill';
@@ -183,7 +197,14 @@ function secondsOfClock(clock: string): number {
  * its own keys are read and every other pair goes to `extra` untouched, so a file written by
  * core/export/breath-csv.ts reads back exactly.
  */
-export function parseMetadata(lines: readonly MetadataLine[], delimiter: Delimiter | null, file: string, plain = false): ParsedMetadata {
+export function parseMetadata(
+  lines: readonly MetadataLine[],
+  delimiter: Delimiter | null,
+  file: string,
+  plain = false,
+  languages: readonly LanguageCode[] = [],
+): ParsedMetadata {
+  const dayFirst = dayFirstIn(languages);
   const base = emptyMetadata();
   const out: { -readonly [K in keyof TestMetadata]: TestMetadata[K] } = { ...base, extra: {} };
   const extra: Record<string, string> = {};
@@ -201,12 +222,21 @@ export function parseMetadata(lines: readonly MetadataLine[], delimiter: Delimit
       continue;
     }
     const { key, unit } = normalizeKey(pair.key);
-    const field = plain ? PLAIN_KEYS[pair.key] : KEYS[key];
     const value = pair.value;
     const unreadable = (what: string) => {
       warnings.push(locatedError('metadata-unreadable', file, line.line, null, `'${pair.key}: ${value}' could not be read as ${what}; it is kept as a note and not used.`));
       extra[pair.key] = value;
     };
+    let field: Field | undefined = plain ? PLAIN_KEYS[pair.key] : KEYS[key];
+    if (!plain && field === undefined) {
+      const { meanings } = metadataMeanings(pair.key, languages);
+      if (meanings.length === 1) field = meanings[0];
+      else if (meanings.length > 1) {
+        warnings.push(locatedError('metadata-ambiguous', file, line.line, null, `The label '${pair.key}' means ${meanings.join(' or ')} in the languages this file may be written in; it is kept as a note and not used.`));
+        extra[pair.key] = value;
+        continue;
+      }
+    }
     switch (field) {
       case 'subjectId':
         out.subjectId = value;
@@ -221,8 +251,9 @@ export function parseMetadata(lines: readonly MetadataLine[], delimiter: Delimit
         break;
       }
       case 'sex': {
-        const s = parseSex(value);
-        if (s) out.sex = s;
+        const s = sexOf(value, languages);
+        if (s === 'ambiguous') unreadable(`sex: in ${languages.map(languageName).join(' and ') || 'English'} '${value}' can stand for female or male`);
+        else if (s) out.sex = s;
         else unreadable('sex (F or M)');
         break;
       }
@@ -260,7 +291,7 @@ export function parseMetadata(lines: readonly MetadataLine[], delimiter: Delimit
       }
       case 'start':
       case 'testStart': {
-        const d = isoDate(value);
+        const d = isoDate(value, dayFirst);
         if (!d) {
           const c = field === 'start' ? clockOf(value) : null;
           if (c) clock = c;
@@ -268,21 +299,21 @@ export function parseMetadata(lines: readonly MetadataLine[], delimiter: Delimit
           break;
         }
         date = d;
-        const c = clockOf(value.slice(10));
+        const c = clockOf(value);
         if (c) startClock = c;
         const v = value.trim();
         out.testStart = /^\d{4}-\d{2}-\d{2}[T ]\d/.test(v) ? v.replace(' ', 'T') : c ? `${d}T${c}` : d;
         break;
       }
       case 'date': {
-        const d = isoDate(value);
+        const d = isoDate(value, dayFirst);
         if (!d) {
-          unreadable('a date (YYYY-MM-DD or DD.MM.YYYY; a/b/YYYY only when the day is above 12)');
+          unreadable(dayFirst ? 'a date (YYYY-MM-DD, DD.MM.YYYY, DD/MM/YYYY or DD-MM-YYYY)' : 'a date (YYYY-MM-DD or DD.MM.YYYY; a/b/YYYY only when the day is above 12)');
           break;
         }
         date = d;
         dateLine = { key: pair.key, value };
-        const c = clockOf(value.slice(10));
+        const c = clockOf(value);
         if (c) clock = c;
         break;
       }

@@ -210,7 +210,6 @@ function assemble(cells: TableCells, options: ImportOptions): Result<ImportResul
   const sample = cells.sample;
   const decimal: DecimalMark = mapping?.decimal ?? detectDecimal(sample);
   const plain = cells.headerCells.every((c) => PLAIN_LAYOUT_COLUMNS[c.trim()] !== undefined);
-  const meta = parseMetadata(cells.metadataLines, cells.delimiter, file, plain);
   const planned = planColumns({
     file,
     headerCells: cells.headerCells,
@@ -223,6 +222,7 @@ function assemble(cells: TableCells, options: ImportOptions): Result<ImportResul
   });
   if (!planned.ok) return planned;
   const plan = planned.value;
+  const meta = parseMetadata(cells.metadataLines, cells.delimiter, file, plain, plan.languages);
   const perKg = plan.columns.find((c) => c.variable === 'vo2MlKgMin');
   if (perKg && meta.metadata.weightKg === null) {
     return fail(
@@ -286,6 +286,7 @@ function assemble(cells: TableCells, options: ImportOptions): Result<ImportResul
       unitsLine: cells.unitsLine,
       sheet: cells.sheet,
       timeFormat: plan.timeFormat,
+      languages: plan.languages,
     },
     columns,
     rejected: out.rejected,

@@ -7,6 +7,7 @@ import { BREATH_VARIABLES, type BreathTable, type BreathVariable } from '../mode
 import type { LocatedError } from '../model/errors';
 import type { Settings } from '../model/settings';
 import type { ColumnMapping } from './mapping';
+import type { LanguageCode } from './header-words/types';
 
 /**
  * What a column can carry: a breath variable, or one of three extras an import understands
@@ -47,6 +48,11 @@ export interface FileLayout {
   readonly unitsLine: number | null;
   readonly sheet: string | null;
   readonly timeFormat: TimeFormat;
+  /**
+   * The languages whose header words the header row is written in (core/import/header-words/),
+   * several when their words tie; empty when it names only trade abbreviations (VO2, VCO2...).
+   */
+  readonly languages: readonly LanguageCode[];
 }
 
 /** A value on a usable row that deserves a second look (implausible, disagreeing RER, unreadable optional cell). */

@@ -20,7 +20,8 @@ import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
 import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type ChartThresholds } from './charts';
-import { fixed, minSec, MISSING, signed } from './format';
+import { MISSING, reportFormat } from './format';
+import { localeByTag } from '../locale/locales';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
 
@@ -77,7 +78,8 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   });
   doc.registerFont('Sans', Buffer.from(input.fonts.regular));
   doc.registerFont('Sans-Bold', Buffer.from(input.fonts.bold));
-  const L = new Layout(doc, { regular: 'Sans', bold: 'Sans-Bold' });
+  // Numbers and dates in the locale the case records (neutral `en` for a case without one).
+  const L = new Layout(doc, { regular: 'Sans', bold: 'Sans-Bold' }, reportFormat(localeByTag(caseFile.reportLocale)));
 
   titleBlock(L, input, subject);
   comparisonSection(L, outcome.comparison);
@@ -105,7 +107,7 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
   doc.rect(L.left, doc.y, L.width, 2).fill(ACCENT);
   doc.moveDown(0.5);
   doc.font('Sans-Bold').fontSize(17).fillColor(INK).text('Two-day cardiopulmonary exercise test', L.left, doc.y, { width: L.width });
-  doc.font('Sans').fontSize(10).fillColor(MUTED).text(`Day 2 against day 1 · ${subject} · built ${input.generatedAt}`, { width: L.width });
+  doc.font('Sans').fontSize(10).fillColor(MUTED).text(`Day 2 against day 1 · ${subject} · built ${L.f.dateTime(input.generatedAt)}`, { width: L.width });
   doc.moveDown(0.5);
   if (input.signature === 'demonstration') L.notice('Demonstration', DEMO_NOTICE, WARN);
   const m1 = day1.analysis.metadata;
@@ -116,30 +118,30 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
     ['Subject', subject],
     ['Lab', lab],
     ['Age, sex', `${m1.ageY ?? MISSING} y, ${m1.sex ?? MISSING}`],
-    ['Height, mass', `${fixed(m1.heightCm, 0)} cm, ${fixed(m1.weightKg, 1)} kg`],
-    ['Day 1 start', m1.testStart ?? MISSING],
-    ['Day 2 start', m2.testStart ?? MISSING],
-    ['Interval', interval === null ? 'unknown (a start time is missing)' : `${interval.toFixed(1)} h`],
+    ['Height, mass', `${L.f.fixed(m1.heightCm, 0)} cm, ${L.f.fixed(m1.weightKg, 1)} kg`],
+    ['Day 1 start', L.f.dateTime(m1.testStart)],
+    ['Day 2 start', L.f.dateTime(m2.testStart)],
+    ['Interval', interval === null ? 'unknown (a start time is missing)' : `${L.f.fixed(interval, 1)} h`],
     ['Ergometer', m1.modality ?? m2.modality ?? 'not stated'],
-    ['Protocol, day 1', m1.protocol ?? rampText(day1)],
-    ['Protocol, day 2', m2.protocol ?? rampText(day2)],
+    ['Protocol, day 1', m1.protocol ?? rampText(L, day1)],
+    ['Protocol, day 2', m2.protocol ?? rampText(L, day2)],
     ['Effort, day 1', day1.analysis.effort.verdict],
     ['Effort, day 2', day2.analysis.effort.verdict],
   ]);
   L.subheading('Summary');
-  L.paragraph(comparison.summary);
-  for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${w.message}`, { color: WARN });
+  L.paragraph(L.f.prose(comparison.summary));
+  for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${L.f.prose(w.message)}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
 }
 
-function rampText(day: DayOutcome): string {
+function rampText(L: Layout, day: DayOutcome): string {
   const r = day.analysis.phases.rampWPerMin;
-  return r === null ? 'not stated' : `ramp ${r.toFixed(0)} W/min (measured)`;
+  return r === null ? 'not stated' : `ramp ${L.f.fixed(r, 0)} W/min (measured)`;
 }
 
 function comparisonSection(L: Layout, c: Comparison): void {
   L.heading('Day 2 against day 1');
-  L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${c.band.description}`, { size: 8, color: MUTED });
+  L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${L.f.prose(c.band.description)}`, { size: 8, color: MUTED });
   const sources: string[] = [];
   const sourceNo = (s: string) => {
     const i = sources.indexOf(s);
@@ -147,17 +149,17 @@ function comparisonSection(L: Layout, c: Comparison): void {
     sources.push(s);
     return sources.length;
   };
-  const digits = (unit: string) => (unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1);
+  const digits = metricDigits;
   const rows = c.metrics.map((m) => {
     const d = digits(m.unit);
     return [
       m.label,
       m.unit || '–',
-      fixed(m.day1, d),
-      fixed(m.day2, d),
-      signed(m.delta, d),
-      signed(m.deltaPct, 1),
-      m.band ? `±${m.band.halfWidthPct.toFixed(1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
+      L.f.fixed(m.day1, d),
+      L.f.fixed(m.day2, d),
+      L.f.signed(m.delta, d),
+      L.f.signed(m.deltaPct, 1),
+      m.band ? `±${L.f.fixed(m.band.halfWidthPct, 1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
       verdictText(m.verdict, m.adverseBeyondBand),
     ];
   });
@@ -175,8 +177,13 @@ function comparisonSection(L: Layout, c: Comparison): void {
     rows,
   );
   L.paragraph(sources.map((s, i) => `[${i + 1}] ${s}`).join('   '), { size: 7, color: MUTED });
-  const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${m.reason}`);
+  const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${L.f.prose(m.reason ?? '')}`);
   if (notes.length > 0) L.paragraph(`Not compared. ${notes.join(' ')}`, { size: 7.5, color: MUTED });
+}
+
+/** Decimals the comparison table prints a metric with, by its unit (`twofold verify` reads them back). */
+export function metricDigits(unit: string): number {
+  return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
 }
 
 function verdictText(verdict: string, adverse: boolean): string {
@@ -195,22 +202,22 @@ function verdictText(verdict: string, adverse: boolean): string {
 function matchedSection(L: Layout, c: Comparison): void {
   L.heading('At matched workloads');
   if (!c.matched.available) {
-    L.paragraph(`Not available: ${c.matched.reason}`);
+    L.paragraph(`Not available: ${L.f.prose(c.matched.reason ?? '')}`);
     return;
   }
-  L.paragraph(`Read at the first moment each day's ramp reached the workload; common range ${fixed(c.matched.rangeW[0], 0)}–${fixed(c.matched.rangeW[1], 0)} W in ${fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
+  L.paragraph(`Read at the first moment each day's ramp reached the workload; common range ${L.f.fixed(c.matched.rangeW[0], 0)}–${L.f.fixed(c.matched.rangeW[1], 0)} W in ${L.f.fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
   const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ' (VT1 day 1)' : ' (VT1 day 2)');
   const rows = c.matched.rows.map((r) => [
-    `${fixed(r.workW, 0)}${kind(r.kind)}`,
-    fixed(r.values.vo2MlMin.day1, 0),
-    fixed(r.values.vo2MlMin.day2, 0),
-    signed(r.values.vo2MlMin.deltaPct, 1),
-    fixed(r.values.hrBpm.day1, 0),
-    fixed(r.values.hrBpm.day2, 0),
-    fixed(r.values.veLMin.day1, 1),
-    fixed(r.values.veLMin.day2, 1),
-    fixed(r.values.rer.day1, 2),
-    fixed(r.values.rer.day2, 2),
+    `${L.f.fixed(r.workW, 0)}${kind(r.kind)}`,
+    L.f.fixed(r.values.vo2MlMin.day1, 0),
+    L.f.fixed(r.values.vo2MlMin.day2, 0),
+    L.f.signed(r.values.vo2MlMin.deltaPct, 1),
+    L.f.fixed(r.values.hrBpm.day1, 0),
+    L.f.fixed(r.values.hrBpm.day2, 0),
+    L.f.fixed(r.values.veLMin.day1, 1),
+    L.f.fixed(r.values.veLMin.day2, 1),
+    L.f.fixed(r.values.rer.day1, 2),
+    L.f.fixed(r.values.rer.day2, 2),
   ]);
   L.table(
     [
@@ -244,7 +251,7 @@ async function daySection(L: Layout, day: DayOutcome): Promise<void> {
       { header: 'Met', width: 0.08 },
       { header: 'Source', width: 0.4 },
     ],
-    a.effort.criteria.map((c) => [c.label, c.value === null ? 'not measured' : `${fixed(c.value, c.unit === '' ? 2 : 0)} ${c.unit}`.trim(), `≥ ${c.threshold} ${c.unit}`.trim(), c.met === null ? 'n/a' : c.met ? 'yes' : 'no', c.source]),
+    a.effort.criteria.map((c) => [c.label, c.value === null ? 'not measured' : `${L.f.fixed(c.value, c.unit === '' ? 2 : 0)} ${c.unit}`.trim(), `≥ ${L.f.number(c.threshold)} ${c.unit}`.trim(), c.met === null ? 'n/a' : c.met ? 'yes' : 'no', c.source]),
     { size: 7.5 },
   );
   for (const id of ['vt1', 'vt2'] as const) thresholdBlock(L, id, day[id]);
@@ -255,7 +262,7 @@ async function daySection(L: Layout, day: DayOutcome): Promise<void> {
   await chartRow(L, [endTidalSpec(a, used, `End-tidal pressures, day ${day.day}`, w, 120)]);
   if (a.warnings.length > 0) {
     L.subheading('Analysis notes');
-    for (const note of a.warnings) L.paragraph(`• ${note}`, { size: 8 });
+    for (const note of a.warnings) L.paragraph(`• ${L.f.prose(note)}`, { size: 8 });
   }
 }
 
@@ -270,23 +277,23 @@ function thresholdBlock(L: Layout, id: ThresholdId, state: ThresholdState): void
       { header: 'VO₂ (mL/min)', width: 0.14, align: 'right' },
       { header: 'Source or reason', width: 0.46 },
     ],
-    auto.methods.map((m) => (m.found ? [m.label, minSec(m.timeS), fixed(m.vo2MlMin, 0), m.source] : [m.label, MISSING, MISSING, `not found: ${m.reason}`])),
+    auto.methods.map((m) => (m.found ? [m.label, L.f.minSec(m.timeS), L.f.fixed(m.vo2MlMin, 0), m.source] : [m.label, MISSING, MISSING, `not found: ${L.f.prose(m.reason ?? '')}`])),
     { size: 7.5 },
   );
-  const consensus = auto.at ? `automatic consensus ${minSec(auto.at.timeS)}, VO₂ ${fixed(auto.at.vo2MlMin, 0)} mL/min` : `no automatic estimate (${auto.reason ?? 'no method found it'})`;
-  const ci = auto.ci95Vo2MlMin ? `, ${auto.ciLabel ?? '95% interval'} ${fixed(auto.ci95Vo2MlMin[0], 0)}–${fixed(auto.ci95Vo2MlMin[1], 0)} mL/min` : '';
-  const spread = auto.spreadVo2MlMin !== null ? `; methods span ${fixed(auto.spreadVo2MlMin, 0)} mL/min${auto.methodsDisagree ? ' (they disagree)' : ''}` : '';
+  const consensus = auto.at ? `automatic consensus ${L.f.minSec(auto.at.timeS)}, VO₂ ${L.f.fixed(auto.at.vo2MlMin, 0)} mL/min` : `no automatic estimate (${L.f.prose(auto.reason ?? 'no method found it')})`;
+  const ci = auto.ci95Vo2MlMin ? `, ${auto.ciLabel ?? '95% interval'} ${L.f.fixed(auto.ci95Vo2MlMin[0], 0)}–${L.f.fixed(auto.ci95Vo2MlMin[1], 0)} mL/min` : '';
+  const spread = auto.spreadVo2MlMin !== null ? `; methods span ${L.f.fixed(auto.spreadVo2MlMin, 0)} mL/min${auto.methodsDisagree ? ' (they disagree)' : ''}` : '';
   L.paragraph(`${consensus}${ci}${spread}.`, { size: 8.5 });
   const o = state.override;
   if (o) {
-    L.paragraph(`Used: set by the reviewer, ${o.who} (${o.role}), ${o.at}, log entry ${o.seq}: ${minSec(o.point.timeS)}, VO₂ ${fixed(o.point.vo2MlMin, 0)} mL/min (given as a ${o.givenAs === 'vo2' ? 'VO₂' : 'time'}). Reason: ${o.reason}`, { size: 8.5, bold: true, color: WARN });
+    L.paragraph(`Used: set by the reviewer, ${o.who} (${o.role}), ${L.f.dateTime(o.at)}, log entry ${o.seq}: ${L.f.minSec(o.point.timeS)}, VO₂ ${L.f.fixed(o.point.vo2MlMin, 0)} mL/min (given as a ${o.givenAs === 'vo2' ? 'VO₂' : 'time'}). Reason: ${o.reason}`, { size: 8.5, bold: true, color: WARN });
   } else if (auto.at) {
     L.paragraph(`Used: the automatic consensus.`, { size: 8.5, bold: true });
   }
 }
 
 async function chartRow(L: Layout, specs: Record<string, unknown>[]): Promise<void> {
-  const svgs = await Promise.all(specs.map((s) => renderSvg(s)));
+  const svgs = await Promise.all(specs.map((s) => renderSvg(s, L.f.locale.tag === 'en' ? undefined : L.f.locale)));
   const sizes = svgs.map(svgSize);
   const height = Math.max(...sizes.map((s) => s.height));
   L.ensure(height + 8);
@@ -325,9 +332,9 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
     const resting = a.clinical.restingHrBpm;
     return [
       `Day ${d.day}`,
-      a.vt1.at?.hrBpm != null ? `${fixed(a.vt1.at.hrBpm, 0)} bpm` : 'not available',
-      hrMax !== null ? `${fixed(0.55 * hrMax, 0)}–${fixed(0.6 * hrMax, 0)} bpm (of ${fixed(hrMax, 0)})` : 'age not stated',
-      resting !== null ? `${fixed(resting + 15, 0)} bpm (rest ${fixed(resting, 0)})` : 'resting HR not given',
+      a.vt1.at?.hrBpm != null ? `${L.f.fixed(a.vt1.at.hrBpm, 0)} bpm` : 'not available',
+      hrMax !== null ? `${L.f.fixed(0.55 * hrMax, 0)}–${L.f.fixed(0.6 * hrMax, 0)} bpm (of ${L.f.fixed(hrMax, 0)})` : 'age not stated',
+      resting !== null ? `${L.f.fixed(resting + 15, 0)} bpm (rest ${L.f.fixed(resting, 0)})` : 'resting HR not given',
     ];
   });
   L.table(
@@ -342,15 +349,15 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
   L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).`, { size: 7, color: MUTED });
 }
 
-function settingValue(settings: Settings, path: string): string {
+function settingValue(L: Layout, settings: Settings, path: string): string {
   let value: unknown = settings;
   for (const key of path.split('.')) value = (value as Record<string, unknown>)?.[key];
   if (value !== null && typeof value === 'object') {
     return Object.entries(value as Record<string, unknown>)
-      .map(([k, v]) => `${k} ${String(v)}`)
+      .map(([k, v]) => `${k} ${typeof v === 'number' ? L.f.number(v) : String(v)}`)
       .join(', ');
   }
-  return String(value);
+  return typeof value === 'number' ? L.f.number(value) : String(value);
 }
 
 function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comparison>): void {
@@ -372,7 +379,7 @@ function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comp
       { header: 'Value', width: 0.27 },
       { header: 'Source', width: 0.46 },
     ],
-    Object.entries(SETTING_SOURCES).map(([path, source]) => [path, settingValue(settings, path), source]),
+    Object.entries(SETTING_SOURCES).map(([path, source]) => [path, settingValue(L, settings, path), source]),
     { size: 7 },
   );
 }
@@ -382,8 +389,9 @@ function provenanceSection(L: Layout, input: ReportInput): void {
   const { inputs } = input.caseFile;
   L.facts([
     ['Software', `${SOFTWARE_NAME} ${SOFTWARE_VERSION}`],
-    ['Built', input.generatedAt],
-    ['Case opened', input.caseFile.createdAt],
+    ['Built', L.f.dateTime(input.generatedAt)],
+    ['Case opened', L.f.dateTime(input.caseFile.createdAt)],
+    ['Number format', L.f.locale.tag === 'en' ? 'decimal point, ISO 8601 dates' : `${L.f.locale.tag}: decimal ${L.f.locale.decimal === ',' ? 'comma' : 'point'}, dates as ${L.f.dateTime('2026-03-09')}`],
   ]);
   L.paragraph(`Digest of every recomputed number (SHA-256): ${input.outcome.recorded.digest}`, { size: 7.5 });
   L.table(
@@ -393,9 +401,9 @@ function provenanceSection(L: Layout, input: ReportInput): void {
       { header: 'SHA-256', width: 0.65 },
     ],
     [
-      [`day 1: ${inputs.day1.name}`, String(inputs.day1.sizeBytes), inputs.day1.sha256],
-      [`day 2: ${inputs.day2.name}`, String(inputs.day2.sizeBytes), inputs.day2.sha256],
-      ['case file: twofold-case.json', String(Buffer.byteLength(input.caseText)), sha256Hex(input.caseText)],
+      [`day 1: ${inputs.day1.name}`, L.f.integer(inputs.day1.sizeBytes), inputs.day1.sha256],
+      [`day 2: ${inputs.day2.name}`, L.f.integer(inputs.day2.sizeBytes), inputs.day2.sha256],
+      ['case file: twofold-case.json', L.f.integer(Buffer.byteLength(input.caseText)), sha256Hex(input.caseText)],
     ],
     { size: 6.5 },
   );
@@ -417,7 +425,7 @@ function logSection(L: Layout, caseFile: CaseFile): void {
       { header: 'Reason', width: 0.24 },
       { header: 'Hash', width: 0.12 },
     ],
-    caseFile.log.map((e) => [String(e.seq), e.at, `${e.who} (${e.role})`, describeAction(e.action), e.reason, `${e.hash.slice(0, 12)}…`]),
+    caseFile.log.map((e) => [String(e.seq), L.f.dateTime(e.at), `${e.who} (${e.role})`, describeAction(e.action, L.f), e.reason, `${e.hash.slice(0, 12)}…`]),
     { size: 7 },
   );
   L.paragraph('Each entry carries the SHA-256 of the one before it, so an edited history does not load.', { size: 7, color: MUTED });
@@ -427,7 +435,7 @@ function signatureSection(L: Layout, input: ReportInput): void {
   L.heading('Signature');
   L.ensure(110);
   const signOff = [...input.caseFile.log].reverse().find((e) => e.action.kind === 'sign-off');
-  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${signOff.at})` : 'No sign-off statement is recorded in the reviewer log.';
+  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${L.f.dateTime(signOff.at)})` : 'No sign-off statement is recorded in the reviewer log.';
   L.facts([
     ['Reviewer', input.reviewer ?? 'not named'],
     ['Statement', statement],
@@ -446,7 +454,7 @@ function footers(L: Layout, subject: string, input: ReportInput): void {
     const y = doc.page.height - 34;
     const tag = input.signature === 'demonstration' ? 'DEMONSTRATION · ' : '';
     doc.font('Sans').fontSize(7).fillColor(MUTED).text(`${tag}${SOFTWARE_NAME} ${SOFTWARE_VERSION} · ${subject} · supports licensed clinicians, does not diagnose`, L.left, y, { width: L.width - 70, lineBreak: false });
-    doc.text(`page ${i + 1} of ${range.count}`, L.left + L.width - 70, y, { width: 70, align: 'right', lineBreak: false });
+    doc.text(`page ${L.f.integer(i + 1)} of ${L.f.integer(range.count)}`, L.left + L.width - 70, y, { width: 70, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;
   }
 }

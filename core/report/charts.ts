@@ -11,6 +11,7 @@ import * as vega from 'vega';
 import * as vl from 'vega-lite';
 import type { TestAnalysis } from '../model/analysis';
 import type { ThresholdPoint } from '../case/case-file';
+import type { ReportLocale } from '../locale/locales';
 
 export const DAY_COLORS = { day1: '#2f5d7c', day2: '#c0612b' } as const;
 const FONT = 'DejaVu Sans';
@@ -23,9 +24,19 @@ export interface ChartThresholds {
   readonly vt2: ThresholdPoint | null;
 }
 
-/** Renders a vega-lite spec to an SVG string, headless. */
-export async function renderSvg(spec: Spec): Promise<string> {
-  const compiled = vl.compile({ $schema: 'https://vega.github.io/schema/vega-lite/v6.json', ...spec } as vl.TopLevelSpec).spec;
+/**
+ * The axis numbers of a chart in a locale (vega's number locale; it groups every thousand,
+ * so a locale that leaves four-digit numbers ungrouped gets no grouping on axes, where
+ * numbers stay below 10 000).
+ */
+function vegaNumberLocale(locale: ReportLocale): Record<string, unknown> {
+  return { decimal: locale.decimal, thousands: locale.groupFrom <= 4 ? locale.thousands : '', grouping: [3], currency: ['', ''] };
+}
+
+/** Renders a vega-lite spec to an SVG string, headless; axis numbers in `locale` when given. */
+export async function renderSvg(spec: Spec, locale?: ReportLocale): Promise<string> {
+  const localized = locale ? { ...spec, config: { ...((spec.config as Spec | undefined) ?? {}), locale: { number: vegaNumberLocale(locale) } } } : spec;
+  const compiled = vl.compile({ $schema: 'https://vega.github.io/schema/vega-lite/v6.json', ...localized } as vl.TopLevelSpec).spec;
   const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
   try {
     return await view.toSVG();

@@ -4,6 +4,8 @@
  * slate rule beside each section heading, tables with a tinted header row and hairlines.
  */
 import type PDFDocument from 'pdfkit';
+import { reportFormat, type ReportFormat } from './format';
+import { REPORT_LOCALES } from '../locale/locales';
 
 type Doc = InstanceType<typeof PDFDocument>;
 
@@ -29,6 +31,8 @@ export class Layout {
   constructor(
     readonly doc: Doc,
     readonly fonts: Fonts,
+    /** Numbers and dates in the report's locale (neutral by default). */
+    readonly f: ReportFormat = reportFormat(REPORT_LOCALES[0]),
   ) {}
 
   get left(): number {

@@ -109,12 +109,13 @@ export const HOST_METHODS = {
   },
   /** The report as it would be exported, unsigned and not kept: for the preview. */
   previewReport: {
-    request: z.object({ caseId, reviewer: z.string().max(200) }),
+    // locale: the workbench's number and date format (core/locale/); absent keeps the case's.
+    request: z.object({ caseId, reviewer: z.string().max(200), locale: z.string().max(35).optional() }),
     response: z.object({ base64: z.string() }),
   },
   /** Builds the report from the saved case, signs it, writes it into the case folder. */
   exportReport: {
-    request: z.object({ caseId, signerId: signerInfo.shape.id, reviewer: z.string().min(1).max(200) }),
+    request: z.object({ caseId, signerId: signerInfo.shape.id, reviewer: z.string().min(1).max(200), locale: z.string().max(35).optional() }),
     response: z.object({ fileName: z.string(), path: z.string(), bytes: z.number().int(), demonstration: z.boolean() }),
   },
   /** Checks a signed report: either one in a case folder, or bytes the user chose. */

@@ -25,6 +25,8 @@ export interface ReportRequest {
   readonly signerId: string;
   readonly reviewer: string;
   readonly now: Date;
+  /** The number and date format the report is written in (core/locale/); absent keeps the case's. */
+  readonly locale?: string;
 }
 
 /** What the service needs from the report side (core/report, host signing). */
@@ -33,7 +35,7 @@ export interface ReportPort {
   build(input: ReportRequest): Promise<{ ok: true; bytes: number; demonstration: boolean } | { ok: false; error: BridgeError }>;
   verify(bytes: Uint8Array, fileName: string): Promise<VerificationOutcome>;
   /** The unsigned report of the case, built the same way, not written anywhere it stays. */
-  preview(input: { readonly folder: string; readonly reviewer: string | null; readonly now: Date }): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; error: BridgeError }>;
+  preview(input: { readonly folder: string; readonly reviewer: string | null; readonly now: Date; readonly locale?: string }): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; error: BridgeError }>;
 }
 
 export interface ServiceDeps {
@@ -76,7 +78,7 @@ export function createWorkbenchService(deps: ServiceDeps): HostService {
     listSigners: async () => ok({ signers: await deps.report.signers() }),
     previewReport: (r) =>
       guard(`case ${r.caseId}`, async () => {
-        const built = await deps.report.preview({ folder: cases.folderOf(r.caseId), reviewer: r.reviewer.trim() || null, now: deps.now() });
+        const built = await deps.report.preview({ folder: cases.folderOf(r.caseId), reviewer: r.reviewer.trim() || null, now: deps.now(), locale: r.locale });
         return built.ok ? ok({ base64: Buffer.from(built.bytes).toString('base64') }) : built;
       }),
     exportReport: (r) =>
@@ -89,7 +91,7 @@ export function createWorkbenchService(deps: ServiceDeps): HostService {
         const dir = cases.reportsDir(r.caseId);
         mkdirSync(dir, { recursive: true });
         const path = join(dir, fileName);
-        const built = await deps.report.build({ folder: cases.folderOf(r.caseId), outPath: path, signerId: r.signerId, reviewer: r.reviewer, now });
+        const built = await deps.report.build({ folder: cases.folderOf(r.caseId), outPath: path, signerId: r.signerId, reviewer: r.reviewer, now, locale: r.locale });
         if (!built.ok) return built;
         return ok({ fileName, path, bytes: built.bytes, demonstration: built.demonstration });
       }),

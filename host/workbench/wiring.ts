@@ -19,6 +19,8 @@ import { runReportJob, type Certificate } from '../report-job';
 import { demoCertificate, type DemoCertificate } from '../demo-certificate';
 import { DEMO_FOLDER, DEMO_PAIR } from '../demo-job';
 import { verifyReportBytes } from './verify-port';
+import type { CaseFile } from '../../core/case/case-file';
+import { resolveLocale } from '../../core/locale/locales';
 
 const DEMO_ID = 'demonstration';
 
@@ -70,7 +72,7 @@ export function createReportPort(dataDir: string, now: () => Date): ReportPort {
       if (!cert) return { ok: false, error: { code: 'no-certificate', file: join(certDir, `${input.signerId}.p12`), line: null, column: null, message: `There is no certificate '${input.signerId}' with its passphrase file.` } };
       const loaded = loadCase(input.folder);
       if (!loaded.ok) return loaded;
-      const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, now: input.now });
+      const job = await runReportJob({ caseFile: withLocale(loaded.value.caseFile, input.locale), raw: loaded.value.raw, caseFolder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, now: input.now });
       if (!job.ok) return job;
       return { ok: true, bytes: job.value.bytes, demonstration: cert.kind === 'demonstration' };
     },
@@ -81,7 +83,7 @@ export function createReportPort(dataDir: string, now: () => Date): ReportPort {
       const scratch = mkdtempSync(join(tmpdir(), 'twofold-preview-'));
       try {
         const outPath = join(scratch, 'preview-unsigned.pdf');
-        const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath, reviewer: input.reviewer, certificate: null, now: input.now });
+        const job = await runReportJob({ caseFile: withLocale(loaded.value.caseFile, input.locale), raw: loaded.value.raw, caseFolder: input.folder, outPath, reviewer: input.reviewer, certificate: null, now: input.now });
         if (!job.ok) return job;
         return { ok: true, bytes: new Uint8Array(readFileSync(outPath)) };
       } finally {
@@ -89,6 +91,12 @@ export function createReportPort(dataDir: string, now: () => Date): ReportPort {
       }
     },
   };
+}
+
+/** The case with the report locale the workbench asked for (an unknown tag keeps the case's). */
+function withLocale(caseFile: CaseFile, tag: string | undefined): CaseFile {
+  const locale = tag === undefined ? null : resolveLocale(tag);
+  return locale ? { ...caseFile, reportLocale: locale.tag } : caseFile;
 }
 
 export function createWiredService(options: WiringOptions): HostService {

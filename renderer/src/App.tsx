@@ -19,6 +19,8 @@ import { createAutosave, type Autosave } from './engine/autosave';
 import type { CaseRecord, EngineRequest, EngineView, MappingQuestion, Reviewer } from './engine/protocol';
 import { ErrorNotice, ProgressStrip } from './ui/notices';
 import { toBase64 } from './ui/files';
+import { setDisplayLocale } from './ui/format';
+import { initialLocale, LocalePicker, rememberLocale } from './ui/locale';
 import { Intake } from './screens/Intake';
 import { Breakpoints } from './screens/Breakpoints';
 import { DayOver } from './screens/DayOver';
@@ -62,6 +64,9 @@ export function App({ host }: { host: HostClient }) {
   const [renderMs, setRenderMs] = useState<{ replyMs: number; valuesMs: number; chartsMs: number | null } | null>(null);
   const replyAt = useRef<number | null>(null);
   const [previewUrl, setPreviewUrl] = useState<string | null>(null);
+  // Numbers and dates on screen and in the report built from here (ui/locale.tsx).
+  const [locale, setLocaleState] = useState<string>(initialLocale);
+  setDisplayLocale(locale);
   const engineRef = useRef<EngineClient<Comparison> | null>(null);
   const autosaveRef = useRef<Autosave | null>(null);
   /** The revision on screen, the newest record received, and who waits for the one to catch up with the other. */
@@ -244,7 +249,7 @@ export function App({ host }: { host: HostClient }) {
     if (!signerId) return setError({ code: 'no-signer', file: 'certificates', line: null, column: null, message: 'Choose a certificate to sign with.' });
     setBusy({ stage: 'Building and signing the report', fraction: 0.3 });
     await untilSaved();
-    const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})` });
+    const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})`, locale });
     setBusy(null);
     if (!reply.ok) return setError(reply.error);
     setExportState((s) => ({ ...s, result: reply.value, verification: null }));
@@ -254,7 +259,7 @@ export function App({ host }: { host: HostClient }) {
     if (!summary) return;
     setBusy({ stage: 'Building the report preview', fraction: 0.3 });
     await untilSaved();
-    const reply = await host.call('previewReport', { caseId: summary.caseId, reviewer: reviewer.who ? `${reviewer.who} (${reviewer.role})` : '' });
+    const reply = await host.call('previewReport', { caseId: summary.caseId, reviewer: reviewer.who ? `${reviewer.who} (${reviewer.role})` : '', locale });
     setBusy(null);
     if (!reply.ok) return setError(reply.error);
     const bytes = Uint8Array.from(atob(reply.value.base64), (c) => c.charCodeAt(0));
@@ -346,6 +351,13 @@ export function App({ host }: { host: HostClient }) {
           </label>
           <input aria-label="Reviewer role" value={reviewer.role} placeholder="role" onChange={(e) => setReviewer({ ...reviewer, role: e.target.value })} />
         </div>
+        <LocalePicker
+          value={locale}
+          onChange={(tag) => {
+            rememberLocale(tag);
+            setLocaleState(tag);
+          }}
+        />
       </header>
       <div className="toolbar">
         {button('case.demo', 'Load demo pair')}

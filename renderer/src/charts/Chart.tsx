@@ -4,6 +4,7 @@
  */
 import { useEffect, useRef } from 'react';
 import Plotly from 'plotly.js-dist-min';
+import { chartSeparators } from '../ui/format';
 
 export interface ChartProps {
   readonly data: unknown[];
@@ -19,12 +20,14 @@ export function Chart({ data, layout, onPick, label, testId }: ChartProps) {
   const root = useRef<HTMLDivElement>(null);
   const pick = useRef(onPick);
   pick.current = onPick;
+  // Axis and hover numbers in the workbench's locale (plotly's decimal and thousands marks).
+  const separators = chartSeparators();
 
   useEffect(() => {
     const el = root.current;
     if (!el) return;
     let live = true;
-    void Plotly.react(el, data, { margin: { l: 64, r: 16, t: 36, b: 52 }, font: { family: 'system-ui, sans-serif', size: 12 }, ...layout }, CONFIG).then((plot) => {
+    void Plotly.react(el, data, { margin: { l: 64, r: 16, t: 36, b: 52 }, font: { family: 'system-ui, sans-serif', size: 12 }, separators, ...layout }, CONFIG).then((plot) => {
       if (!live) return;
       plot.removeAllListeners?.('plotly_click');
       plot.on('plotly_click', (event) => {
@@ -35,7 +38,7 @@ export function Chart({ data, layout, onPick, label, testId }: ChartProps) {
     return () => {
       live = false;
     };
-  }, [data, layout]);
+  }, [data, layout, separators]);
 
   useEffect(() => {
     const el = root.current;

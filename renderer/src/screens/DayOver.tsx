@@ -11,7 +11,7 @@ import { Chart } from '../charts/Chart';
 import { overlayCharts } from '../charts/overlay-charts';
 import { VERDICT_STYLE } from '../charts/palette';
 import { Caution } from '../ui/notices';
-import { fmt, signed } from '../ui/format';
+import { fmt, prose, signed } from '../ui/format';
 
 const MATCHED: readonly { key: MatchedVariable; label: string; unit: string; digits: number }[] = [
   { key: 'vo2MlMin', label: 'VO₂', unit: 'mL/min', digits: 0 },
@@ -32,9 +32,9 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
       <Caution />
       <section className="panel summary">
         <h2>Summary</h2>
-        <p data-testid="comparison-summary">{c.summary}</p>
+        <p data-testid="comparison-summary">{prose(c.summary)}</p>
         <p className="hint">
-          Band: {c.bandKind === 'mdc95' ? 'minimal detectable change (MDC95 = 1.96 × √2 × CV)' : 'typical variation (± CV)'} — {c.band.description}.
+          Band: {c.bandKind === 'mdc95' ? 'minimal detectable change (MDC95 = 1.96 × √2 × CV)' : 'typical variation (± CV)'} — {prose(c.band.description)}.
           {c.pairing.intervalH !== null && ` Interval between the tests: ${fmt(c.pairing.intervalH, 1, 'h')}.`}
         </p>
         {c.pairing.warnings.length > 0 && (

@@ -9,6 +9,7 @@ import type { ClinicalInputs } from '../../../core/model/analysis';
 import type { LocatedError } from '../../../core/model/errors';
 import type { MappingQuestion } from '../engine/protocol';
 import { toBase64 } from '../ui/files';
+import { when } from '../ui/format';
 import { MappingStep } from './MappingStep';
 import { Caution } from '../ui/notices';
 
@@ -153,7 +154,7 @@ export function Intake({ host, chooseRef, question, onStart, onOpen, onAnswerMap
                   {c.title}
                 </button>
                 <span className="meta">
-                  {c.day1Name} · {c.day2Name} · saved {c.savedAt ? new Date(c.savedAt).toLocaleString('en-GB') : '—'}
+                  {c.day1Name} · {c.day2Name} · saved {when(c.savedAt)}
                 </span>
               </li>
             ))}

@@ -7,7 +7,7 @@ import type { SignerInfo } from '../../../host/workbench/api';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import type { EngineView, Reviewer } from '../engine/protocol';
 import { Caution } from '../ui/notices';
-import { clock, fmt } from '../ui/format';
+import { clock, fmt, when } from '../ui/format';
 
 export interface ExportState {
   readonly signers: readonly SignerInfo[];
@@ -87,7 +87,7 @@ export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onV
               {view.log.map((e) => (
                 <li key={e.seq}>
                   <span className="meta">
-                    {new Date(e.at).toLocaleString('en-GB')} · {e.who} ({e.role})
+                    {when(e.at)} · {e.who} ({e.role})
                   </span>{' '}
                   {describe(e.action)} — “{e.reason}”
                 </li>

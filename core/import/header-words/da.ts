@@ -1,0 +1,43 @@
+/** Danish header words (HF hjertefrekvens, RF respirationsfrekvens; a sex of `K` is kvinde; common practice). */
+import type { HeaderWords } from './types';
+
+export const DA: HeaderWords = {
+  language: 'da',
+  name: 'Danish',
+  columns: {
+    timeS: ['Tid', 'Testtid', 'Forløb'],
+    clock: ['Klokkeslæt'],
+    vo2MlMin: ['Iltoptag', 'O2-optag'],
+    vco2MlMin: ['CO2-udskillelse'],
+    veLMin: ['Ventilation', 'Minutventilation'],
+    hrBpm: ['HF', 'Hjertefrekvens', 'Puls'],
+    workW: ['Belastning', 'Effekt'],
+    speedKmh: ['Hastighed'],
+    gradePct: ['Stigning', 'Hældning'],
+    peto2Mmhg: ['Endetidal O2'],
+    petco2Mmhg: ['Endetidal CO2'],
+    rrPerMin: ['RF', 'Respirationsfrekvens', 'Åndedrætsfrekvens'],
+    vtL: ['Tidalvolumen'],
+    vo2MlKgMin: ['VO2 relativ'],
+    rpe: ['Oplevet anstrengelse'],
+    marker: ['Markering', 'Hændelse'],
+    phase: ['Fase', 'Trin'],
+    bloodPressure: ['Blodtryk'],
+  },
+  metadata: {
+    subjectId: ['Patient', 'Patient-ID', 'Forsøgsperson', 'ID'],
+    date: ['Dato', 'Testdato', 'Undersøgelsesdato'],
+    clock: ['Klokkeslæt', 'Starttid'],
+    ageY: ['Alder', 'Alder (år)'],
+    sex: ['Køn'],
+    heightCm: ['Højde'],
+    weightKg: ['Vægt'],
+    modality: ['Ergometer', 'Testform'],
+    protocol: ['Protokol'],
+    barometricMmhg: ['Lufttryk', 'Barometertryk'],
+  },
+  sex: { female: ['k', 'kvinde', 'kvindelig'], male: ['m', 'mand', 'mandlig'] },
+  months: ['januar', 'februar', 'marts', 'april', 'maj', 'juni', 'juli', 'august', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['cykel', 'cykelergometer'], treadmill: ['løbebånd'] },
+  dayFirst: true,
+};

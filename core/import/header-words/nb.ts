@@ -1,0 +1,43 @@
+/** Norwegian (Bokmål) header words (HF hjertefrekvens, RF respirasjonsfrekvens; a sex of `K` is kvinne; common practice). */
+import type { HeaderWords } from './types';
+
+export const NB: HeaderWords = {
+  language: 'nb',
+  name: 'Norwegian',
+  columns: {
+    timeS: ['Tid', 'Testtid', 'Forløp'],
+    clock: ['Klokkeslett'],
+    vo2MlMin: ['Oksygenopptak', 'O2-opptak'],
+    vco2MlMin: ['CO2-utskillelse'],
+    veLMin: ['Ventilasjon', 'Minuttventilasjon'],
+    hrBpm: ['HF', 'Hjertefrekvens', 'Puls'],
+    workW: ['Belastning', 'Effekt'],
+    speedKmh: ['Hastighet', 'Fart'],
+    gradePct: ['Stigning', 'Helning'],
+    peto2Mmhg: ['Endetidal O2'],
+    petco2Mmhg: ['Endetidal CO2'],
+    rrPerMin: ['RF', 'Respirasjonsfrekvens', 'Pustefrekvens'],
+    vtL: ['Tidalvolum'],
+    vo2MlKgMin: ['VO2 relativ'],
+    rpe: ['Opplevd anstrengelse'],
+    marker: ['Markering', 'Hendelse'],
+    phase: ['Fase', 'Trinn'],
+    bloodPressure: ['Blodtrykk'],
+  },
+  metadata: {
+    subjectId: ['Pasient', 'Pasient-ID', 'Forsøksperson', 'ID'],
+    date: ['Dato', 'Testdato', 'Undersøkelsesdato'],
+    clock: ['Klokkeslett', 'Starttid'],
+    ageY: ['Alder', 'Alder (år)'],
+    sex: ['Kjønn'],
+    heightCm: ['Høyde'],
+    weightKg: ['Vekt'],
+    modality: ['Ergometer', 'Testform'],
+    protocol: ['Protokoll'],
+    barometricMmhg: ['Lufttrykk', 'Barometertrykk'],
+  },
+  sex: { female: ['k', 'kvinne', 'kvinnelig'], male: ['m', 'mann', 'mannlig'] },
+  months: ['januar', 'februar', 'mars', 'april', 'mai', 'juni', 'juli', 'august', 'september', 'oktober', 'november', 'desember'],
+  modality: { cycle: ['sykkel', 'sykkelergometer'], treadmill: ['tredemølle', 'løpebånd'] },
+  dayFirst: true,
+};

@@ -1,0 +1,43 @@
+/** Dutch header words (HF hartfrequentie, AF ademfrequentie; a sex of `V` is vrouw; common practice). */
+import type { HeaderWords } from './types';
+
+export const NL: HeaderWords = {
+  language: 'nl',
+  name: 'Dutch',
+  columns: {
+    timeS: ['Tijd', 'Testtijd', 'Duur'],
+    clock: ['Kloktijd', 'Tijdstip'],
+    vo2MlMin: ['O2-opname', 'Zuurstofopname'],
+    vco2MlMin: ['CO2-afgifte', 'CO2-productie'],
+    veLMin: ['Ventilatie', 'Ademminuutvolume', 'AMV'],
+    hrBpm: ['HF', 'Hartfrequentie', 'Pols'],
+    workW: ['Belasting', 'Vermogen'],
+    speedKmh: ['Snelheid'],
+    gradePct: ['Helling', 'Hellingshoek'],
+    peto2Mmhg: ['eind-expiratoire O2'],
+    petco2Mmhg: ['eind-expiratoire CO2'],
+    rrPerMin: ['AF', 'Ademfrequentie'],
+    vtL: ['Teugvolume', 'Ademvolume'],
+    vo2MlKgMin: ['VO2 relatief'],
+    rpe: ['Ervaren inspanning'],
+    marker: ['Markering', 'Gebeurtenis'],
+    phase: ['Fase', 'Stap'],
+    bloodPressure: ['Bloeddruk', 'RR'],
+  },
+  metadata: {
+    subjectId: ['Patiënt', 'Patiëntnummer', 'Patiënt-ID', 'Proefpersoon', 'ID'],
+    date: ['Datum', 'Testdatum', 'Onderzoeksdatum'],
+    clock: ['Tijd', 'Starttijd', 'Begintijd'],
+    ageY: ['Leeftijd', 'Leeftijd (jaar)'],
+    sex: ['Geslacht'],
+    heightCm: ['Lengte'],
+    weightKg: ['Gewicht'],
+    modality: ['Ergometer', 'Modaliteit', 'Testtype'],
+    protocol: ['Protocol'],
+    barometricMmhg: ['Luchtdruk', 'Barometerdruk'],
+  },
+  sex: { female: ['v', 'vrouw', 'vrouwelijk'], male: ['m', 'man', 'mannelijk'] },
+  months: ['januari', 'februari', 'maart', 'april', 'mei', 'juni', 'juli', 'augustus', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['fiets', 'fietsergometer'], treadmill: ['loopband'] },
+  dayFirst: true,
+};

@@ -1,0 +1,43 @@
+/** Swedish header words (HF hjärtfrekvens, AF andningsfrekvens; a sex of `K` is kvinna; common practice). */
+import type { HeaderWords } from './types';
+
+export const SV: HeaderWords = {
+  language: 'sv',
+  name: 'Swedish',
+  columns: {
+    timeS: ['Tid', 'Testtid', 'Förlopp'],
+    clock: ['Klockslag', 'Klocka'],
+    vo2MlMin: ['Syreupptag', 'O2-upptag'],
+    vco2MlMin: ['CO2-avgivning', 'Koldioxidavgivning'],
+    veLMin: ['Ventilation', 'Minutventilation'],
+    hrBpm: ['HF', 'Hjärtfrekvens', 'Puls'],
+    workW: ['Belastning', 'Effekt'],
+    speedKmh: ['Hastighet'],
+    gradePct: ['Lutning'],
+    peto2Mmhg: ['Endtidalt O2'],
+    petco2Mmhg: ['Endtidalt CO2'],
+    rrPerMin: ['AF', 'Andningsfrekvens'],
+    vtL: ['Tidalvolym', 'Andetagsvolym'],
+    vo2MlKgMin: ['VO2 relativ'],
+    rpe: ['Upplevd ansträngning'],
+    marker: ['Markering', 'Händelse'],
+    phase: ['Fas', 'Steg'],
+    bloodPressure: ['Blodtryck'],
+  },
+  metadata: {
+    subjectId: ['Patient', 'Patient-ID', 'Försöksperson', 'ID'],
+    date: ['Datum', 'Testdatum', 'Undersökningsdatum'],
+    clock: ['Klockslag', 'Starttid'],
+    ageY: ['Ålder', 'Ålder (år)'],
+    sex: ['Kön'],
+    heightCm: ['Längd'],
+    weightKg: ['Vikt'],
+    modality: ['Ergometer', 'Testform'],
+    protocol: ['Protokoll'],
+    barometricMmhg: ['Lufttryck', 'Barometertryck'],
+  },
+  sex: { female: ['k', 'kvinna', 'kvinnlig'], male: ['m', 'man', 'manlig'] },
+  months: ['januari', 'februari', 'mars', 'april', 'maj', 'juni', 'juli', 'augusti', 'september', 'oktober', 'november', 'december'],
+  modality: { cycle: ['cykel', 'cykelergometer'], treadmill: ['löpband', 'gångband'] },
+  dayFirst: true,
+};
