@@ -23,6 +23,7 @@ import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type
 import { fixed, minSec, MISSING, signed } from './format';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { followUpSection, followUpSummaryLine } from './follow-up-section';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -85,6 +86,7 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   for (const day of [outcome.day1, outcome.day2]) await daySection(L, day);
   await overlaySection(L, outcome);
   hrSection(L, outcome);
+  await followUpSection(L, caseFile, outcome.comparison.pairing.intervalH);
   methodsSection(L, caseFile.settings, outcome);
   provenanceSection(L, input);
   logSection(L, caseFile);
@@ -128,6 +130,8 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
   ]);
   L.subheading('Summary');
   L.paragraph(comparison.summary);
+  const recovery = followUpSummaryLine(input.caseFile);
+  if (recovery) L.paragraph(recovery);
   for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${w.message}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
 }

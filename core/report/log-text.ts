@@ -5,6 +5,7 @@
  * 'Day 2 VT1 set: 6:40, 1480 mL/min → 6:10, 1395 mL/min (given as a time)'.
  */
 import type { ReviewAction, ThresholdPoint } from '../case/case-file';
+import { describeFollowUpAction } from '../followup/describe';
 import { fixed, minSec } from './format';
 
 function point(p: ThresholdPoint | null): string {
@@ -19,5 +20,8 @@ export function describeAction(action: ReviewAction): string {
       return `Entry ${action.withdraws} withdrawn (day ${action.day} ${action.threshold.toUpperCase()}): ${point(action.before)} → ${point(action.after)}`;
     case 'sign-off':
       return `Sign-off: ${action.statement}`;
+    case 'follow-up':
+    case 'follow-up-correction':
+      return describeFollowUpAction(action);
   }
 }

@@ -167,7 +167,7 @@ function applyChange(id: number, change: (state: OpenCase) => { ok: true; value:
   post({ id, type: 'view', view: viewOf({ ...changed, imports: state.imports, values: values.value }, performance.now() - started) });
 
   const recordStarted = performance.now();
-  const recorded = recordResults(values.value);
+  const recorded = recordResults(values.value, next.value.log);
   if (!recorded.ok) return post({ id, type: 'record-failed', error: recorded.error, view: viewOf({ ...state, values: state.outcome }, performance.now() - started) });
   const kept: OpenCase = { ...state, ...changed, outcome: { ...values.value, recorded: recorded.value } };
   open = kept;
