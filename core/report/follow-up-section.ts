@@ -11,7 +11,7 @@ import type { CaseFile } from '../case/case-file';
 import { followUpsOf } from '../case/follow-ups';
 import { followUpCourse, recoveryText, type DayCourse, type FollowUpCourse } from '../followup/course';
 import { CHANNEL_LABELS, hoursText } from '../followup/report';
-import { renderSvg } from './charts';
+import { DAY_COLORS, renderSvg } from './charts';
 import { domainTimelineSpec } from './follow-up-charts';
 import { ACCENT, MUTED, WARN, type Layout } from './layout';
 
@@ -70,8 +70,12 @@ function sideBySide(L: Layout, course: FollowUpCourse): void {
 async function timelines(L: Layout, course: FollowUpCourse): Promise<void> {
   if (course.domains.length === 0) return;
   L.subheading('Ratings over time, per domain');
+  const { doc } = L;
+  doc.font(L.fonts.regular).fontSize(7.5).fillColor(DAY_COLORS.day1).text('—— after the day 1 test', L.left, doc.y, { continued: true });
+  doc.fillColor(DAY_COLORS.day2).text('      —— after the day 2 test', { continued: true });
+  doc.fillColor(MUTED).text('      dashed rule: reported back to usual state');
   const perRow = 3;
-  const w = (L.width - 8 * (perRow - 1)) / perRow - 40;
+  const w = (L.width - 8 * (perRow - 1)) / perRow - 42;
   for (let i = 0; i < course.domains.length; i += perRow) {
     const svgs = await Promise.all(course.domains.slice(i, i + perRow).map((d) => renderSvg(domainTimelineSpec(course, d, w, 70))));
     const sizes = svgs.map(svgSize);
@@ -94,19 +98,26 @@ function svgSize(svg: string): { width: number; height: number } {
   return { width: w ? Number(w[1]) : 160, height: h ? Number(h[1]) : 110 };
 }
 
+/** Column headers for the default domains, short enough for a narrow column; the side-by-side table names them in full. */
+const SHORT_HEADERS: Readonly<Record<string, string>> = {
+  'thinking and memory': 'thinking, memory',
+  'light-headedness on standing': 'light-headed standing',
+  'flu-like feelings': 'flu-like',
+};
+
 function reportTable(L: Layout, course: FollowUpCourse, intervalH: number | null): void {
   L.subheading('Every follow-up in force');
   const reports = [...course.day1.reports, ...course.day2.reports];
-  const domainShare = course.domains.length ? Math.min(0.07, 0.42 / course.domains.length) : 0;
-  const noteShare = 1 - 0.05 - 0.06 - 0.08 - 0.14 - 0.07 - domainShare * course.domains.length;
+  const domainShare = course.domains.length ? Math.min(0.08, 0.48 / course.domains.length) : 0;
+  const noteShare = 1 - 0.04 - 0.05 - 0.07 - 0.12 - 0.07 - domainShare * course.domains.length;
   L.table(
     [
-      { header: '#', width: 0.05 },
-      { header: 'Test', width: 0.06 },
-      { header: 'After', width: 0.08 },
-      { header: 'Reported by, how', width: 0.14 },
+      { header: '#', width: 0.04 },
+      { header: 'Test', width: 0.05 },
+      { header: 'After', width: 0.07 },
+      { header: 'Reported by, how', width: 0.12 },
       { header: 'Usual state', width: 0.07 },
-      ...course.domains.map((d) => ({ header: d, width: domainShare, align: 'center' as const })),
+      ...course.domains.map((d) => ({ header: SHORT_HEADERS[d] ?? d, width: domainShare, align: 'center' as const })),
       { header: 'Note; corrections', width: noteShare },
     ],
     reports.map((r) => [
