@@ -18,7 +18,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { CaseFile } from '../../core/case/case-file';
-import { followUpsOf, recordFollowUp, recordFollowUpCorrection } from '../../core/case/follow-ups';
+import { correctableFollowUp, followUpsOf, recordFollowUp, recordFollowUpCorrection } from '../../core/case/follow-ups';
 import { currentSignOff } from '../../core/case/overrides';
 import type { Reviewer } from '../../core/case/review';
 import { followUpCourse, recoveryText } from '../../core/followup/course';
@@ -209,9 +209,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       appended = recordFollowUp(appended.value, stamp, row.report, reason, sheetPath);
     }
   } else {
-    const item = followUpsOf(caseFile.log).find((f) => f.seq === mode.seq);
-    const report = mode.kind === 'strike' ? null : reportOf(values, item?.report ?? null);
-    appended = recordFollowUpCorrection(caseFile, stamp, mode.seq, report, reason, 'command line');
+    const target = correctableFollowUp(caseFile.log, mode.seq, 'command line');
+    appended = target.ok ? recordFollowUpCorrection(caseFile, stamp, mode.seq, mode.kind === 'strike' ? null : reportOf(values, target.value.report), reason, 'command line') : target;
   }
   if (!appended.ok) return badInput(io, { ...appended.error, file: appended.error.file === 'command line' ? path : appended.error.file, message: `${appended.error.message} Nothing was recorded.` });
 

@@ -8,7 +8,7 @@ import type { FollowUpAction } from '../followup/actions';
 import { courseNumbers, followUpCourse, type FollowUpCorrection, type RecordedFollowUp } from '../followup/course';
 import type { FollowUpReport } from '../followup/report';
 import { checkFollowUpReport } from '../followup/report-schema';
-import { fail, locatedError, type Result } from '../model/errors';
+import { fail, locatedError, ok, type Result } from '../model/errors';
 import { appendEntry } from './audit-log';
 import type { AuditEntry, CaseFile } from './case-file';
 import type { Reviewer } from './review';
@@ -19,17 +19,25 @@ export function recordFollowUp(caseFile: CaseFile, recorder: Reviewer, report: u
   return appendEntry(caseFile, { ...recorder, reason, action: { kind: 'follow-up', report: checked.value } });
 }
 
-/** Corrects the report first recorded in entry `seq`; `report` null strikes it out (entered in error). */
-export function recordFollowUpCorrection(caseFile: CaseFile, recorder: Reviewer, seq: number, report: unknown | null, reason: string, file = 'follow-up'): Result<CaseFile> {
-  const item = followUpsOf(caseFile.log).find((f) => f.seq === seq);
+/** The report first recorded in entry `seq`, still in force, or why it cannot be corrected. */
+export function correctableFollowUp(log: readonly AuditEntry[], seq: number, file = 'follow-up'): Result<RecordedFollowUp & { readonly report: FollowUpReport }> {
+  const item = followUpsOf(log).find((f) => f.seq === seq);
   if (!item) {
-    const target = caseFile.log.find((e) => e.seq === seq);
+    const target = log.find((e) => e.seq === seq);
     const what = target?.action.kind === 'follow-up-correction' ? `a correction of entry ${target.action.corrects}; correct entry ${target.action.corrects} itself` : 'not a follow-up report';
     return fail(locatedError('follow-up-unknown', file, null, null, `Reviewer log entry ${seq} is ${target ? what : 'not in the log'}, so there is nothing to correct.`));
   }
   if (item.report === null) {
     return fail(locatedError('follow-up-struck', file, null, null, `The follow-up in entry ${seq} was struck out in entry ${item.corrections[item.corrections.length - 1].seq}; record a new follow-up instead.`));
   }
+  return ok({ ...item, report: item.report });
+}
+
+/** Corrects the report first recorded in entry `seq`; `report` null strikes it out (entered in error). */
+export function recordFollowUpCorrection(caseFile: CaseFile, recorder: Reviewer, seq: number, report: unknown | null, reason: string, file = 'follow-up'): Result<CaseFile> {
+  const target = correctableFollowUp(caseFile.log, seq, file);
+  if (!target.ok) return target;
+  const item = target.value;
   if (report === null) return appendEntry(caseFile, { ...recorder, reason, action: { kind: 'follow-up-correction', corrects: seq, report: null } });
   const checked = checkFollowUpReport(report, file);
   if (!checked.ok) return checked;
