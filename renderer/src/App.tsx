@@ -227,9 +227,12 @@ export function App({ host }: { host: HostClient }) {
     return true;
   };
 
-  const setThreshold = (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) =>
-    needReviewer() ? Promise.resolve() : act({ type: 'set-threshold', day, threshold, givenAs, value, reason, reviewer, at: new Date().toISOString() });
-  const withdraw = (seq: number, reason: string) => (needReviewer() ? Promise.resolve() : act({ type: 'withdraw', seq, reason, reviewer, at: new Date().toISOString() }));
+  const setThreshold = async (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) => {
+    if (!needReviewer()) await act({ type: 'set-threshold', day, threshold, givenAs, value, reason, reviewer, at: new Date().toISOString() });
+  };
+  const withdraw = async (seq: number, reason: string) => {
+    if (!needReviewer()) await act({ type: 'withdraw', seq, reason, reviewer, at: new Date().toISOString() });
+  };
 
   const refreshSigners = useCallback(async () => {
     const reply = await host.call('listSigners', {});
