@@ -83,7 +83,7 @@ describe('Recovery calls, keyboard only', () => {
     await page.waitForSelector('[data-testid="follow-up-2"]', { timeout: 30_000 });
     expect(await page.locator('[data-testid="recovery-day2"]').textContent()).toContain('reported back to usual state by 72 h (3 days); not yet at 20 h');
     await page.waitForTimeout(500);
-    await page.screenshot({ path: join(SCREENSHOTS, '7-recovery-calls.png'), fullPage: true });
+    await page.screenshot({ path: join(SCREENSHOTS, '10-recovery-calls.png'), fullPage: true });
   });
 
   it('refuses a bad field without losing what was typed', async () => {
