@@ -6,7 +6,7 @@
  * Time to reported recovery (Twofold's rule, docs/follow-up.md): the earliest follow-up at
  * which the person reports being back to their usual state and after which no follow-up of
  * the same test says otherwise. Follow-ups are spaced, so recovery happened at or before that
- * time and after the latest earlier report of not being back ("by 48 h; not yet at 24 h").
+ * time and after the latest earlier report of not being back ("by 48 h, not yet at 24 h").
  * When the latest follow-up reports not being back: "not recovered by the last follow-up at N
  * days". Reports at the same hour count in the order they were recorded.
  *
@@ -111,7 +111,7 @@ export function recoveryText(recovery: Recovery): string {
     case 'no-follow-up':
       return 'no follow-up recorded';
     case 'recovered':
-      return `reported back to usual state by ${hoursText(recovery.byH)}${recovery.notYetAtH === null ? '' : `; not yet at ${hoursText(recovery.notYetAtH)}`}`;
+      return `reported back to usual state by ${hoursText(recovery.byH)}${recovery.notYetAtH === null ? '' : `, not yet at ${hoursText(recovery.notYetAtH)}`}`;
     case 'not-recovered':
       return `not recovered by the last follow-up at ${daysText(recovery.lastH)}`;
   }

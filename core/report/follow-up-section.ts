@@ -28,7 +28,7 @@ export function caseFollowUpCourse(caseFile: CaseFile): FollowUpCourse | null {
 export function followUpSummaryLine(caseFile: CaseFile): string | null {
   const course = caseFollowUpCourse(caseFile);
   if (!course) return null;
-  return `Recovery as reported by the person: after the day 1 test, ${recoveryText(course.day1.recovery)}; after the day 2 test, ${recoveryText(course.day2.recovery)} (follow-up page).`;
+  return `Recovery as reported by the person (follow-up page): after the day 1 test, ${recoveryText(course.day1.recovery)}; after the day 2 test, ${recoveryText(course.day2.recovery)}.`;
 }
 
 export async function followUpSection(L: Layout, caseFile: CaseFile, intervalH: number | null): Promise<void> {

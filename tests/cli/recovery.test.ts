@@ -46,7 +46,7 @@ describe('twofold recovery', () => {
 
     const list = io();
     expect(await main(['recovery', folder, '--list'], list.io)).toBe(0);
-    expect(list.out()).toContain('after the day 1 test: reported back to usual state by 36 h; not yet at 22 h');
+    expect(list.out()).toContain('after the day 1 test: reported back to usual state by 36 h, not yet at 22 h');
     expect(list.out()).toContain('corrected in entry 3 by C. Coordinator');
     expect(list.out()).toContain('after the day 2 test: no follow-up recorded');
     const json = io();

@@ -81,7 +81,7 @@ describe('Recovery calls, keyboard only', () => {
     await field('y');
     await page.keyboard.press('Enter');
     await page.waitForSelector('[data-testid="follow-up-2"]', { timeout: 30_000 });
-    expect(await page.locator('[data-testid="recovery-day2"]').textContent()).toContain('reported back to usual state by 72 h (3 days); not yet at 20 h');
+    expect(await page.locator('[data-testid="recovery-day2"]').textContent()).toContain('reported back to usual state by 72 h (3 days), not yet at 20 h');
     await page.waitForTimeout(500);
     await page.screenshot({ path: join(SCREENSHOTS, '10-recovery-calls.png'), fullPage: true });
   });
@@ -110,7 +110,7 @@ describe('Recovery calls, keyboard only', () => {
     await page.keyboard.press('Enter');
     await page.waitForFunction(() => document.querySelector('[data-testid="follow-up-2"]')?.textContent?.includes('corrected in entry 3'), undefined, { timeout: 30_000 });
     expect(await page.locator('[data-testid="follow-up-2"]').textContent()).toContain('96 h (4 days)');
-    expect(await page.locator('[data-testid="recovery-day2"]').textContent()).toContain('reported back to usual state by 96 h (4 days); not yet at 20 h');
+    expect(await page.locator('[data-testid="recovery-day2"]').textContent()).toContain('reported back to usual state by 96 h (4 days), not yet at 20 h');
   });
 
   it('exports a signed PDF whose follow-up page shows the entry; twofold verify accepts it', async () => {
@@ -121,7 +121,7 @@ describe('Recovery calls, keyboard only', () => {
     const text = execFileSync('pdftotext', [path, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
     expect(text).toContain('Recovery after each test, as reported');
     expect(text).toContain('quillfeather tea');
-    expect(text).toMatch(/after the day 2 test, reported back to usual state by 96 h \(4 days\); not yet at 20 h/);
+    expect(text).toMatch(/after the day 2 test, reported back to usual state by 96 h \(4 days\), not yet at 20 h/);
     expect(text).toContain('corrected in entry 3 by K. Lindqvist');
     const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path], { encoding: 'utf8', timeout: 120_000 });
     expect(out).toContain('The report is intact and its numbers reproduce.');

@@ -22,7 +22,7 @@ describe('time to reported recovery', () => {
     const r = recoveryOf([report(2, 20, false), report(2, 168, false)]);
     expect(r).toEqual({ kind: 'not-recovered', lastH: 168 });
     expect(recoveryText(r)).toBe('not recovered by the last follow-up at 7 days (168 h)');
-    expect(recoveryText({ kind: 'recovered', byH: 48, notYetAtH: 22 })).toBe('reported back to usual state by 48 h (2 days); not yet at 22 h');
+    expect(recoveryText({ kind: 'recovered', byH: 48, notYetAtH: 22 })).toBe('reported back to usual state by 48 h (2 days), not yet at 22 h');
     expect(recoveryText(recoveryOf([]))).toBe('no follow-up recorded');
   });
 
