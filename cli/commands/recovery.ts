@@ -21,8 +21,10 @@ import type { CaseFile } from '../../core/case/case-file';
 import { correctableFollowUp, followUpsOf, recordFollowUp, recordFollowUpCorrection } from '../../core/case/follow-ups';
 import { currentSignOff } from '../../core/case/overrides';
 import type { Reviewer } from '../../core/case/review';
+import { FOLLOW_UP_CAUTION } from '../../core/followup/caution';
 import { followUpCourse, recoveryText } from '../../core/followup/course';
-import { describeFollowUpAction, describeReport } from '../../core/followup/describe';
+import { describeReport } from '../../core/followup/describe';
+import { describeAction } from '../../core/report/log-text';
 import { readBackToUsual, readChannel, readHours, readScore, readTestDay, type Field } from '../../core/followup/fields';
 import { DEFAULT_DOMAINS, FOLLOW_UP_VERSION, type DomainRating, type FollowUpReport } from '../../core/followup/report';
 import { readFollowUpSheet } from '../../core/followup/sheet';
@@ -224,7 +226,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (!saved.ok) return badInput(io, saved.error);
   const added = after.value.caseFile.log.slice(caseFile.log.length);
   const lines = [`case     ${saved.value}`];
-  for (const e of added) lines.push(`entry ${e.seq}  ${describeFollowUpAction(e.action as Parameters<typeof describeFollowUpAction>[0])}`, `         by ${e.who} (${e.role}) at ${e.at}; reason: ${e.reason}`);
+  for (const e of added) lines.push(`entry ${e.seq}  ${describeAction(e.action)}`, `         by ${e.who} (${e.role}) at ${e.at}; reason: ${e.reason}`);
   const course = followUpCourse(followUpsOf(after.value.caseFile.log));
   lines.push(`recovery after the day 1 test: ${recoveryText(course.day1.recovery)}`, `recovery after the day 2 test: ${recoveryText(course.day2.recovery)}`);
   const signOff = currentSignOff(caseFile.log);
@@ -256,7 +258,7 @@ function listing(path: string, caseFile: CaseFile): string {
     const c = s.corrections[s.corrections.length - 1];
     lines.push(`struck out: entry ${s.seq} (${describeReport(s.original)}) in entry ${c.seq} by ${c.who}: ${c.reason}`);
   }
-  lines.push('', "Symptom reports are the person's own account; interpreting them is the clinician's task.", '');
+  lines.push('', FOLLOW_UP_CAUTION, '');
   return lines.join('\n');
 }
 

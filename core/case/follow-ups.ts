@@ -4,7 +4,6 @@
  * that first recorded the report; correcting twice keeps the newest. Who records, their role,
  * the time and a reason are required, as for every reviewer action.
  */
-import type { FollowUpAction } from '../followup/actions';
 import { courseNumbers, followUpCourse, type FollowUpCorrection, type RecordedFollowUp } from '../followup/course';
 import type { FollowUpReport } from '../followup/report';
 import { checkFollowUpReport } from '../followup/report-schema';
@@ -51,10 +50,10 @@ export function recordFollowUpCorrection(caseFile: CaseFile, recorder: Reviewer,
 export function followUpsOf(log: readonly AuditEntry[]): RecordedFollowUp[] {
   const items = new Map<number, { seq: number; at: string; who: string; role: string; report: FollowUpReport | null; original: FollowUpReport; corrections: FollowUpCorrection[] }>();
   for (const entry of log) {
-    const action = entry.action as FollowUpAction | { kind: string };
-    if (action.kind === 'follow-up' && 'report' in action && action.report) {
+    const action = entry.action;
+    if (action.kind === 'follow-up') {
       items.set(entry.seq, { seq: entry.seq, at: entry.at, who: entry.who, role: entry.role, report: action.report, original: action.report, corrections: [] });
-    } else if (action.kind === 'follow-up-correction' && 'corrects' in action) {
+    } else if (action.kind === 'follow-up-correction') {
       const item = items.get(action.corrects);
       // A correction of an unknown entry cannot be recorded by these functions; a hand-made one changes nothing.
       if (!item || item.report === null) continue;

@@ -10,13 +10,11 @@ import SVGtoPDF from 'svg-to-pdfkit';
 import type { CaseFile } from '../case/case-file';
 import { followUpsOf } from '../case/follow-ups';
 import { followUpCourse, recoveryText, type DayCourse, type FollowUpCourse } from '../followup/course';
+import { FOLLOW_UP_CAUTION } from '../followup/caution';
 import { CHANNEL_LABELS, hoursText } from '../followup/report';
 import { DAY_COLORS, renderSvg } from './charts';
 import { domainTimelineSpec } from './follow-up-charts';
 import { ACCENT, MUTED, WARN, type Layout } from './layout';
-
-export const FOLLOW_UP_CAUTION =
-  "Symptom reports are the person's own account (or a relative's, where shown), recorded as given. The times and courses below are derived from them as reported; they are not measurements and not a diagnosis. Interpreting them is the clinician's task.";
 
 /** The course of a case's follow-ups, or null when there are none. */
 export function caseFollowUpCourse(caseFile: CaseFile): FollowUpCourse | null {

@@ -49,6 +49,8 @@ describe('twofold recovery', () => {
     expect(list.out()).toContain('after the day 1 test: reported back to usual state by 36 h, not yet at 22 h');
     expect(list.out()).toContain('corrected in entry 3 by C. Coordinator');
     expect(list.out()).toContain('after the day 2 test: no follow-up recorded');
+    expect(list.out()).toContain("Symptom reports are the person's own account");
+    expect(list.out()).toContain("Interpreting them is the clinician's task.");
     const json = io();
     expect(await main(['recovery', folder, '--list', '--json'], json.io)).toBe(0);
     expect(JSON.parse(json.out()).recovery.day1).toMatchObject({ kind: 'recovered', byH: 36, notYetAtH: 22 });

@@ -10,6 +10,7 @@
 import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import { followUpsOf } from '../../../core/case/follow-ups';
+import { FOLLOW_UP_CAUTION } from '../../../core/followup/caution';
 import { followUpCourse, recoveryText } from '../../../core/followup/course';
 import { readBackToUsual, readChannel, readHours, readScore, readTestDay, type Field } from '../../../core/followup/fields';
 import { CHANNEL_LABELS, DEFAULT_DOMAINS, FOLLOW_UP_VERSION, hoursText, type FollowUpReport } from '../../../core/followup/report';
@@ -159,8 +160,7 @@ export function RecoveryCalls({ view, onSubmit }: Props) {
     <div className="recovery">
       <Caution />
       <aside className="caution" role="note" aria-label="Symptom reports">
-        <strong>Reported, not measured.</strong> Symptom reports are the person&apos;s own account, recorded as given. The times below are derived
-        from them as reported, not a diagnosis; interpreting them is the clinician&apos;s task.
+        <strong>Reported, not measured.</strong> {FOLLOW_UP_CAUTION}
       </aside>
       <section className="panel" aria-label="Recovery after each test">
         <h2>Recovery after each test</h2>
