@@ -30,5 +30,5 @@ describe('twofold demo', () => {
     const v = io();
     expect(await main(['verify', pdf], v.io)).toBe(0);
     expect(v.out()).toContain('numbers reproduce');
-  });
+  }, 180_000); // The whole job plus pdfsig, pdftotext and verify: over a minute on a loaded 2-core machine.
 });
