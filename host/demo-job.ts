@@ -2,8 +2,8 @@
  * `twofold demo`: the whole job on the demo declining pair (sample-tests/demo/qh0417, an
  * invented subject at an invented lab). One reviewer override is recorded: day 2 VT1 set, by
  * its VO2, to the estimate of the method nearest the automatic consensus (a reviewer's usual
- * call when the methods disagree and one breakpoint reads clearly), with a reason; then a
- * sign-off. The report is signed with a
+ * call when the methods disagree and one breakpoint reads clearly), with a reason; the
+ * invented follow-up reports (sample-tests/scenario/demo-follow-ups.ts); then a sign-off. The report is signed with a
  * freshly generated demonstration certificate.
  */
 import { fileURLToPath } from 'node:url';
@@ -11,6 +11,7 @@ import { dirname, join } from 'node:path';
 import { existsSync, writeFileSync, mkdirSync } from 'node:fs';
 import { newCase } from '../core/case/new-case';
 import { recordOverride, recordSignOff, type Reviewer } from '../core/case/review';
+import { recordDemoFollowUps } from './demo-follow-ups';
 import { noClinicalInputs } from '../core/analyze/analyze-test';
 import { DEFAULT_SETTINGS, type Settings } from '../core/model/settings';
 import type { Result } from '../core/model/errors';
@@ -56,6 +57,9 @@ export async function runDemo(outDir: string, now: Date, paper: Settings['report
   const overridden = recordOverride(caseFile, first.value.outcome, reviewer, 2, 'vt1', { vo2MlMin: chosen.vo2MlMin }, reason);
   if (!overridden.ok) return overridden;
   caseFile = overridden.value;
+  const followedUp = recordDemoFollowUps(caseFile, { who: 'B. Demo', role: 'lab coordinator (demonstration)', at });
+  if (!followedUp.ok) return followedUp;
+  caseFile = followedUp.value;
   const signedOff = recordSignOff(caseFile, reviewer, 'Reviewed; thresholds accepted as shown (demonstration).', 'Demonstration sign-off.');
   if (!signedOff.ok) return signedOff;
   caseFile = signedOff.value;

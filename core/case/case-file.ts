@@ -9,6 +9,7 @@
 import type { ColumnMapping } from '../import/mapping';
 import type { ClinicalInputs, ThresholdId } from '../model/analysis';
 import type { Settings } from '../model/settings';
+import type { FollowUpAction } from '../followup/actions';
 
 export const CASE_FORMAT = 'twofold-case' as const;
 export const CASE_VERSION = 1 as const;
@@ -66,7 +67,9 @@ export type ReviewAction =
       readonly kind: 'sign-off';
       /** The statement the reviewer signs, e.g. "Reviewed; thresholds accepted as shown." */
       readonly statement: string;
-    };
+    }
+  // Follow-up reports after each test (core/followup/), chained like every reviewer action.
+  | FollowUpAction;
 
 /** The fields of a log entry that its hash covers, everything but `hash` itself. */
 export interface AuditEntryBody {

@@ -6,6 +6,7 @@
 import { settingsSchema } from '../analyze/settings-input';
 import { parseMapping } from '../import/mapping';
 import { z } from 'zod';
+import { followUpReportSchema } from '../followup/report-schema';
 import { CASE_FORMAT, CASE_VERSION } from './case-file';
 import { resolveLocale } from '../locale/locales';
 
@@ -47,6 +48,8 @@ const actionSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('set-threshold'), day, threshold, givenAs: z.enum(['time', 'vo2']), before: point.nullable(), after: point }),
   z.object({ kind: z.literal('withdraw'), withdraws: z.number().int().positive(), day, threshold, before: point.nullable(), after: point.nullable() }),
   z.object({ kind: z.literal('sign-off'), statement: z.string().min(1) }),
+  z.object({ kind: z.literal('follow-up'), report: followUpReportSchema }),
+  z.object({ kind: z.literal('follow-up-correction'), corrects: z.number().int().positive(), report: followUpReportSchema.nullable() }),
 ]);
 
 const entrySchema = z.object({

@@ -14,10 +14,11 @@
 import type { TestAnalysis, ThresholdId, ThresholdResult } from '../model/analysis';
 import { fail, locatedError, ok, type Result } from '../model/errors';
 import { SOFTWARE_VERSION } from '../version';
-import { columnMapOf, type CaseFile, type DayNumber, type RawInput, type RecordedResults, type ThresholdPoint } from './case-file';
+import { columnMapOf, type AuditEntry, type CaseFile, type DayNumber, type RawInput, type RecordedResults, type ThresholdPoint } from './case-file';
 import { canonicalJson } from './canonical-json';
 import type { Engine } from './engine';
 import { flattenLeaves } from './flatten';
+import { followUpNumbers } from './follow-ups';
 import { activeOverrides, overrideKey, type ActiveOverride } from './overrides';
 import { sha256Hex } from './sha256';
 
@@ -58,7 +59,7 @@ export interface RawBytes {
 export function recomputeCase<C>(caseFile: CaseFile, raw: RawBytes, engine: Engine<C>): Result<CaseOutcome<C>> {
   const values = recomputeValues(caseFile, raw, engine);
   if (!values.ok) return values;
-  const recorded = recordResults(values.value);
+  const recorded = recordResults(values.value, caseFile.log);
   if (!recorded.ok) return recorded;
   return ok({ ...values.value, recorded: recorded.value });
 }
@@ -112,9 +113,11 @@ function applyOverrides<C>(day: DayNumber, automatic: TestAnalysis, vt1: ActiveO
 /**
  * The headline numbers (thresholds as used, peaks, effort, the whole comparison) and a digest
  * of everything: SHA-256 (FIPS 180-4) of the canonical JSON of both analyses and the
- * comparison, non-finite numbers written as strings.
+ * comparison, non-finite numbers written as strings. With the reviewer log, the follow-up
+ * figures (core/followup/course.ts) join the numbers, so verification recomputes them too; a
+ * log without follow-ups adds nothing.
  */
-export function recordResults<C>({ day1, day2, comparison }: CaseValues<C>): Result<RecordedResults> {
+export function recordResults<C>({ day1, day2, comparison }: CaseValues<C>, log: readonly AuditEntry[] = []): Result<RecordedResults> {
   const headline = (d: DayOutcome) => ({
     vt1: d.analysis.vt1.at,
     vt2: d.analysis.vt2.at,
@@ -129,6 +132,6 @@ export function recordResults<C>({ day1, day2, comparison }: CaseValues<C>): Res
   return ok({
     softwareVersion: SOFTWARE_VERSION,
     digest: sha256Hex(everything.value),
-    numbers: flattenLeaves({ day1: headline(day1), day2: headline(day2), comparison }),
+    numbers: flattenLeaves({ day1: headline(day1), day2: headline(day2), comparison, ...followUpNumbers(log) }),
   });
 }

@@ -24,6 +24,7 @@ import { MISSING, reportFormat } from './format';
 import { localeByTag } from '../locale/locales';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { followUpSection, followUpSummaryLine } from './follow-up-section';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -87,6 +88,7 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   for (const day of [outcome.day1, outcome.day2]) await daySection(L, day);
   await overlaySection(L, outcome);
   hrSection(L, outcome);
+  await followUpSection(L, caseFile, outcome.comparison.pairing.intervalH);
   methodsSection(L, caseFile.settings, outcome);
   provenanceSection(L, input);
   logSection(L, caseFile);
@@ -130,6 +132,8 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
   ]);
   L.subheading('Summary');
   L.paragraph(L.f.prose(comparison.summary));
+  const recovery = followUpSummaryLine(input.caseFile);
+  if (recovery) L.paragraph(L.f.prose(recovery));
   for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${L.f.prose(w.message)}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
 }

@@ -5,6 +5,7 @@
  * 'Day 2 VT1 set: 6:40, 1480 mL/min → 6:10, 1395 mL/min (given as a time)'.
  */
 import type { ReviewAction, ThresholdPoint } from '../case/case-file';
+import { describeFollowUpAction } from '../followup/describe';
 import { fixed, minSec, type ReportFormat } from './format';
 
 const NEUTRAL = { fixed, minSec };
@@ -22,5 +23,8 @@ export function describeAction(action: ReviewAction, f: Pick<ReportFormat, 'fixe
       return `Entry ${action.withdraws} withdrawn (day ${action.day} ${action.threshold.toUpperCase()}): ${point(action.before, f)} → ${point(action.after, f)}`;
     case 'sign-off':
       return `Sign-off: ${action.statement}`;
+    case 'follow-up':
+    case 'follow-up-correction':
+      return describeFollowUpAction(action);
   }
 }

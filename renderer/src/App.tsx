@@ -25,6 +25,7 @@ import { Intake } from './screens/Intake';
 import { Breakpoints } from './screens/Breakpoints';
 import { DayOver } from './screens/DayOver';
 import { SignOff, type ExportState } from './screens/SignOff';
+import { RecoveryCalls } from './screens/RecoveryCalls';
 
 type View = EngineView<Comparison>;
 
@@ -33,6 +34,7 @@ const SCREENS: readonly { id: Screen; command: CommandId; label: string }[] = [
   { id: 'breakpoints', command: 'go.breakpoints', label: 'Breakpoints' },
   { id: 'dayover', command: 'go.dayover', label: 'Day 2 vs Day 1' },
   { id: 'signoff', command: 'go.signoff', label: 'Sign-off' },
+  { id: 'recovery', command: 'go.recovery', label: 'Recovery calls' },
 ];
 
 const REVIEWER_KEY = 'twofold-reviewer';
@@ -213,12 +215,13 @@ export function App({ host }: { host: HostClient }) {
   );
 
   const act = useCallback(
-    async (request: EngineRequest) => {
-      if (!summary) return;
+    async (request: EngineRequest): Promise<boolean> => {
+      if (!summary) return false;
       changeStarted.current = performance.now();
       const reply = await engine.request(request);
       replyAt.current = performance.now();
       settle(reply);
+      return reply.type === 'view';
     },
     [engine, settle, summary],
   );
@@ -229,9 +232,12 @@ export function App({ host }: { host: HostClient }) {
     return true;
   };
 
-  const setThreshold = (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) =>
-    needReviewer() ? Promise.resolve() : act({ type: 'set-threshold', day, threshold, givenAs, value, reason, reviewer, at: new Date().toISOString() });
-  const withdraw = (seq: number, reason: string) => (needReviewer() ? Promise.resolve() : act({ type: 'withdraw', seq, reason, reviewer, at: new Date().toISOString() }));
+  const setThreshold = async (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) => {
+    if (!needReviewer()) await act({ type: 'set-threshold', day, threshold, givenAs, value, reason, reviewer, at: new Date().toISOString() });
+  };
+  const withdraw = async (seq: number, reason: string) => {
+    if (!needReviewer()) await act({ type: 'withdraw', seq, reason, reviewer, at: new Date().toISOString() });
+  };
 
   const refreshSigners = useCallback(async () => {
     const reply = await host.call('listSigners', {});
@@ -392,6 +398,7 @@ export function App({ host }: { host: HostClient }) {
           <Breakpoints view={view} day={reviewDay} onDay={setReviewDay} onSet={setThreshold} onWithdraw={withdraw} active={pending} renderMs={renderMs} />
         )}
         {screen === 'dayover' && view && <DayOver view={view} />}
+        {screen === 'recovery' && view && <RecoveryCalls view={view} onSubmit={(request) => (needReviewer() ? Promise.resolve(false) : act({ ...request, reviewer, at: new Date().toISOString() }))} />}
         {screen === 'signoff' && view && summary && (
           <SignOff
             view={view}

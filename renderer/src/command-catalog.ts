@@ -12,6 +12,7 @@ export const COMMAND_CATALOG = [
   { id: 'go.breakpoints', label: 'Breakpoints', menu: 'Go', keys: 'Ctrl+2' },
   { id: 'go.dayover', label: 'Day 2 vs Day 1', menu: 'Go', keys: 'Ctrl+3' },
   { id: 'go.signoff', label: 'Sign-off', menu: 'Go', keys: 'Ctrl+4' },
+  { id: 'go.recovery', label: 'Recovery calls', menu: 'Go', keys: 'Ctrl+5' },
   { id: 'review.day1', label: 'Review day 1', menu: 'Review', keys: 'Alt+1' },
   { id: 'review.day2', label: 'Review day 2', menu: 'Review', keys: 'Alt+2' },
   { id: 'review.undo', label: 'Undo last threshold change', menu: 'Review', keys: 'Ctrl+Z' },

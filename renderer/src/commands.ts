@@ -5,7 +5,7 @@
  */
 import { COMMAND_CATALOG, type CommandId } from './command-catalog';
 
-export type Screen = 'intake' | 'breakpoints' | 'dayover' | 'signoff';
+export type Screen = 'intake' | 'breakpoints' | 'dayover' | 'signoff' | 'recovery';
 
 /** What a command may do, provided by the app shell. */
 export interface CommandContext {
@@ -39,6 +39,7 @@ export const COMMANDS: Readonly<Record<CommandId, CommandBehaviour>> = {
   'go.breakpoints': { enabled: withCase, run: (ctx) => ctx.go('breakpoints') },
   'go.dayover': { enabled: withCase, run: (ctx) => ctx.go('dayover') },
   'go.signoff': { enabled: withCase, run: (ctx) => ctx.go('signoff') },
+  'go.recovery': { enabled: withCase, run: (ctx) => ctx.go('recovery') },
   'review.day1': { enabled: withCase, run: (ctx) => { ctx.go('breakpoints'); ctx.reviewDay(1); } },
   'review.day2': { enabled: withCase, run: (ctx) => { ctx.go('breakpoints'); ctx.reviewDay(2); } },
   'review.undo': { enabled: (ctx) => ctx.canUndo, run: (ctx) => ctx.undo() },

@@ -23,8 +23,12 @@ describe('twofold demo', () => {
     const text = spawnSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).stdout;
     expect(text).toContain('not a clinical signature');
     expect(text).toContain('Used: set by the reviewer');
+    // The demo's invented follow-ups (sample-tests/scenario/demo-follow-ups.ts): back to usual state at the 288 h call after day 2, not yet at 168 h.
+    expect(text).toContain('Recovery after each test, as reported');
+    expect(text.replace(/\s+/g, ' ')).toContain("not a diagnosis. Interpreting them is the clinician's task.");
+    expect(text.replace(/\s+/g, ' ')).toContain('after the day 2 test, reported back to usual state by 288 h (12 days), not yet at 168 h (7 days)');
     const v = io();
     expect(await main(['verify', pdf], v.io)).toBe(0);
     expect(v.out()).toContain('numbers reproduce');
-  });
+  }, 180_000); // The whole job plus pdfsig, pdftotext and verify: over a minute on a loaded 2-core machine.
 });

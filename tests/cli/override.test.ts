@@ -181,9 +181,12 @@ describe('twofold override', () => {
     const demo = join(dir, 'demo');
     expect(await main(['demo', '--out', demo], io().io)).toBe(0);
     const folder = join(demo, 'case');
+    // The demo's log: the override (entry 1), its follow-up reports, then the sign-off last.
+    const log: { seq: number; action: { kind: string } }[] = caseJson(folder).log;
+    expect(log[log.length - 1].action.kind).toBe('sign-off');
     const t = io();
     expect(await main(['override', folder, '--withdraw', '1', '--reason', 'Back to the consensus', ...WHO], t.io), t.err()).toBe(0);
-    expect(t.out()).toContain('the sign-off in entry 2 no longer covers the thresholds shown');
+    expect(t.out()).toContain(`the sign-off in entry ${log.length} no longer covers the thresholds shown`);
     expect(caseJson(folder).recorded.numbers['day2.vt1Source']).toBe('automatic');
   });
 });

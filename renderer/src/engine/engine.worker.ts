@@ -18,6 +18,7 @@ import { caseFromText, caseToText } from '../../../core/case/case-text';
 import { recomputeCase, recomputeValues, recordResults, type CaseOutcome, type CaseValues, type RawBytes } from '../../../core/case/recompute';
 import { recordOverride, recordWithdrawal } from '../../../core/case/review';
 import { activeOverrides } from '../../../core/case/overrides';
+import { recordFollowUp, recordFollowUpCorrection } from '../../../core/case/follow-ups';
 import { locatedError, ok, type LocatedError } from '../../../core/model/errors';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
@@ -172,19 +173,20 @@ async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'o
  * covers the action and the values), then records the new state and posts the record. A
  * state whose results cannot be recorded is dropped: the page gets the previous view back.
  */
-function applyChange(id: number, change: (state: OpenCase) => { ok: true; value: CaseFile } | { ok: false; error: LocatedError }, redoAfter: (state: OpenCase) => readonly RedoItem[] = (s) => s.redo): void {
+function applyChange(id: number, change: (state: OpenCase) => { ok: true; value: CaseFile } | { ok: false; error: LocatedError }, redoAfter: (state: OpenCase) => readonly RedoItem[] = (s) => s.redo, sameValues = false): void {
   const state = open;
   if (!state) return post({ id, type: 'error', error: { code: 'no-case', file: 'workbench', line: null, column: null, message: 'Open a case first.' } });
   const started = performance.now();
   const next = change(state);
   if (!next.ok) return post({ id, type: 'error', error: next.error });
-  const values = recomputeValues(next.value, state.raw, state.engine);
+  // A follow-up changes no analysed value (sameValues), only what is recorded with them.
+  const values = sameValues ? ok<CaseValues<Comparison>>(state.outcome) : recomputeValues(next.value, state.raw, state.engine);
   if (!values.ok) return post({ id, type: 'error', error: values.error });
   const changed = { revision: ++revisions, caseFile: next.value, redo: redoAfter(state) };
   post({ id, type: 'view', view: viewOf({ ...changed, imports: state.imports, values: values.value }, performance.now() - started) });
 
   const recordStarted = performance.now();
-  const recorded = recordResults(values.value);
+  const recorded = recordResults(values.value, next.value.log);
   if (!recorded.ok) return post({ id, type: 'record-failed', error: recorded.error, view: viewOf({ ...state, values: state.outcome }, performance.now() - started) });
   const kept: OpenCase = { ...state, ...changed, outcome: { ...values.value, recorded: recorded.value } };
   open = kept;
@@ -215,6 +217,10 @@ function handle(id: number, message: EngineRequest): void {
         (s) => [...s.redo, { day: newest.day, threshold: newest.threshold, timeS: newest.point.timeS, reason: newest.reason }],
       );
     }
+    case 'follow-up':
+      return applyChange(id, (s) => recordFollowUp(s.caseFile, stamp(message.reviewer, message.at), message.report, message.reason), undefined, true);
+    case 'follow-up-correction':
+      return applyChange(id, (s) => recordFollowUpCorrection(s.caseFile, stamp(message.reviewer, message.at), message.seq, message.report, message.reason), undefined, true);
     case 'redo': {
       const item = open?.redo[open.redo.length - 1];
       if (!item) return post({ id, type: 'error', error: { code: 'nothing-to-redo', file: 'reviewer log', line: null, column: null, message: 'There is no undone threshold change to redo.' } });

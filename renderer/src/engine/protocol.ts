@@ -84,7 +84,10 @@ export type EngineRequest =
   | { readonly type: 'set-threshold'; readonly day: DayNumber; readonly threshold: ThresholdId; readonly givenAs: 'time' | 'vo2'; readonly value: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'withdraw'; readonly seq: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'undo'; readonly reviewer: Reviewer; readonly at: string }
-  | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string };
+  | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string }
+  // Follow-up reports (core/case/follow-ups.ts): the report is checked by core in the worker.
+  | { readonly type: 'follow-up'; readonly report: unknown; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
+  | { readonly type: 'follow-up-correction'; readonly seq: number; readonly report: unknown | null; readonly reason: string; readonly reviewer: Reviewer; readonly at: string };
 
 /** A reply as the page sees it (views whole). */
 export type EngineReply<C = unknown> =

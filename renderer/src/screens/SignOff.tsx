@@ -8,6 +8,7 @@ import type { Comparison } from '../../../core/compare/compare-tests';
 import type { EngineView, Reviewer } from '../engine/protocol';
 import { Caution } from '../ui/notices';
 import { clock, fmt, when } from '../ui/format';
+import { describeFollowUpAction } from '../../../core/followup/describe';
 
 export interface ExportState {
   readonly signers: readonly SignerInfo[];
@@ -39,6 +40,9 @@ function describe(action: EngineView['log'][number]['action']): string {
       return `Withdrew entry ${action.withdraws} (day ${action.day} ${action.threshold.toUpperCase()}); now ${action.after ? `${clock(action.after.timeS)}, ${fmt(action.after.vo2MlMin, 0, 'mL/min')}` : 'none'}`;
     case 'sign-off':
       return `Signed off: ${action.statement}`;
+    case 'follow-up':
+    case 'follow-up-correction':
+      return describeFollowUpAction(action);
   }
 }
 
