@@ -20,6 +20,7 @@ const COMMANDS: Readonly<Record<string, CommandEntry>> = {
   report: { summary: 'build (and sign) the PDF report of a pair', load: async () => (await import('./commands/report')).run },
   verify: { summary: 'check a signed report and recompute its numbers', load: async () => (await import('./commands/verify')).run },
   override: { summary: "record or withdraw a reviewer's placement of VT1/VT2 in a case", load: async () => (await import('./commands/override')).run },
+  'sign-off': { summary: "record a reviewer's sign-off statement in a case", load: async () => (await import('./commands/sign-off')).run },
   demo: { summary: 'run the whole job on the demo pair', load: async () => (await import('./commands/demo')).run },
 };
 

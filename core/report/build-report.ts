@@ -23,6 +23,7 @@ import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type
 import { fixed, minSec, MISSING, signed } from './format';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { draftReason, drawDraftMark, signOffInForce } from './draft-mark';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -426,8 +427,8 @@ function logSection(L: Layout, caseFile: CaseFile): void {
 function signatureSection(L: Layout, input: ReportInput): void {
   L.heading('Signature');
   L.ensure(110);
-  const signOff = [...input.caseFile.log].reverse().find((e) => e.action.kind === 'sign-off');
-  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${signOff.at})` : 'No sign-off statement is recorded in the reviewer log.';
+  const signOff = signOffInForce(input.caseFile);
+  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${signOff.role}, ${signOff.at}, log entry ${signOff.seq})` : `DRAFT. ${draftReason(input.caseFile)}`;
   L.facts([
     ['Reviewer', input.reviewer ?? 'not named'],
     ['Statement', statement],
@@ -439,12 +440,14 @@ function signatureSection(L: Layout, input: ReportInput): void {
 function footers(L: Layout, subject: string, input: ReportInput): void {
   const { doc } = L;
   const range = doc.bufferedPageRange();
+  const draft = signOffInForce(input.caseFile) === null;
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
+    if (draft) drawDraftMark(L);
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
     const y = doc.page.height - 34;
-    const tag = input.signature === 'demonstration' ? 'DEMONSTRATION · ' : '';
+    const tag = `${input.signature === 'demonstration' ? 'DEMONSTRATION · ' : ''}${draft ? 'DRAFT · ' : ''}`;
     doc.font('Sans').fontSize(7).fillColor(MUTED).text(`${tag}${SOFTWARE_NAME} ${SOFTWARE_VERSION} · ${subject} · supports licensed clinicians, does not diagnose`, L.left, y, { width: L.width - 70, lineBreak: false });
     doc.text(`page ${i + 1} of ${range.count}`, L.left + L.width - 70, y, { width: 70, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;
