@@ -23,6 +23,9 @@ import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type
 import { fixed, minSec, MISSING, signed } from './format';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { settingsInWords } from './settings-text';
+import { dayMeasuresBlock } from './day-measures';
+import { effortBlock } from './effort-table';
 import { draftReason, drawDraftMark, signOffInForce } from './draft-mark';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
@@ -236,18 +239,8 @@ async function daySection(L: Layout, day: DayOutcome): Promise<void> {
   const a = day.analysis;
   L.doc.addPage();
   L.heading(`Day ${day.day}: ${a.sourceName}`);
-  L.subheading(`Effort: ${a.effort.verdict}`);
-  L.table(
-    [
-      { header: 'Criterion', width: 0.26 },
-      { header: 'Value', width: 0.12, align: 'right' },
-      { header: 'Required', width: 0.14, align: 'right' },
-      { header: 'Met', width: 0.08 },
-      { header: 'Source', width: 0.4 },
-    ],
-    a.effort.criteria.map((c) => [c.label, c.value === null ? 'not measured' : `${fixed(c.value, c.unit === '' ? 2 : 0)} ${c.unit}`.trim(), `≥ ${c.threshold} ${c.unit}`.trim(), c.met === null ? 'n/a' : c.met ? 'yes' : 'no', c.source]),
-    { size: 7.5 },
-  );
+  effortBlock(L, a.effort, a.provenance.settings.effort);
+  dayMeasuresBlock(L, day);
   for (const id of ['vt1', 'vt2'] as const) thresholdBlock(L, id, day[id]);
   const used: ChartThresholds = { vt1: day.vt1.effective, vt2: day.vt2.effective };
   // Vega's width is the plot area; axis titles, labels and the legend take about 60 pt more.
@@ -343,17 +336,6 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
   L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).`, { size: 7, color: MUTED });
 }
 
-function settingValue(settings: Settings, path: string): string {
-  let value: unknown = settings;
-  for (const key of path.split('.')) value = (value as Record<string, unknown>)?.[key];
-  if (value !== null && typeof value === 'object') {
-    return Object.entries(value as Record<string, unknown>)
-      .map(([k, v]) => `${k} ${String(v)}`)
-      .join(', ');
-  }
-  return String(value);
-}
-
 function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comparison>): void {
   L.doc.addPage();
   L.heading('Methods and settings');
@@ -369,13 +351,14 @@ function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comp
   );
   L.table(
     [
-      { header: 'Setting', width: 0.27 },
-      { header: 'Value', width: 0.27 },
-      { header: 'Source', width: 0.46 },
+      { header: 'Topic', width: 0.11 },
+      { header: 'Setting in use', width: 0.47 },
+      { header: 'Source', width: 0.42 },
     ],
-    Object.entries(SETTING_SOURCES).map(([path, source]) => [path, settingValue(settings, path), source]),
+    settingsInWords(settings).map((line) => [line.topic, line.text, line.source]),
     { size: 7 },
   );
+  L.paragraph('The same settings, with their keys, are in the case file attached to this PDF.', { size: 7, color: MUTED });
 }
 
 function provenanceSection(L: Layout, input: ReportInput): void {
