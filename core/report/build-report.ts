@@ -245,7 +245,9 @@ async function daySection(L: Layout, day: DayOutcome): Promise<void> {
   const used: ChartThresholds = { vt1: day.vt1.effective, vt2: day.vt2.effective };
   // Vega's width is the plot area; axis titles, labels and the legend take about 60 pt more.
   const w = (L.width - 8) / 2 - 62;
-  await chartRow(L, [vslopeSpec(a, used, `V-slope, day ${day.day}`, w, 120), equivalentsSpec(a, used, `Ventilatory equivalents, day ${day.day}`, w, 120)]);
+  // The V-slope plot is square (equal axis scales); the chart beside it takes the rest of the row.
+  const square = 150;
+  await chartRow(L, [vslopeSpec(a, used, `V-slope, day ${day.day}`, square), equivalentsSpec(a, used, `Ventilatory equivalents, day ${day.day}`, L.width - 8 - (square + 70) - 62, 150)]);
   await chartRow(L, [endTidalSpec(a, used, `End-tidal pressures, day ${day.day}`, w, 120)]);
   if (a.warnings.length > 0) {
     L.subheading('Analysis notes');
