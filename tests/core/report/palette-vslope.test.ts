@@ -36,7 +36,7 @@ describe('V-slope and equivalents charts', () => {
     const used = { vt1: day.vt1.effective, vt2: day.vt2.effective };
     const spec = equivalentsSpec(day.analysis, used, 't', 200, 120) as { layer: { encoding?: { color?: { scale: { domain: string[]; range: string[] } } } }[] };
     const scale = spec.layer[0].encoding!.color!.scale;
-    const screen = equivalentsChart(day).data as { name: string; line: { color: string } }[];
+    const screen = equivalentsChart(day).data as unknown as { name: string; line: { color: string } }[];
     for (const name of ['VE/VO₂', 'VE/VCO₂']) {
       expect(scale.range[scale.domain.indexOf(name)]).toBe(screen.find((t) => t.name === name)!.line.color);
     }
@@ -64,7 +64,7 @@ describe('V-slope and equivalents charts', () => {
     expect(names[1]).toBe(`below VT1: slope ${view.lines[0].slope.toFixed(2)}`);
     expect(names[2]).toBe(`above VT1: slope ${view.lines[1].slope.toFixed(2)}`);
 
-    const screenV = vSlopeChart(day) as { data: { name: string }[]; layout: { xaxis: { range: number[] }; yaxis: { range: number[]; scaleanchor: string } } };
+    const screenV = vSlopeChart(day) as unknown as { data: { name: string }[]; layout: { xaxis: { range: number[] }; yaxis: { range: number[]; scaleanchor: string } } };
     expect(screenV.layout.yaxis.scaleanchor).toBe('x');
     expect(screenV.layout.xaxis.range).toEqual(screenV.layout.yaxis.range);
     expect(screenV.data.map((t) => t.name)).toContain(`above VT1: slope ${view.lines[1].slope.toFixed(2)}`);
