@@ -15,6 +15,7 @@ import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/
 import { sha256Hex } from '../case/sha256';
 import type { Comparison } from '../compare/compare-tests';
 import { bandKindLabel } from '../compare/bands';
+import { metricDefinition } from '../compare/metric-catalog';
 import { CAUTIONS } from '../compare/wording';
 import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
@@ -23,6 +24,8 @@ import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type
 import { fixed, minSec, MISSING, signed } from './format';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { matchedReadingText } from '../compare/matched';
+import { REVIEWER_MARK, metricReviewerMark, reviewerMark, reviewerMarkNote } from './reviewer-mark';
 import { settingsInWords } from './settings-text';
 import { dayMeasuresBlock } from './day-measures';
 import { effortBlock } from './effort-table';
@@ -84,8 +87,8 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   const L = new Layout(doc, { regular: 'Sans', bold: 'Sans-Bold' });
 
   titleBlock(L, input, subject);
-  comparisonSection(L, outcome.comparison);
-  matchedSection(L, outcome.comparison);
+  comparisonSection(L, outcome.comparison, outcome);
+  matchedSection(L, outcome);
   for (const day of [outcome.day1, outcome.day2]) await daySection(L, day);
   await overlaySection(L, outcome);
   hrSection(L, outcome);
@@ -141,7 +144,7 @@ function rampText(day: DayOutcome): string {
   return r === null ? 'not stated' : `ramp ${r.toFixed(0)} W/min (measured)`;
 }
 
-function comparisonSection(L: Layout, c: Comparison): void {
+function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Comparison>): void {
   L.heading('Day 2 against day 1');
   L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${c.band.description}`, { size: 8, color: MUTED });
   const sources: string[] = [];
@@ -155,7 +158,7 @@ function comparisonSection(L: Layout, c: Comparison): void {
   const rows = c.metrics.map((m) => {
     const d = digits(m.unit);
     return [
-      m.label,
+      `${m.label}${metricReviewerMark(outcome, metricDefinition(m.id).threshold)}`,
       m.unit || '–',
       fixed(m.day1, d),
       fixed(m.day2, d),
@@ -179,6 +182,8 @@ function comparisonSection(L: Layout, c: Comparison): void {
     rows,
   );
   L.paragraph(sources.map((s, i) => `[${i + 1}] ${s}`).join('   '), { size: 7, color: MUTED });
+  const marked = reviewerMarkNote([outcome.day1, outcome.day2]);
+  if (marked) L.paragraph(marked, { size: 7.5, color: MUTED });
   const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${m.reason}`);
   if (notes.length > 0) L.paragraph(`Not compared. ${notes.join(' ')}`, { size: 7.5, color: MUTED });
 }
@@ -196,14 +201,18 @@ function verdictText(verdict: string, adverse: boolean): string {
   }
 }
 
-function matchedSection(L: Layout, c: Comparison): void {
+const READING_WORDS: Readonly<Record<string, string>> = { 'local-fit': 'local fit', 'window-mean': 'window mean', none: 'not read' };
+
+function matchedSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
+  const c = outcome.comparison;
   L.heading('At matched workloads');
   if (!c.matched.available) {
     L.paragraph(`Not available: ${c.matched.reason}`);
     return;
   }
-  L.paragraph(`Read at the first moment each day's ramp reached the workload; common range ${fixed(c.matched.rangeW[0], 0)}–${fixed(c.matched.rangeW[1], 0)} W in ${fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
-  const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ' (VT1 day 1)' : ' (VT1 day 2)');
+  L.paragraph(`${matchedReadingText(c.matched.windowW)} Common range ${fixed(c.matched.rangeW[0], 0)}–${fixed(c.matched.rangeW[1], 0)} W in ${fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
+  const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ` (VT1 day 1${reviewerMark(outcome.day1, 'vt1') ? ` ${REVIEWER_MARK}` : ''})` : ` (VT1 day 2${reviewerMark(outcome.day2, 'vt1') ? ` ${REVIEWER_MARK}` : ''})`);
+  const read = (r: { day1: string; day2: string }) => (r.day1 === r.day2 ? READING_WORDS[r.day1] : `${READING_WORDS[r.day1]} / ${READING_WORDS[r.day2]}`);
   const rows = c.matched.rows.map((r) => [
     `${fixed(r.workW, 0)}${kind(r.kind)}`,
     fixed(r.values.vo2MlMin.day1, 0),
@@ -215,24 +224,27 @@ function matchedSection(L: Layout, c: Comparison): void {
     fixed(r.values.veLMin.day2, 1),
     fixed(r.values.rer.day1, 2),
     fixed(r.values.rer.day2, 2),
+    read(r.reading),
   ]);
   L.table(
     [
-      { header: 'Work (W)', width: 0.16 },
-      { header: 'VO₂ d1', width: 0.09, align: 'right' },
-      { header: 'VO₂ d2', width: 0.09, align: 'right' },
-      { header: 'VO₂ Δ %', width: 0.1, align: 'right' },
-      { header: 'HR d1', width: 0.08, align: 'right' },
-      { header: 'HR d2', width: 0.08, align: 'right' },
-      { header: 'VE d1', width: 0.1, align: 'right' },
-      { header: 'VE d2', width: 0.1, align: 'right' },
-      { header: 'RER d1', width: 0.1, align: 'right' },
-      { header: 'RER d2', width: 0.1, align: 'right' },
+      { header: 'Work (W)', width: 0.15 },
+      { header: 'VO₂ d1', width: 0.08, align: 'right' },
+      { header: 'VO₂ d2', width: 0.08, align: 'right' },
+      { header: 'VO₂ Δ %', width: 0.09, align: 'right' },
+      { header: 'HR d1', width: 0.07, align: 'right' },
+      { header: 'HR d2', width: 0.07, align: 'right' },
+      { header: 'VE d1', width: 0.08, align: 'right' },
+      { header: 'VE d2', width: 0.08, align: 'right' },
+      { header: 'RER d1', width: 0.08, align: 'right' },
+      { header: 'RER d2', width: 0.08, align: 'right' },
+      { header: 'Read by', width: 0.14 },
     ],
     rows,
     { size: 7.5 },
   );
-  L.paragraph('VO₂ in mL/min, HR in bpm, VE in L/min BTPS.', { size: 7, color: MUTED });
+  const note = reviewerMarkNote([outcome.day1, outcome.day2], ['vt1']);
+  L.paragraph(`VO₂ in mL/min, HR in bpm, VE in L/min BTPS.${note ? ` ${note}` : ''}`, { size: 7, color: MUTED });
 }
 
 async function daySection(L: Layout, day: DayOutcome): Promise<void> {
@@ -321,7 +333,7 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
     const resting = a.clinical.restingHrBpm;
     return [
       `Day ${d.day}`,
-      a.vt1.at?.hrBpm != null ? `${fixed(a.vt1.at.hrBpm, 0)} bpm` : 'not available',
+      a.vt1.at?.hrBpm != null ? `${fixed(a.vt1.at.hrBpm, 0)} bpm${reviewerMark(d, 'vt1') ? ` ${REVIEWER_MARK}` : ''}` : 'not available',
       hrMax !== null ? `${fixed(0.55 * hrMax, 0)}–${fixed(0.6 * hrMax, 0)} bpm (of ${fixed(hrMax, 0)})` : 'age not stated',
       resting !== null ? `${fixed(resting + 15, 0)} bpm (rest ${fixed(resting, 0)})` : 'resting HR not given',
     ];
@@ -335,7 +347,8 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
     ],
     rows,
   );
-  L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).`, { size: 7, color: MUTED });
+  const marked = reviewerMarkNote([outcome.day1, outcome.day2], ['vt1']);
+  L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).${marked ? ` ${marked}` : ''}`, { size: 7, color: MUTED });
 }
 
 function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comparison>): void {
