@@ -24,6 +24,7 @@ import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type
 import { fixed, minSec, MISSING, signed } from './format';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
+import { timeCells } from './time-text';
 import { matchedReadingText } from '../compare/matched';
 import { REVIEWER_MARK, metricReviewerMark, reviewerMark, reviewerMarkNote } from './reviewer-mark';
 import { settingsInWords } from './settings-text';
@@ -157,12 +158,13 @@ function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Compar
   const digits = (unit: string) => (unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1);
   const rows = c.metrics.map((m) => {
     const d = digits(m.unit);
+    const time = timeCells(m.unit, m.day1, m.day2, m.delta);
     return [
       `${m.label}${metricReviewerMark(outcome, metricDefinition(m.id).threshold)}`,
-      m.unit || '–',
-      fixed(m.day1, d),
-      fixed(m.day2, d),
-      signed(m.delta, d),
+      time?.unit ?? (m.unit || '–'),
+      time?.day1 ?? fixed(m.day1, d),
+      time?.day2 ?? fixed(m.day2, d),
+      time?.delta ?? signed(m.delta, d),
       signed(m.deltaPct, 1),
       m.band ? `±${m.band.halfWidthPct.toFixed(1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
       verdictText(m.verdict, m.adverseBeyondBand),
