@@ -3,8 +3,9 @@
  * quotes, comma-delimited, CRLF line ends, encoded UTF-16 little-endian with a byte-order
  * mark. A titled block of quoted label/value pairs above the table (one label holds an escaped
  * quote and a comma), a blank line, then headers written out in plain words with the unit in
- * square brackets ("Elapsed [s]", "O2 uptake [mL/min]", "Respiratory rate [/min]"). Time in s
- * with one decimal; no RPE column (the highest rating is a label/value line instead).
+ * square brackets ("Elapsed [s]", "O2 uptake [mL/min]", "Respiratory rate [/min]"), except
+ * "Heart rate" and "Power", which give no unit (the importer infers bpm and W and asks).
+ * Time in s with one decimal; no RPE column (the highest rating is a label/value line instead).
  */
 import type { BreathTable } from '../../core/model/breath-table';
 import { fixed, sexWord } from './text-cells';
@@ -45,8 +46,8 @@ export function quotedUtf16Text(table: BreathTable): string {
     'O2 uptake [mL/min]',
     'CO2 output [mL/min]',
     'Ventilation [L/min]',
-    'Heart rate [bpm]',
-    'Power [W]',
+    'Heart rate',
+    'Power',
     'End-tidal O2 [mmHg]',
     'End-tidal CO2 [mmHg]',
     'Respiratory rate [/min]',
