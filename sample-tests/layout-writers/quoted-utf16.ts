@@ -4,7 +4,8 @@
  * mark. A titled block of quoted label/value pairs above the table (one label holds an escaped
  * quote and a comma), a blank line, then headers written out in plain words with the unit in
  * square brackets ("Elapsed [s]", "O2 uptake [mL/min]", "Respiratory rate [/min]"), except
- * "Heart rate" and "Power", which give no unit (the importer infers bpm and W and asks).
+ * the end-tidal pressures, which give no unit (the importer infers mmHg from the values,
+ * warns, and the workbench asks).
  * Time in s with one decimal; no RPE column (the highest rating is a label/value line instead).
  */
 import type { BreathTable } from '../../core/model/breath-table';
@@ -46,10 +47,10 @@ export function quotedUtf16Text(table: BreathTable): string {
     'O2 uptake [mL/min]',
     'CO2 output [mL/min]',
     'Ventilation [L/min]',
-    'Heart rate',
-    'Power',
-    'End-tidal O2 [mmHg]',
-    'End-tidal CO2 [mmHg]',
+    'Heart rate [bpm]',
+    'Power [W]',
+    'End-tidal O2',
+    'End-tidal CO2',
     'Respiratory rate [/min]',
     'Tidal volume [L]',
   ];
