@@ -21,6 +21,7 @@ const COMMANDS: Readonly<Record<string, CommandEntry>> = {
   verify: { summary: 'check a signed report and recompute its numbers', load: async () => (await import('./commands/verify')).run },
   override: { summary: "record or withdraw a reviewer's placement of VT1/VT2 in a case", load: async () => (await import('./commands/override')).run },
   recovery: { summary: 'record, correct or list follow-up reports of recovery after each test', load: async () => (await import('./commands/recovery')).run },
+  'sign-off': { summary: "record a reviewer's sign-off statement in a case", load: async () => (await import('./commands/sign-off')).run },
   demo: { summary: 'run the whole job on the demo pair', load: async () => (await import('./commands/demo')).run },
 };
 

@@ -19,7 +19,6 @@
  * Exit 0 when the action was recorded (or the list printed), 2 for bad input, 1 otherwise.
  */
 import { existsSync, readFileSync } from 'node:fs';
-import { basename, dirname, resolve } from 'node:path';
 import type { CaseFile, DayNumber, ThresholdPoint } from '../../core/case/case-file';
 import { currentSignOff } from '../../core/case/overrides';
 import type { CaseOutcome, ThresholdState } from '../../core/case/recompute';
@@ -31,6 +30,7 @@ import { describeAction } from '../../core/report/log-text';
 import { CASE_FILE_NAME, caseFilePath, loadCase, saveCase } from '../../host/case-folder';
 import { recordCase } from '../../host/report-job';
 import { numberFlag, parseFlags } from '../args';
+import { caseFolderOf } from '../case-arg';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold override CASE_FOLDER --day 1|2 --threshold vt1|vt2 (--time-s N | --vo2-ml-min N)
@@ -102,14 +102,6 @@ function actionOf(values: Values): Action {
   return { kind: 'set', day, threshold, value: { vo2MlMin: vo2MlMin as number }, flag: `--vo2-ml-min ${vo2MlMin}` };
 }
 
-/** The folder, or the twofold-case.json inside it. */
-function folderOf(arg: string, cwd: string): string {
-  const path = resolve(cwd, arg);
-  if (!/\.json$/i.test(path)) return path;
-  if (basename(path) !== CASE_FILE_NAME) throw new UsageError(`a case file is always named ${CASE_FILE_NAME} inside its case folder; give the folder`);
-  return dirname(path);
-}
-
 export async function run(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseFlags(args, OPTIONS);
   if (values.help) {
@@ -120,7 +112,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const action = actionOf(values);
   const reviewerFields = action.kind === 'list' ? null : { who: required(values, 'reviewer'), role: required(values, 'role'), reason: required(values, 'reason') };
 
-  const folder = folderOf(positionals[0], io.cwd);
+  const folder = caseFolderOf(positionals[0], io.cwd);
   const path = caseFilePath(folder);
   if (!existsSync(path)) {
     io.err(`${path}:0:0: There is no case here; 'twofold report DAY1 DAY2 --out REPORT.pdf --case ${positionals[0]}' makes one.\n`);

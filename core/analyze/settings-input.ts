@@ -46,6 +46,10 @@ export const settingsSchema = z.strictObject({
     hrPctMin: positive,
     rpeMin: z.number().min(6).max(20),
     lactateMinMmolL: positive,
+    // Optional: case files from before these options load unchanged (core/model/settings.ts).
+    hrCriterion: z.enum(['percent', 'within-bpm', 'either', 'off']).optional(),
+    hrWithinBpm: positive.optional(),
+    rule: z.enum(['rer-plus-one', 'rer-alone']).optional(),
   }),
   compare: z.strictObject({
     intervalHMin: z.number().nonnegative(),

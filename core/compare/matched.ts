@@ -2,17 +2,27 @@
  * The two days at matched workloads: VO2, HR, VE, RER and VE/VCO2 at each common workload
  * step and at each day's VT1 workload, read from each day's processed series.
  *
- * Method (common practice): only the incremental phase is used (phases.incrementalStartS to
- * incrementalEndS), so recovery, where the load falls, is never read. On it, a variable is
- * linearly interpolated at the first moment the load reaches the target workload (load made
- * non-decreasing by a running maximum, so a momentary dip of the averaged load is not read
- * twice). Common steps are the multiples of settings.compare.workloadStepW inside the range
- * both days covered. Assumes a ramp; on a step protocol this reads the moment a step is first
- * reached. Treadmill tests have no workload in watts: the table is then not available.
+ * Method (common practice; the window rule is Twofold's own): only the incremental phase is
+ * used (phases.incrementalStartS to incrementalEndS), so recovery, where the load falls, is
+ * never read. The load is made non-decreasing by a running maximum, so a momentary dip of
+ * the averaged load is not read twice. A value at a target workload W is read from every ramp
+ * point whose load lies within W ± one workload step (settings.compare.workloadStepW, 10 W by
+ * default), not from one moment of the series, so breath-to-breath noise does not decide it:
+ * - 'local-fit': a least-squares line of the variable on load through those points,
+ *   evaluated at W, when there are at least 3 points spanning at least half a step of load
+ *   (a ramp);
+ * - 'window-mean': the mean of those points, when the load does not vary enough within the
+ *   window to fit a line (a held step of a step protocol);
+ * - 'none': no point within the window.
+ * Each row says which reading each day got. Common steps are the multiples of the workload
+ * step inside the range both days covered. Treadmill tests have no workload in watts: the
+ * table is then not available.
  * Units: W, mL/min, bpm, L/min; RER and VE/VCO2 unitless (VE in L/min × 1000 / VCO2 mL/min).
  */
 import type { ProcessedSeries, TestAnalysis } from '../model/analysis';
 import type { Settings } from '../model/settings';
+import { linearFit } from '../math/linear-fit';
+import { mean } from '../math/stats';
 
 export type MatchedVariable = 'vo2MlMin' | 'hrBpm' | 'veLMin' | 'rer' | 'veVco2';
 export const MATCHED_VARIABLES: readonly MatchedVariable[] = ['vo2MlMin', 'hrBpm', 'veLMin', 'rer', 'veVco2'];
@@ -24,15 +34,27 @@ export interface MatchedValue {
   readonly deltaPct: number | null;
 }
 
+/** How a day's value at a workload was read (module comment). */
+export type MatchedReading = 'local-fit' | 'window-mean' | 'none';
+
 export interface MatchedRow {
   readonly workW: number;
   /** `step`: a common workload step; `vt1_day1` / `vt1_day2`: that day's VT1 workload. */
   readonly kind: 'step' | 'vt1_day1' | 'vt1_day2';
   readonly values: Readonly<Record<MatchedVariable, MatchedValue>>;
+  /** How each day's VO2 at this workload was read (the other variables are read the same way). */
+  readonly reading: { readonly day1: MatchedReading; readonly day2: MatchedReading };
 }
 
 export type MatchedWorkloads =
-  | { readonly available: true; readonly rangeW: readonly [number, number]; readonly stepW: number; readonly rows: readonly MatchedRow[] }
+  | {
+      readonly available: true;
+      readonly rangeW: readonly [number, number];
+      readonly stepW: number;
+      /** Half-width of the load window a value is read from, W. */
+      readonly windowW: number;
+      readonly rows: readonly MatchedRow[];
+    }
   | { readonly available: false; readonly reason: string };
 
 interface RampSeries {
@@ -62,19 +84,29 @@ function rampOf(series: ProcessedSeries, fromS: number, toS: number): RampSeries
   return { workW, values };
 }
 
-/** Value at the first moment the (non-decreasing) load reaches `targetW`; null outside the ramp. */
-function valueAtWork(ramp: RampSeries, variable: MatchedVariable, targetW: number): number | null {
+/** Fewest points, and least spread of load (as a share of the window's half-width), for a local fit. */
+const FIT_MIN_POINTS = 3;
+const FIT_MIN_SPREAD = 0.5;
+
+/** How the value at `targetW` is read, and the value (see the module comment); null outside the ramp. */
+function readAtWork(ramp: RampSeries, variable: MatchedVariable, targetW: number, halfW: number): { value: number | null; reading: MatchedReading } {
   const w = ramp.workW;
-  if (w.length === 0 || targetW < w[0] || targetW > w[w.length - 1]) return null;
+  if (w.length === 0 || targetW < w[0] || targetW > w[w.length - 1]) return { value: null, reading: 'none' };
   const y = ramp.values[variable];
-  let i = 0;
-  while (w[i] < targetW) i++;
-  if (w[i] === targetW || i === 0) return y[i];
-  const y0 = y[i - 1];
-  const y1 = y[i];
-  if (y0 === null || y1 === null) return null;
-  const f = (targetW - w[i - 1]) / (w[i] - w[i - 1]);
-  return y0 + f * (y1 - y0);
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (let i = 0; i < w.length; i++) {
+    const v = y[i];
+    if (Math.abs(w[i] - targetW) <= halfW && v !== null && Number.isFinite(v)) {
+      xs.push(w[i]);
+      ys.push(v);
+    }
+  }
+  if (xs.length === 0) return { value: null, reading: 'none' };
+  const spread = Math.max(...xs) - Math.min(...xs);
+  const fit = xs.length >= FIT_MIN_POINTS && spread >= FIT_MIN_SPREAD * halfW ? linearFit(xs, ys) : null;
+  if (fit) return { value: fit.intercept + fit.slope * targetW, reading: 'local-fit' };
+  return { value: mean(ys), reading: 'window-mean' };
 }
 
 function pair(day1: number | null, day2: number | null): MatchedValue {
@@ -83,10 +115,16 @@ function pair(day1: number | null, day2: number | null): MatchedValue {
   return { day1, day2, delta, deltaPct };
 }
 
-function row(r1: RampSeries, r2: RampSeries, workW: number, kind: MatchedRow['kind']): MatchedRow {
+function row(r1: RampSeries, r2: RampSeries, workW: number, kind: MatchedRow['kind'], halfW: number): MatchedRow {
   const values = {} as Record<MatchedVariable, MatchedValue>;
-  for (const v of MATCHED_VARIABLES) values[v] = pair(valueAtWork(r1, v, workW), valueAtWork(r2, v, workW));
-  return { workW, kind, values };
+  for (const v of MATCHED_VARIABLES) values[v] = pair(readAtWork(r1, v, workW, halfW).value, readAtWork(r2, v, workW, halfW).value);
+  const reading = { day1: readAtWork(r1, 'vo2MlMin', workW, halfW).reading, day2: readAtWork(r2, 'vo2MlMin', workW, halfW).reading };
+  return { workW, kind, values, reading };
+}
+
+/** The reading rule in one sentence, for the report and the command line. */
+export function matchedReadingText(windowW: number): string {
+  return `Each value is read from the ramp points within ±${windowW.toFixed(0)} W of the workload: a least-squares line on workload through them (local fit), or their mean where the load is held (window mean); recovery is never read.`;
 }
 
 export function matchedWorkloads(day1: TestAnalysis, day2: TestAnalysis, settings: Settings): MatchedWorkloads {
@@ -100,16 +138,17 @@ export function matchedWorkloads(day1: TestAnalysis, day2: TestAnalysis, setting
   const hi = Math.min(r1.workW[r1.workW.length - 1], r2.workW[r2.workW.length - 1]);
   if (!(hi > lo)) return { available: false, reason: 'Not available: the two days share no workload range during the incremental phase.' };
   const stepW = settings.compare.workloadStepW;
+  const windowW = stepW;
   const rows: MatchedRow[] = [];
   if (stepW > 0) {
     // Small epsilon so a step exactly at either end of the range is kept despite rounding.
     const first = Math.ceil(lo / stepW - 1e-9);
     const last = Math.floor(hi / stepW + 1e-9);
-    for (let k = first; k <= last; k++) rows.push(row(r1, r2, k * stepW + 0, 'step'));
+    for (let k = first; k <= last; k++) rows.push(row(r1, r2, k * stepW + 0, 'step', windowW));
   }
   const vt1Work1 = day1.vt1.at?.workW ?? null;
   const vt1Work2 = day2.vt1.at?.workW ?? null;
-  if (vt1Work1 !== null) rows.push(row(r1, r2, vt1Work1, 'vt1_day1'));
-  if (vt1Work2 !== null) rows.push(row(r1, r2, vt1Work2, 'vt1_day2'));
-  return { available: true, rangeW: [lo, hi], stepW, rows };
+  if (vt1Work1 !== null) rows.push(row(r1, r2, vt1Work1, 'vt1_day1', windowW));
+  if (vt1Work2 !== null) rows.push(row(r1, r2, vt1Work2, 'vt1_day2', windowW));
+  return { available: true, rangeW: [lo, hi], stepW, windowW, rows };
 }

@@ -4,7 +4,8 @@
  *
  * Criteria (thresholds from `settings.effort`):
  * - peak_rer: peak RER ≥ rerMin (1.10; Balady et al., Circulation 2010;122:191–225;
- *   ATS/ACCP 2003).
+ *   ATS/ACCP 2003). Some labs use 1.15; Robergs et al., Sports Med 2010;40:95–111 surveyed
+ *   labs using either.
  * - vo2_plateau (Taylor, Buskirk & Henschel, J Appl Physiol 1955;8:73–80; Howley, Bassett &
  *   Welch, Med Sci Sports Exerc 1995;27:1292–301): the rise of VO2 over the last increase of
  *   load is below plateauMlKgMin (2.1 mL/kg/min, when body mass is known) or plateauMlMin
@@ -13,21 +14,30 @@
  *   least-squares VO2–time slope over the final 60 s × 1 min, and the slope must also be
  *   below half the slope over the rest of the ramp (its first minute excluded): on a slow ramp
  *   VO2 rises by less than 150 mL/min per minute anyway, so the rise alone proves nothing.
- * - peak_hr: peak HR ≥ hrPctMin (85%) of age-predicted HRmax (common practice; Howley 1995).
+ * - peak_hr, by `hrCriterion`: 'percent', peak HR ≥ hrPctMin (85 %) of age-predicted HRmax;
+ *   'within-bpm', peak HR ≥ predicted − hrWithinBpm (10 bpm); 'either', one of the two;
+ *   'off', not assessed (beta-blockade blunts the HR response). Common practice; Howley,
+ *   Bassett & Welch 1995.
  * - peak_rpe: Borg 6–20 ≥ rpeMin (17; Borg, Med Sci Sports Exerc 1982;14:377–81; common
  *   practice), from the lab's entry, else the highest rating recorded in the file.
  * - lactate: ≥ lactateMinMmolL (8 mmol/L; common practice), when entered.
  *
- * Verdict rule (common practice: RER is the criterion hardest to reach without a true
- * maximal effort, and no single secondary criterion suffices alone):
+ * Verdict rule `rule`:
+ * 'rer-plus-one' (the default; common practice: RER is the criterion hardest to reach
+ * without a true maximal effort, and no single secondary criterion suffices alone):
  * - maximal: the RER criterion is met and at least one other criterion is met;
  * - submaximal: the RER criterion is not met and at most one other criterion is met;
  * - indeterminate: everything else (RER met with no other criterion met or assessable, or RER
  *   not met while two or more others are).
+ * 'rer-alone' (Balady et al. 2010 call peak RER the best non-invasive indicator of effort
+ * (memory)): maximal when RER is met, submaximal when not, indeterminate without an RER; the
+ * other criteria are reported and do not decide.
+ * Each criterion carries the rule as applied in words and its value at the precision it is
+ * judged at (RER 2 decimals, HR and RPE whole numbers), so no screen or page re-derives them.
  */
 import type { Breath } from '../model/breath-table';
 import type { EffortAssessment, EffortCriterion, PeakValues, Phases } from '../model/analysis';
-import type { Settings } from '../model/settings';
+import { EFFORT_OPTION_DEFAULTS, type Settings } from '../model/settings';
 import { linearFit } from '../math/linear-fit';
 import { mean } from '../math/stats';
 import { loadSignal } from '../clean/phases';
@@ -88,6 +98,7 @@ export function vo2PlateauMeasure(breaths: readonly Breath[], phases: EffortInpu
 
 export function assessEffort(input: EffortInputs): EffortAssessment {
   const s = input.settings;
+  const rule = s.rule ?? EFFORT_OPTION_DEFAULTS.rule;
   const criteria: EffortCriterion[] = [];
   const rer = Number.isFinite(input.peak.rer) ? input.peak.rer : null;
   criteria.push({
@@ -97,19 +108,14 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     value: rer,
     threshold: s.rerMin,
     unit: '',
-    source: 'Balady et al., Circulation 2010;122:191–225; ATS/ACCP 2003',
+    source: 'Balady et al., Circulation 2010;122:191–225; ATS/ACCP 2003; 1.10 or 1.15 by lab (Robergs et al., Sports Med 2010)',
+    rule: `peak RER ≥ ${s.rerMin.toFixed(2)}`,
+    valueText: rer === null ? 'not measured' : rer.toFixed(2),
+    detail: null,
   });
   criteria.push(plateauCriterion(input));
-  const hrPct = input.peak.hrBpm !== null && input.predictedHrMaxBpm !== null ? (100 * input.peak.hrBpm) / input.predictedHrMaxBpm : null;
-  criteria.push({
-    id: 'peak_hr',
-    label: 'Peak HR, % of age-predicted',
-    met: hrPct === null ? null : hrPct >= s.hrPctMin,
-    value: hrPct,
-    threshold: s.hrPctMin,
-    unit: '%',
-    source: `common practice; Howley, Bassett & Welch 1995; HRmax by ${s.hrMaxFormula === 'tanaka' ? 'Tanaka 2001 (208 − 0.7 × age)' : 'Fox 1971 (220 − age)'}`,
-  });
+  criteria.push(hrCriterion(input));
+  const rpeDigits = input.peakRpe !== null && !Number.isInteger(input.peakRpe) ? 1 : 0;
   criteria.push({
     id: 'peak_rpe',
     label: 'Peak RPE (Borg 6–20)',
@@ -118,6 +124,9 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     threshold: s.rpeMin,
     unit: 'Borg 6–20',
     source: 'Borg, Med Sci Sports Exerc 1982;14:377–81; threshold common practice',
+    rule: `rating ≥ ${trim(s.rpeMin)} on the Borg 6–20 scale`,
+    valueText: input.peakRpe === null ? 'not recorded' : input.peakRpe.toFixed(rpeDigits),
+    detail: null,
   });
   criteria.push({
     id: 'lactate',
@@ -127,43 +136,139 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     threshold: s.lactateMinMmolL,
     unit: 'mmol/L',
     source: 'common practice',
+    rule: `≥ ${trim(s.lactateMinMmolL)} mmol/L`,
+    valueText: input.lactateMmolL === null ? 'not measured' : `${input.lactateMmolL.toFixed(1)} mmol/L`,
+    detail: null,
   });
-  return { criteria, ...verdictOf(criteria) };
+  const verdict = rule === 'rer-alone' ? rerAloneVerdict(criteria) : verdictOf(criteria);
+  return { criteria, combination: COMBINATION[rule], ...verdict };
+}
+
+const COMBINATION = {
+  'rer-plus-one':
+    'Maximal when the peak RER criterion and at least one other criterion are met; submaximal when RER is not met and at most one other is; otherwise indeterminate (common practice).',
+  'rer-alone':
+    'Maximal when the peak RER criterion is met and submaximal when it is not; the other criteria are reported and do not decide (Balady et al., Circulation 2010, who call peak RER the best non-invasive indicator of effort; memory).',
+} as const;
+
+/** A threshold as a person writes it: 2.1, 150, 1.1 → "2.1", "150", "1.1". */
+function trim(value: number): string {
+  return String(Number(value.toFixed(2)));
+}
+
+function hrMaxWords(formula: Settings['effort']['hrMaxFormula']): string {
+  return formula === 'tanaka' ? 'Tanaka 2001 (208 − 0.7 × age)' : 'Fox 1971 (220 − age)';
+}
+
+function hrCriterion(input: EffortInputs): EffortCriterion {
+  const s = input.settings;
+  const mode = s.hrCriterion ?? EFFORT_OPTION_DEFAULTS.hrCriterion;
+  const withinBpm = s.hrWithinBpm ?? EFFORT_OPTION_DEFAULTS.hrWithinBpm;
+  const predicted = input.predictedHrMaxBpm;
+  const hr = input.peak.hrBpm;
+  const hrPct = hr !== null && predicted !== null ? (100 * hr) / predicted : null;
+  const source = `common practice; Howley, Bassett & Welch 1995; HRmax by ${hrMaxWords(s.hrMaxFormula)}`;
+  const predictedText = predicted === null ? 'age-predicted HRmax' : `age-predicted ${predicted.toFixed(0)} bpm`;
+  const base = { id: 'peak_hr' as const, source };
+  if (mode === 'off') {
+    return {
+      ...base,
+      label: 'Peak HR (criterion switched off)',
+      met: null,
+      value: hrPct,
+      threshold: s.hrPctMin,
+      unit: '%',
+      rule: 'not applied: the HR criterion is switched off in the settings (e.g. beta-blockade)',
+      valueText: hr === null ? 'not recorded' : `${hr.toFixed(0)} bpm`,
+      detail: null,
+    };
+  }
+  const pctMet = hrPct === null ? null : hrPct >= s.hrPctMin;
+  const withinMet = hr === null || predicted === null ? null : hr >= predicted - withinBpm;
+  const pctRule = `≥ ${trim(s.hrPctMin)} % of ${predictedText}${predicted === null ? '' : ` (≥ ${((s.hrPctMin / 100) * predicted).toFixed(0)} bpm)`}`;
+  const withinRule = `within ${trim(withinBpm)} bpm of ${predictedText}${predicted === null ? '' : ` (≥ ${(predicted - withinBpm).toFixed(0)} bpm)`}`;
+  const pctText = hrPct === null ? 'not available' : `${hrPct.toFixed(0)} % (${(hr as number).toFixed(0)} bpm)`;
+  if (mode === 'within-bpm') {
+    return {
+      ...base,
+      label: 'Peak HR, within range of age-predicted',
+      met: withinMet,
+      value: hr,
+      threshold: predicted === null ? withinBpm : predicted - withinBpm,
+      unit: 'bpm',
+      rule: `peak HR ${withinRule}`,
+      valueText: hr === null ? 'not recorded' : `${hr.toFixed(0)} bpm`,
+      detail: null,
+    };
+  }
+  return {
+    ...base,
+    label: 'Peak HR, % of age-predicted',
+    met: mode === 'either' ? (pctMet === null ? null : pctMet || withinMet === true) : pctMet,
+    value: hrPct,
+    threshold: s.hrPctMin,
+    unit: '%',
+    rule: mode === 'either' ? `peak HR ${pctRule}, or ${withinRule}` : `peak HR ${pctRule}`,
+    valueText: pctText,
+    detail: null,
+  };
 }
 
 function plateauCriterion(input: EffortInputs): EffortCriterion {
   const s = input.settings;
   const perKg = input.weightKg !== null && input.weightKg > 0;
+  const threshold = perKg ? s.plateauMlKgMin : s.plateauMlMin;
+  const unit = perKg ? 'mL/kg/min' : 'mL/min';
+  const digits = perKg ? 1 : 0;
   const base = {
     id: 'vo2_plateau' as const,
     label: 'VO2 plateau',
-    threshold: perKg ? s.plateauMlKgMin : s.plateauMlMin,
-    unit: perKg ? 'mL/kg/min' : 'mL/min',
-    source: 'Taylor, Buskirk & Henschel 1955; Howley, Bassett & Welch 1995',
+    threshold,
+    unit,
+    source: 'Taylor, Buskirk & Henschel 1955; Howley, Bassett & Welch 1995; ramp slope ratio: Twofold’s own addition',
   };
   const m = vo2PlateauMeasure(input.breaths, input.phases);
-  if (!m) return { ...base, met: null, value: null };
+  if (!m) return { ...base, met: null, value: null, rule: `rise of VO2 below ${trim(threshold)} ${unit} for a further rise in load`, valueText: 'not assessable', detail: null };
   const value = perKg ? m.riseMlMin / (input.weightKg as number) : m.riseMlMin;
-  const slopeOk = m.protocol === 'step' || (m.slopeRatio !== null && m.slopeRatio < 0.5);
+  const slopeOk = m.protocol === 'step' || (m.slopeRatio !== null && m.slopeRatio < RAMP_SLOPE_RATIO_MAX);
+  const ramp = m.protocol === 'ramp';
   return {
     ...base,
-    label: m.protocol === 'ramp' ? 'VO2 plateau (ramp: rise over the final minute, slope below half the earlier slope)' : 'VO2 plateau (step: rise over the last stage)',
-    met: value < base.threshold && slopeOk,
+    label: ramp ? 'VO2 plateau (ramp)' : 'VO2 plateau (step)',
+    met: value < threshold && slopeOk,
     value,
+    rule: ramp
+      ? `rise below ${trim(threshold)} ${unit} over the final minute, and the final minute's slope below ${RAMP_SLOPE_RATIO_MAX.toFixed(2)} × the slope over the earlier ramp`
+      : `rise below ${trim(threshold)} ${unit} from the stage before to the last stage`,
+    valueText: `${value.toFixed(digits)} ${unit}`,
+    detail: ramp ? `slope ratio ${m.slopeRatio === null ? 'not available' : m.slopeRatio.toFixed(2)}` : null,
   };
+}
+
+/** The ramp part of the plateau rule (module comment): the final minute's slope below half the earlier one. */
+const RAMP_SLOPE_RATIO_MAX = 0.5;
+
+function reasonsOf(criteria: readonly EffortCriterion[]): string[] {
+  return criteria.map((c) => {
+    const state = c.met === null ? (c.id === 'peak_hr' && c.label.includes('switched off') ? 'not assessed (switched off)' : 'not assessed (no data)') : c.met ? 'met' : 'not met';
+    const value = c.value === null && c.met === null ? '' : ` (${c.valueText}${c.detail ? `, ${c.detail}` : ''}; rule: ${c.rule})`;
+    return `${c.label}: ${state}${value}.`;
+  });
+}
+
+function rerAloneVerdict(criteria: readonly EffortCriterion[]): Pick<EffortAssessment, 'verdict' | 'reasons'> {
+  const rer = criteria.find((c) => c.id === 'peak_rer') as EffortCriterion;
+  const reasons = reasonsOf(criteria);
+  if (rer.met === true) return { verdict: 'maximal', reasons: ['RER criterion met (the rule in use decides by RER alone).', ...reasons] };
+  if (rer.met === false) return { verdict: 'submaximal', reasons: ['RER criterion not met (the rule in use decides by RER alone).', ...reasons] };
+  return { verdict: 'indeterminate', reasons: ['Peak RER could not be computed.', ...reasons] };
 }
 
 function verdictOf(criteria: readonly EffortCriterion[]): Pick<EffortAssessment, 'verdict' | 'reasons'> {
   const rer = criteria.find((c) => c.id === 'peak_rer') as EffortCriterion;
   const others = criteria.filter((c) => c.id !== 'peak_rer');
   const metOthers = others.filter((c) => c.met === true);
-  const reasons = criteria.map((c) => {
-    const state = c.met === null ? 'not assessed (no data)' : c.met ? 'met' : 'not met';
-    const decimals = c.id === 'peak_rer' ? 2 : c.id === 'peak_rpe' ? 0 : 1;
-    const unit = c.unit ? ` ${c.unit}` : '';
-    const value = c.value === null ? '' : ` (${c.value.toFixed(decimals)}${unit}; threshold ${c.threshold}${unit})`;
-    return `${c.label}: ${state}${value}.`;
-  });
+  const reasons = reasonsOf(criteria);
   const names = metOthers.map((c) => c.label).join(', ');
   if (rer.met === true && metOthers.length >= 1) {
     return { verdict: 'maximal', reasons: [`RER criterion met, with ${metOthers.length} more: ${names}.`, ...reasons] };

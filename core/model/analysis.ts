@@ -161,10 +161,18 @@ export interface EffortCriterion {
   readonly threshold: number;
   readonly unit: string;
   readonly source: string;
+  /** The rule as applied, in words and units, e.g. "rise below 2.1 mL/kg/min over the final minute". */
+  readonly rule: string;
+  /** The value as a person reads it, at the precision the criterion is judged at, e.g. "95 %", "18". */
+  readonly valueText: string;
+  /** Further measured parts of the rule (the ramp plateau's slope ratio), or null. */
+  readonly detail: string | null;
 }
 
 export interface EffortAssessment {
   readonly verdict: EffortVerdict;
+  /** How the criteria combine into the verdict, in words, with its source. */
+  readonly combination: string;
   readonly criteria: readonly EffortCriterion[];
   readonly reasons: readonly string[];
 }

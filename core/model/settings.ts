@@ -25,6 +25,17 @@ export interface PhaseOverrides {
 }
 
 export type HrMaxFormula = 'tanaka' | 'fox';
+/**
+ * How peak HR counts as an effort criterion: at least `hrPctMin` % of age-predicted HRmax,
+ * within `hrWithinBpm` of it, either of the two, or not at all ('off', e.g. under
+ * beta-blockade, when the heart rate cannot reach its predicted maximum).
+ */
+export type HrCriterion = 'percent' | 'within-bpm' | 'either' | 'off';
+/**
+ * How the criteria combine: 'rer-plus-one' (peak RER and at least one other; common
+ * practice) or 'rer-alone' (peak RER by itself, the single criterion Balady et al. 2010 rely on).
+ */
+export type EffortRule = 'rer-plus-one' | 'rer-alone';
 export type BandKind = 'typical' | 'mdc95';
 
 export interface Settings {
@@ -76,6 +87,11 @@ export interface Settings {
     readonly hrPctMin: number;
     readonly rpeMin: number;
     readonly lactateMinMmolL: number;
+    // The three below are optional so that case files written before them load with their
+    // anchor unchanged; absent means the default (EFFORT_OPTION_DEFAULTS), the old behaviour.
+    readonly hrCriterion?: HrCriterion;
+    readonly hrWithinBpm?: number;
+    readonly rule?: EffortRule;
   };
   readonly compare: {
     readonly intervalHMin: number;
@@ -88,6 +104,12 @@ export interface Settings {
     readonly paper: 'a4' | 'letter';
   };
 }
+
+export const EFFORT_OPTION_DEFAULTS = { hrCriterion: 'percent', hrWithinBpm: 10, rule: 'rer-plus-one' } as const satisfies {
+  hrCriterion: HrCriterion;
+  hrWithinBpm: number;
+  rule: EffortRule;
+};
 
 export const DEFAULT_SETTINGS: Settings = {
   version: SETTINGS_VERSION,
@@ -114,6 +136,9 @@ export const DEFAULT_SETTINGS: Settings = {
     hrPctMin: 85,
     rpeMin: 17,
     lactateMinMmolL: 8,
+    hrCriterion: 'percent',
+    hrWithinBpm: 10,
+    rule: 'rer-plus-one',
   },
   compare: { intervalHMin: 20, intervalHMax: 52, workloadStepW: 10, bandKind: 'mdc95' },
   report: { paper: 'a4' },
@@ -134,13 +159,16 @@ export const SETTING_SOURCES: Readonly<Record<string, string>> = {
   'thresholds.disagreementPct': 'common practice (no single source)',
   'thresholds.bootstrap': 'residual bootstrap of the breakpoint fit, seeded for reproducibility; early stop when the interval is stable is our choice',
   'peaks.windowS': 'common practice (30 s rolling mean)',
-  'effort.rerMin': 'Balady et al., Circulation 2010;122:191–225; ATS/ACCP, Am J Respir Crit Care Med 2003;167:211–77',
+  'effort.rerMin': 'Balady et al., Circulation 2010;122:191–225 (1.10); ATS/ACCP, Am J Respir Crit Care Med 2003;167:211–77; some labs use 1.15 (Robergs et al., Sports Med 2010;40:95–111 surveyed both)',
   'effort.plateauMlMin': 'Taylor, Buskirk & Henschel, J Appl Physiol 1955;8:73–80; Howley, Bassett & Welch, Med Sci Sports Exerc 1995;27:1292–301',
   'effort.plateauMlKgMin': 'Taylor, Buskirk & Henschel 1955; Howley, Bassett & Welch 1995',
   'effort.hrMaxFormula': 'Tanaka, Monahan & Seals, J Am Coll Cardiol 2001;37:153–6 (208 − 0.7 × age); alternative Fox 1971 (220 − age)',
   'effort.hrPctMin': 'common practice; Howley, Bassett & Welch 1995',
   'effort.rpeMin': 'Borg, Med Sci Sports Exerc 1982;14:377–81; threshold 17 common practice',
   'effort.lactateMinMmolL': 'common practice (no single source)',
+  'effort.hrCriterion': 'common practice (85 % of predicted, or within 10 bpm; Howley, Bassett & Welch 1995); off under beta-blockade, which blunts the HR response (common practice)',
+  'effort.hrWithinBpm': 'common practice; Howley, Bassett & Welch 1995',
+  'effort.rule': "RER plus one other criterion: common practice; RER alone: Balady et al., Circulation 2010 call peak RER the best non-invasive indicator of effort (memory)",
   'compare.intervalHMin': 'common practice for two-day testing (about 24 h apart)',
   'compare.intervalHMax': 'common practice for two-day testing (about 24 h apart)',
   'compare.workloadStepW': 'common practice',

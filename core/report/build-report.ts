@@ -15,6 +15,7 @@ import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/
 import { sha256Hex } from '../case/sha256';
 import type { Comparison } from '../compare/compare-tests';
 import { bandKindLabel } from '../compare/bands';
+import { metricDefinition } from '../compare/metric-catalog';
 import { CAUTIONS } from '../compare/wording';
 import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
@@ -25,6 +26,13 @@ import { localeByTag } from '../locale/locales';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
 import { describeAction } from './log-text';
 import { followUpSection, followUpSummaryLine } from './follow-up-section';
+import { timeCells } from './time-text';
+import { matchedReadingText } from '../compare/matched';
+import { REVIEWER_MARK, metricReviewerMark, reviewerMark, reviewerMarkNote } from './reviewer-mark';
+import { settingsInWords } from './settings-text';
+import { dayMeasuresBlock } from './day-measures';
+import { effortBlock } from './effort-table';
+import { draftReason, drawDraftMark, signOffInForce } from './draft-mark';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -83,8 +91,8 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   const L = new Layout(doc, { regular: 'Sans', bold: 'Sans-Bold' }, reportFormat(localeByTag(caseFile.reportLocale)));
 
   titleBlock(L, input, subject);
-  comparisonSection(L, outcome.comparison);
-  matchedSection(L, outcome.comparison);
+  comparisonSection(L, outcome.comparison, outcome);
+  matchedSection(L, outcome);
   for (const day of [outcome.day1, outcome.day2]) await daySection(L, day);
   await overlaySection(L, outcome);
   hrSection(L, outcome);
@@ -143,7 +151,7 @@ function rampText(L: Layout, day: DayOutcome): string {
   return r === null ? 'not stated' : `ramp ${L.f.fixed(r, 0)} W/min (measured)`;
 }
 
-function comparisonSection(L: Layout, c: Comparison): void {
+function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Comparison>): void {
   L.heading('Day 2 against day 1');
   L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${L.f.prose(c.band.description)}`, { size: 8, color: MUTED });
   const sources: string[] = [];
@@ -156,12 +164,13 @@ function comparisonSection(L: Layout, c: Comparison): void {
   const digits = metricDigits;
   const rows = c.metrics.map((m) => {
     const d = digits(m.unit);
+    const time = timeCells(m.unit, m.day1, m.day2, m.delta);
     return [
-      m.label,
-      m.unit || '–',
-      L.f.fixed(m.day1, d),
-      L.f.fixed(m.day2, d),
-      L.f.signed(m.delta, d),
+      `${m.label}${metricReviewerMark(outcome, metricDefinition(m.id).threshold)}`,
+      time?.unit ?? (m.unit || '–'),
+      time?.day1 ?? L.f.fixed(m.day1, d),
+      time?.day2 ?? L.f.fixed(m.day2, d),
+      time?.delta ?? L.f.signed(m.delta, d),
       L.f.signed(m.deltaPct, 1),
       m.band ? `±${L.f.fixed(m.band.halfWidthPct, 1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
       verdictText(m.verdict, m.adverseBeyondBand),
@@ -181,6 +190,8 @@ function comparisonSection(L: Layout, c: Comparison): void {
     rows,
   );
   L.paragraph(sources.map((s, i) => `[${i + 1}] ${s}`).join('   '), { size: 7, color: MUTED });
+  const marked = reviewerMarkNote([outcome.day1, outcome.day2]);
+  if (marked) L.paragraph(marked, { size: 7.5, color: MUTED });
   const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${L.f.prose(m.reason ?? '')}`);
   if (notes.length > 0) L.paragraph(`Not compared. ${notes.join(' ')}`, { size: 7.5, color: MUTED });
 }
@@ -203,14 +214,18 @@ function verdictText(verdict: string, adverse: boolean): string {
   }
 }
 
-function matchedSection(L: Layout, c: Comparison): void {
+const READING_WORDS: Readonly<Record<string, string>> = { 'local-fit': 'local fit', 'window-mean': 'window mean', none: 'not read' };
+
+function matchedSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
+  const c = outcome.comparison;
   L.heading('At matched workloads');
   if (!c.matched.available) {
     L.paragraph(`Not available: ${L.f.prose(c.matched.reason ?? '')}`);
     return;
   }
-  L.paragraph(`Read at the first moment each day's ramp reached the workload; common range ${L.f.fixed(c.matched.rangeW[0], 0)}–${L.f.fixed(c.matched.rangeW[1], 0)} W in ${L.f.fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
-  const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ' (VT1 day 1)' : ' (VT1 day 2)');
+  L.paragraph(`${matchedReadingText(c.matched.windowW)} Common range ${L.f.fixed(c.matched.rangeW[0], 0)}–${L.f.fixed(c.matched.rangeW[1], 0)} W in ${L.f.fixed(c.matched.stepW, 0)} W steps, plus each day's VT1 workload.`, { size: 8, color: MUTED });
+  const kind = (k: string) => (k === 'step' ? '' : k === 'vt1_day1' ? ` (VT1 day 1${reviewerMark(outcome.day1, 'vt1') ? ` ${REVIEWER_MARK}` : ''})` : ` (VT1 day 2${reviewerMark(outcome.day2, 'vt1') ? ` ${REVIEWER_MARK}` : ''})`);
+  const read = (r: { day1: string; day2: string }) => (r.day1 === r.day2 ? READING_WORDS[r.day1] : `${READING_WORDS[r.day1]} / ${READING_WORDS[r.day2]}`);
   const rows = c.matched.rows.map((r) => [
     `${L.f.fixed(r.workW, 0)}${kind(r.kind)}`,
     L.f.fixed(r.values.vo2MlMin.day1, 0),
@@ -222,47 +237,42 @@ function matchedSection(L: Layout, c: Comparison): void {
     L.f.fixed(r.values.veLMin.day2, 1),
     L.f.fixed(r.values.rer.day1, 2),
     L.f.fixed(r.values.rer.day2, 2),
+    read(r.reading),
   ]);
   L.table(
     [
-      { header: 'Work (W)', width: 0.16 },
-      { header: 'VO₂ d1', width: 0.09, align: 'right' },
-      { header: 'VO₂ d2', width: 0.09, align: 'right' },
-      { header: 'VO₂ Δ %', width: 0.1, align: 'right' },
-      { header: 'HR d1', width: 0.08, align: 'right' },
-      { header: 'HR d2', width: 0.08, align: 'right' },
-      { header: 'VE d1', width: 0.1, align: 'right' },
-      { header: 'VE d2', width: 0.1, align: 'right' },
-      { header: 'RER d1', width: 0.1, align: 'right' },
-      { header: 'RER d2', width: 0.1, align: 'right' },
+      { header: 'Work (W)', width: 0.15 },
+      { header: 'VO₂ d1', width: 0.08, align: 'right' },
+      { header: 'VO₂ d2', width: 0.08, align: 'right' },
+      { header: 'VO₂ Δ %', width: 0.09, align: 'right' },
+      { header: 'HR d1', width: 0.07, align: 'right' },
+      { header: 'HR d2', width: 0.07, align: 'right' },
+      { header: 'VE d1', width: 0.08, align: 'right' },
+      { header: 'VE d2', width: 0.08, align: 'right' },
+      { header: 'RER d1', width: 0.08, align: 'right' },
+      { header: 'RER d2', width: 0.08, align: 'right' },
+      { header: 'Read by', width: 0.14 },
     ],
     rows,
     { size: 7.5 },
   );
-  L.paragraph('VO₂ in mL/min, HR in bpm, VE in L/min BTPS.', { size: 7, color: MUTED });
+  const note = reviewerMarkNote([outcome.day1, outcome.day2], ['vt1']);
+  L.paragraph(`VO₂ in mL/min, HR in bpm, VE in L/min BTPS.${note ? ` ${note}` : ''}`, { size: 7, color: MUTED });
 }
 
 async function daySection(L: Layout, day: DayOutcome): Promise<void> {
   const a = day.analysis;
   L.doc.addPage();
   L.heading(`Day ${day.day}: ${a.sourceName}`);
-  L.subheading(`Effort: ${a.effort.verdict}`);
-  L.table(
-    [
-      { header: 'Criterion', width: 0.26 },
-      { header: 'Value', width: 0.12, align: 'right' },
-      { header: 'Required', width: 0.14, align: 'right' },
-      { header: 'Met', width: 0.08 },
-      { header: 'Source', width: 0.4 },
-    ],
-    a.effort.criteria.map((c) => [c.label, c.value === null ? 'not measured' : `${L.f.fixed(c.value, c.unit === '' ? 2 : 0)} ${c.unit}`.trim(), `≥ ${L.f.number(c.threshold)} ${c.unit}`.trim(), c.met === null ? 'n/a' : c.met ? 'yes' : 'no', c.source]),
-    { size: 7.5 },
-  );
+  effortBlock(L, a.effort, a.provenance.settings.effort);
+  dayMeasuresBlock(L, day);
   for (const id of ['vt1', 'vt2'] as const) thresholdBlock(L, id, day[id]);
   const used: ChartThresholds = { vt1: day.vt1.effective, vt2: day.vt2.effective };
   // Vega's width is the plot area; axis titles, labels and the legend take about 60 pt more.
   const w = (L.width - 8) / 2 - 62;
-  await chartRow(L, [vslopeSpec(a, used, `V-slope, day ${day.day}`, w, 120), equivalentsSpec(a, used, `Ventilatory equivalents, day ${day.day}`, w, 120)]);
+  // The V-slope plot is square (equal axis scales); the chart beside it takes the rest of the row.
+  const square = 150;
+  await chartRow(L, [vslopeSpec(a, used, `V-slope, day ${day.day}`, square), equivalentsSpec(a, used, `Ventilatory equivalents, day ${day.day}`, L.width - 8 - (square + 70) - 62, 150)]);
   await chartRow(L, [endTidalSpec(a, used, `End-tidal pressures, day ${day.day}`, w, 120)]);
   if (a.warnings.length > 0) {
     L.subheading('Analysis notes');
@@ -336,7 +346,7 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
     const resting = a.clinical.restingHrBpm;
     return [
       `Day ${d.day}`,
-      a.vt1.at?.hrBpm != null ? `${L.f.fixed(a.vt1.at.hrBpm, 0)} bpm` : 'not available',
+      a.vt1.at?.hrBpm != null ? `${L.f.fixed(a.vt1.at.hrBpm, 0)} bpm${reviewerMark(d, 'vt1') ? ` ${REVIEWER_MARK}` : ''}` : 'not available',
       hrMax !== null ? `${L.f.fixed(0.55 * hrMax, 0)}–${L.f.fixed(0.6 * hrMax, 0)} bpm (of ${L.f.fixed(hrMax, 0)})` : 'age not stated',
       resting !== null ? `${L.f.fixed(resting + 15, 0)} bpm (rest ${L.f.fixed(resting, 0)})` : 'resting HR not given',
     ];
@@ -350,18 +360,8 @@ function hrSection(L: Layout, outcome: CaseOutcome<Comparison>): void {
     ],
     rows,
   );
-  L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).`, { size: 7, color: MUTED });
-}
-
-function settingValue(L: Layout, settings: Settings, path: string): string {
-  let value: unknown = settings;
-  for (const key of path.split('.')) value = (value as Record<string, unknown>)?.[key];
-  if (value !== null && typeof value === 'object') {
-    return Object.entries(value as Record<string, unknown>)
-      .map(([k, v]) => `${k} ${typeof v === 'number' ? L.f.number(v) : String(v)}`)
-      .join(', ');
-  }
-  return typeof value === 'number' ? L.f.number(value) : String(value);
+  const marked = reviewerMarkNote([outcome.day1, outcome.day2], ['vt1']);
+  L.paragraph(`Rules of thumb: common practice. Age-predicted HRmax by the formula in the settings (${SETTING_SOURCES['effort.hrMaxFormula']}).${marked ? ` ${marked}` : ''}`, { size: 7, color: MUTED });
 }
 
 function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comparison>): void {
@@ -379,13 +379,14 @@ function methodsSection(L: Layout, settings: Settings, outcome: CaseOutcome<Comp
   );
   L.table(
     [
-      { header: 'Setting', width: 0.27 },
-      { header: 'Value', width: 0.27 },
-      { header: 'Source', width: 0.46 },
+      { header: 'Topic', width: 0.11 },
+      { header: 'Setting in use', width: 0.47 },
+      { header: 'Source', width: 0.42 },
     ],
-    Object.entries(SETTING_SOURCES).map(([path, source]) => [path, settingValue(L, settings, path), source]),
+    settingsInWords(settings).map((line) => [line.topic, line.text, line.source]),
     { size: 7 },
   );
+  L.paragraph('The same settings, with their keys, are in the case file attached to this PDF.', { size: 7, color: MUTED });
 }
 
 function provenanceSection(L: Layout, input: ReportInput): void {
@@ -438,8 +439,8 @@ function logSection(L: Layout, caseFile: CaseFile): void {
 function signatureSection(L: Layout, input: ReportInput): void {
   L.heading('Signature');
   L.ensure(110);
-  const signOff = [...input.caseFile.log].reverse().find((e) => e.action.kind === 'sign-off');
-  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${L.f.dateTime(signOff.at)})` : 'No sign-off statement is recorded in the reviewer log.';
+  const signOff = signOffInForce(input.caseFile);
+  const statement = signOff && signOff.action.kind === 'sign-off' ? `${signOff.action.statement} (${signOff.who}, ${signOff.role}, ${L.f.dateTime(signOff.at)}, log entry ${signOff.seq})` : `DRAFT. ${draftReason(input.caseFile)}`;
   L.facts([
     ['Reviewer', input.reviewer ?? 'not named'],
     ['Statement', statement],
@@ -451,12 +452,14 @@ function signatureSection(L: Layout, input: ReportInput): void {
 function footers(L: Layout, subject: string, input: ReportInput): void {
   const { doc } = L;
   const range = doc.bufferedPageRange();
+  const draft = signOffInForce(input.caseFile) === null;
   for (let i = range.start; i < range.start + range.count; i++) {
     doc.switchToPage(i);
+    if (draft) drawDraftMark(L);
     const bottom = doc.page.margins.bottom;
     doc.page.margins.bottom = 0;
     const y = doc.page.height - 34;
-    const tag = input.signature === 'demonstration' ? 'DEMONSTRATION · ' : '';
+    const tag = `${input.signature === 'demonstration' ? 'DEMONSTRATION · ' : ''}${draft ? 'DRAFT · ' : ''}`;
     doc.font('Sans').fontSize(7).fillColor(MUTED).text(`${tag}${SOFTWARE_NAME} ${SOFTWARE_VERSION} · ${subject} · supports licensed clinicians, does not diagnose`, L.left, y, { width: L.width - 70, lineBreak: false });
     doc.text(`page ${L.f.integer(i + 1)} of ${L.f.integer(range.count)}`, L.left + L.width - 70, y, { width: 70, align: 'right', lineBreak: false });
     doc.page.margins.bottom = bottom;

@@ -1,19 +1,23 @@
 /**
  * The report's charts as SVG, made with vega-lite (compiled to vega, rendered headless with
  * renderer 'none' and `view.toSVG()`), from the same series and threshold values the tables
- * print. Four kinds: the V-slope plot (VCO2 against VO2 over the incremental phase, with the
- * V-slope method's fitted lines and the threshold used; Beaver, Wasserman & Whipp 1986), the
- * ventilatory equivalents and the end-tidal pressures against time with VT1 and VT2 marked
- * (Wasserman et al. 1973), and day 1 and day 2 overlaid against workload.
- * Units: mL/min, mmHg, s (shown as min), W, bpm.
+ * print. Four kinds: the V-slope plot (core/report/vslope-view.ts: VCO2 against VO2 over the
+ * analysed window, equal axis scales, the line of identity, both regression lines with their
+ * slopes; Beaver, Wasserman & Whipp 1986), the ventilatory equivalents and the end-tidal
+ * pressures against time with VT1 and VT2 marked (Wasserman et al. 1973), and day 1 and day 2
+ * overlaid against workload. Colours and dashes come from core/palette.ts, the palette the
+ * workbench uses too. Units: mL/min, mmHg, s (shown as m:ss), W, bpm.
  */
 import * as vega from 'vega';
 import * as vl from 'vega-lite';
 import type { TestAnalysis } from '../model/analysis';
 import type { ThresholdPoint } from '../case/case-file';
 import type { ReportLocale } from '../locale/locales';
+import { DAY_STYLE, INK, SERIES_STYLE, THRESHOLD_STYLE, VSLOPE_STYLE, type LineStyle } from '../palette';
+import { vslopeView } from './vslope-view';
 
-export const DAY_COLORS = { day1: '#2f5d7c', day2: '#c0612b' } as const;
+/** The days' colours, from the shared palette (kept under this name for existing callers). */
+export const DAY_COLORS = { day1: DAY_STYLE[1].colour, day2: DAY_STYLE[2].colour } as const;
 const FONT = 'DejaVu Sans';
 
 type Spec = Record<string, unknown>;
@@ -63,66 +67,95 @@ function incrementalIndices(a: TestAnalysis): number[] {
   return out;
 }
 
-function rules(marks: { value: number; label: string }[], field: 'x' | 'y'): Spec[] {
-  if (marks.length === 0) return [];
-  return [
-    { data: { values: marks }, mark: { type: 'rule', strokeDash: [4, 3], color: '#1d2430', strokeWidth: 0.8 }, encoding: { [field]: { field: 'value', type: 'quantitative' } } },
-    {
-      data: { values: marks },
-      mark: { type: 'text', align: 'left', dx: 3, dy: -4, fontSize: 8, color: '#1d2430', ...(field === 'x' ? { y: 8 } : { x: 4 }) },
-      encoding: { [field]: { field: 'value', type: 'quantitative' }, text: { field: 'label' } },
-    },
-  ];
+interface Mark {
+  readonly value: number;
+  readonly label: string;
+  readonly style: LineStyle;
 }
 
-/** VCO2 against VO2 with the V-slope fit's segments and the VT1 used. */
-export function vslopeSpec(a: TestAnalysis, used: ChartThresholds, title: string, width: number, height: number): Spec {
-  const upper = used.vt2?.timeS ?? a.phases.incrementalEndS;
-  const points: Row[] = incrementalIndices(a)
-    .filter((i) => a.series.timeS[i] <= upper)
-    .map((i) => ({ vo2: a.series.vo2MlMin[i], vco2: a.series.vco2MlMin[i] }));
-  const fit = a.vt1.methods.find((m) => m.found && m.evidence.xName === 'vo2MlMin' && m.evidence.yName === 'vco2MlMin');
-  const lines: Row[] = [];
-  if (fit && fit.found) {
-    fit.evidence.segments.forEach((s, k) => {
-      lines.push({ seg: k, vo2: s.x0, vco2: s.intercept + s.slope * s.x0 }, { seg: k, vo2: s.x1, vco2: s.intercept + s.slope * s.x1 });
-    });
+function rules(marks: Mark[], field: 'x' | 'y'): Spec[] {
+  return marks.flatMap((m) => [
+    { data: { values: [m] }, mark: { type: 'rule', strokeDash: [...m.style.dash], color: m.style.colour, strokeWidth: 0.9 }, encoding: { [field]: { field: 'value', type: 'quantitative' } } },
+    {
+      data: { values: [m] },
+      mark: { type: 'text', align: 'left', dx: 3, dy: -4, fontSize: 8, color: INK, ...(field === 'x' ? { y: 8 } : { x: 4 }) },
+      encoding: { [field]: { field: 'value', type: 'quantitative' }, text: { field: 'label' } },
+    },
+  ]);
+}
+
+/** A time axis in m:ss with a tick every `stepS` seconds over [lo, hi]. */
+function timeAxis(lo: number, hi: number, stepS = 120): Spec {
+  const values: number[] = [];
+  for (let t = Math.ceil(lo / stepS) * stepS; t <= hi; t += stepS) values.push(t);
+  return { title: 'time (m:ss)', values, labelExpr: "floor(datum.value / 60) + ':' + (datum.value % 60 < 10 ? '0' : '') + round(datum.value % 60)" };
+}
+
+/**
+ * VCO2 against VO2 over the analysed window, square, both axes on one range, the line of
+ * identity and the V-slope fit's two regression lines with their slopes in the legend.
+ */
+export function vslopeSpec(a: TestAnalysis, used: ChartThresholds, title: string, size: number): Spec {
+  const view = vslopeView(a, used);
+  const scale = { domain: [...view.range], nice: false, zero: false };
+  const [lo, hi] = view.range;
+  const lineRows: Row[] = [
+    { name: 'line of identity (slope 1)', vo2: lo, vco2: lo, k: 0 },
+    { name: 'line of identity (slope 1)', vo2: hi, vco2: hi, k: 1 },
+  ];
+  const names: string[] = ['line of identity (slope 1)'];
+  const colours: string[] = [VSLOPE_STYLE.identity.colour];
+  const dashes: number[][] = [[...VSLOPE_STYLE.identity.dash]];
+  for (const l of view.lines) {
+    const name = `${l.part === 'below' ? 'below VT1' : 'above VT1'}: slope ${l.slope.toFixed(2)}`;
+    lineRows.push({ name, vo2: l.from[0], vco2: l.from[1], k: 0 }, { name, vo2: l.to[0], vco2: l.to[1], k: 1 });
+    names.push(name);
+    const style = l.part === 'below' ? VSLOPE_STYLE.below : VSLOPE_STYLE.above;
+    colours.push(style.colour);
+    dashes.push([...style.dash]);
   }
-  const marks = used.vt1 ? [{ value: used.vt1.vo2MlMin, label: `VT1 ${Math.round(used.vt1.vo2MlMin)}` }] : [];
+  const marks: Mark[] = view.vt1Vo2MlMin !== null ? [{ value: view.vt1Vo2MlMin, label: `VT1 ${Math.round(view.vt1Vo2MlMin)}`, style: THRESHOLD_STYLE.vt1 }] : [];
+  const x = { field: 'vo2', type: 'quantitative', title: 'VO₂ (mL/min)', scale };
+  const y = { field: 'vco2', type: 'quantitative', title: 'VCO₂ (mL/min)', scale };
   return {
-    width,
-    height,
-    title,
-    config: CONFIG,
+    width: size,
+    height: size,
+    title: { text: title, subtitle: view.fitLabel ? [`fit: ${view.fitLabel}`, 'faint points: ramp above VT2, not fitted'] : ['no V-slope fit found'], subtitleFontSize: 7, subtitleColor: '#5b6575' },
+    config: { ...CONFIG, legend: { ...CONFIG.legend, orient: 'bottom', direction: 'vertical', symbolType: 'stroke', symbolStrokeWidth: 1.6, labelLimit: 220 } },
     layer: [
+      { data: { values: view.outside.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 5, filled: true, color: VSLOPE_STYLE.outside, clip: true }, encoding: { x, y } },
+      { data: { values: view.analysed.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 6, filled: true, opacity: 0.5, color: VSLOPE_STYLE.analysed, clip: true }, encoding: { x, y } },
       {
-        data: { values: points },
-        mark: { type: 'point', size: 6, filled: true, opacity: 0.55, color: '#7d8896' },
+        data: { values: lineRows },
+        mark: { type: 'line', strokeWidth: 1.5, clip: true },
         encoding: {
-          x: { field: 'vo2', type: 'quantitative', title: 'VO₂ (mL/min)', scale: { zero: false } },
-          y: { field: 'vco2', type: 'quantitative', title: 'VCO₂ (mL/min)', scale: { zero: false } },
+          x,
+          y,
+          order: { field: 'k', type: 'quantitative' },
+          color: { field: 'name', type: 'nominal', title: null, scale: { domain: names, range: colours } },
+          strokeDash: { field: 'name', type: 'nominal', title: null, scale: { domain: names, range: dashes } },
         },
       },
-      ...(lines.length > 0
-        ? [{ data: { values: lines }, mark: { type: 'line', color: DAY_COLORS.day1, strokeWidth: 1.4 }, encoding: { x: { field: 'vo2', type: 'quantitative' }, y: { field: 'vco2', type: 'quantitative' }, detail: { field: 'seg' } } }]
-        : []),
       ...rules(marks, 'x'),
     ],
   };
 }
 
 /** Two series of one day against time (min), with VT1 and VT2 marked. */
-function againstTimeSpec(a: TestAnalysis, used: ChartThresholds, title: string, yTitle: string, series: { name: string; values: readonly (number | null)[] }[], width: number, height: number): Spec {
+function againstTimeSpec(a: TestAnalysis, used: ChartThresholds, title: string, yTitle: string, series: { name: string; values: readonly (number | null)[]; style: LineStyle }[], width: number, height: number): Spec {
   const rows: Row[] = [];
   for (const i of incrementalIndices(a)) {
     for (const s of series) {
       const v = s.values[i];
-      if (v !== null && Number.isFinite(v)) rows.push({ min: a.series.timeS[i] / 60, value: v, series: s.name });
+      if (v !== null && Number.isFinite(v)) rows.push({ t: a.series.timeS[i], value: v, series: s.name });
     }
   }
-  const marks: { value: number; label: string }[] = [];
-  if (used.vt1) marks.push({ value: used.vt1.timeS / 60, label: 'VT1' });
-  if (used.vt2) marks.push({ value: used.vt2.timeS / 60, label: 'VT2' });
+  const marks: Mark[] = [];
+  if (used.vt1) marks.push({ value: used.vt1.timeS, label: 'VT1', style: THRESHOLD_STYLE.vt1 });
+  if (used.vt2) marks.push({ value: used.vt2.timeS, label: 'VT2', style: THRESHOLD_STYLE.vt2 });
+  const ts = rows.map((r) => r.t as number);
+  const lo = ts.length > 0 ? Math.min(...ts) : 0;
+  const hi = ts.length > 0 ? Math.max(...ts) : 60;
   return {
     width,
     height,
@@ -133,9 +166,10 @@ function againstTimeSpec(a: TestAnalysis, used: ChartThresholds, title: string, 
         data: { values: rows },
         mark: { type: 'line', strokeWidth: 1.1 },
         encoding: {
-          x: { field: 'min', type: 'quantitative', title: 'time (min)', scale: { zero: false } },
+          x: { field: 't', type: 'quantitative', axis: timeAxis(lo, hi), scale: { zero: false, nice: false, domain: [lo, hi] } },
           y: { field: 'value', type: 'quantitative', title: yTitle, scale: { zero: false } },
-          color: { field: 'series', type: 'nominal', title: null, scale: { range: [DAY_COLORS.day1, DAY_COLORS.day2] } },
+          color: { field: 'series', type: 'nominal', title: null, scale: { domain: series.map((s) => s.name), range: series.map((s) => s.style.colour) } },
+          strokeDash: { field: 'series', type: 'nominal', title: null, scale: { domain: series.map((s) => s.name), range: series.map((s) => [...s.style.dash]) } },
         },
       },
       ...rules(marks, 'x'),
@@ -147,15 +181,15 @@ export function equivalentsSpec(a: TestAnalysis, used: ChartThresholds, title: s
   const s = a.series;
   const ratio = (num: readonly number[], den: readonly number[]) => num.map((v, i) => (den[i] > 0 ? (1000 * v) / den[i] : null));
   return againstTimeSpec(a, used, title, 'VE/VO₂, VE/VCO₂', [
-    { name: 'VE/VO₂', values: ratio(s.veLMin, s.vo2MlMin) },
-    { name: 'VE/VCO₂', values: ratio(s.veLMin, s.vco2MlMin) },
+    { name: 'VE/VO₂', values: ratio(s.veLMin, s.vo2MlMin), style: SERIES_STYLE.veVo2 },
+    { name: 'VE/VCO₂', values: ratio(s.veLMin, s.vco2MlMin), style: SERIES_STYLE.veVco2 },
   ], width, height);
 }
 
 export function endTidalSpec(a: TestAnalysis, used: ChartThresholds, title: string, width: number, height: number): Spec {
   return againstTimeSpec(a, used, title, 'mmHg', [
-    { name: 'PetO₂', values: a.series.peto2Mmhg },
-    { name: 'PetCO₂', values: a.series.petco2Mmhg },
+    { name: 'PetO₂', values: a.series.peto2Mmhg, style: SERIES_STYLE.peto2 },
+    { name: 'PetCO₂', values: a.series.petco2Mmhg, style: SERIES_STYLE.petco2 },
   ], width, height);
 }
 
@@ -184,6 +218,7 @@ export function overlaySpec(day1: TestAnalysis, day2: TestAnalysis, variable: 'v
       x: { field: 'work', type: 'quantitative', title: 'workload (W)' },
       y: { field: 'value', type: 'quantitative', title: variable === 'vo2MlMin' ? 'VO₂ (mL/min)' : 'HR (bpm)', scale: { zero: false } },
       color: { field: 'day', type: 'nominal', title: null, scale: { domain: ['day 1', 'day 2'], range: [DAY_COLORS.day1, DAY_COLORS.day2] } },
+      strokeDash: { field: 'day', type: 'nominal', title: null, scale: { domain: ['day 1', 'day 2'], range: [[...DAY_STYLE[1].dash], [...DAY_STYLE[2].dash]] } },
       order: { field: 't', type: 'quantitative' },
     },
   };

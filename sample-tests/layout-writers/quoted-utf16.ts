@@ -1,9 +1,12 @@
 /**
- * Invented layout "quoted-utf16": every field in double quotes, comma-delimited, CRLF line
- * ends, encoded UTF-16 little-endian with a byte-order mark. Quoted label/value pairs above
- * the table, then headers spelt the way some carts abbreviate (V'O2, V'CO2, V'E, BF for
- * breathing frequency, VTex, Load). Time in s with one decimal; no RPE column (the peak
- * rating is a label/value line instead).
+ * Invented layout "quoted-utf16" (Twofold's own, in the demo scenario): every field in double
+ * quotes, comma-delimited, CRLF line ends, encoded UTF-16 little-endian with a byte-order
+ * mark. A titled block of quoted label/value pairs above the table (one label holds an escaped
+ * quote and a comma), a blank line, then headers written out in plain words with the unit in
+ * square brackets ("Elapsed [s]", "O2 uptake [mL/min]", "Respiratory rate [/min]"), except
+ * the end-tidal pressures, which give no unit (the importer infers mmHg from the values,
+ * warns, and the workbench asks).
+ * Time in s with one decimal; no RPE column (the highest rating is a label/value line instead).
  */
 import type { BreathTable } from '../../core/model/breath-table';
 import { fixed, sexWord } from './text-cells';
@@ -29,17 +32,28 @@ export function quotedUtf16Text(table: BreathTable): string {
   const m = table.metadata;
   const peakRpe = table.rpe.length > 0 ? String(Math.max(...table.rpe.map((r) => r.borg))) : '';
   const pairs: [string, string][] = [
-    ['Subject', m.subjectId ?? ''],
-    ['Age', m.ageY === null ? '' : String(m.ageY)],
-    ['Gender', sexWord(m.sex)],
-    ['Height', m.heightCm === null ? '' : `${m.heightCm} cm`],
-    ['Weight', m.weightKg === null ? '' : `${m.weightKg} kg`],
-    ['Recorded', (m.testStart ?? '').replace('T', ' ')],
+    ['Participant', m.subjectId ?? ''],
+    ['Age (years)', m.ageY === null ? '' : String(m.ageY)],
+    ['Sex', sexWord(m.sex)],
+    ['Stature', m.heightCm === null ? '' : `${m.heightCm} cm`],
+    ['Body mass', m.weightKg === null ? '' : `${m.weightKg} kg`],
+    ['Start date-time', (m.testStart ?? '').replace('T', ' ')],
     ['Protocol, "as run"', m.protocol ?? ''],
-    ['Peak Borg', peakRpe],
+    ['Highest Borg rating', peakRpe],
   ];
-  const lines = pairs.map(([k, v]) => [quote(k), quote(v)].join(','));
-  const header = ['t (s)', "V'O2 (ml/min)", "V'CO2 (ml/min)", "V'E (l/min)", 'HR', 'Load', 'PETO2', 'PETCO2', 'BF', 'VTex (l)'];
+  const lines = [quote('Exercise session export'), ...pairs.map(([k, v]) => [quote(k), quote(v)].join(','))];
+  const header = [
+    'Elapsed [s]',
+    'O2 uptake [mL/min]',
+    'CO2 output [mL/min]',
+    'Ventilation [L/min]',
+    'Heart rate [bpm]',
+    'Power [W]',
+    'End-tidal O2',
+    'End-tidal CO2',
+    'Respiratory rate [/min]',
+    'Tidal volume [L]',
+  ];
   const rows = table.breaths.map((b) =>
     [
       fixed(b.timeS, 1),

@@ -83,8 +83,14 @@ describe('twofold report: clinical inputs per day', () => {
     // Rule of thumb resting HR + 15 bpm (common practice): 62 + 15 = 77 bpm, worked by hand.
     expect(text).toMatch(/Day 1 .*77 bpm \(rest 62\)/);
     expect(text).toMatch(/Day 2 .*resting HR not given/);
-    // Lactate effort criterion ≥ 8 mmol/L (common practice, the default setting): 9.4 is printed to 0 decimals and met.
-    expect(text).toMatch(/Peak blood lactate\s+9 mmol\/L\s+≥ 8 mmol\/L yes/);
+    // Lactate effort criterion ≥ 8 mmol/L (common practice, the default setting): 9.4 is printed to 1 decimal and met.
+    expect(text).toMatch(/Peak blood lactate\s+9\.4 mmol\/L\s+≥ 8 mmol\/L\s+met/);
+    // The per-day table prints the reserve and states how MVV was obtained: 4 L × 40 = 160 L/min
+    // on day 1, the measured 150 L/min on day 2.
+    const ve1: number = c.recorded.numbers['day1.peak.veLMin'];
+    const reserve1 = `${(160 - ve1).toFixed(0)} L/min (${((100 * (160 - ve1)) / 160).toFixed(0)} %)`;
+    expect(text).toMatch(new RegExp(`Breathing reserve\\s+${reserve1.replace(/[()]/g, '\\$&')}\\s+MVV estimated as FEV1 4\\.00 L ×`));
+    expect(text).toMatch(/Breathing reserve\s+\d+ L\/min \(\d+ %\)\s+MVV measured, 150 L\/min/);
     expect(text).toMatch(/Peak blood lactate\s+not measured/);
     // Breathing reserve = MVV − peak VE, MVV ≈ FEV1 × 40 when not measured (common practice):
     // day 1 MVV 4 × 40 = 160 L/min; day 2 the measured 150 L/min.

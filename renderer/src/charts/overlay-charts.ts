@@ -4,7 +4,7 @@
  * orange, so the days differ by line style as well as colour.
  */
 import type { ProcessedSeries, TestAnalysis } from '../../../core/model/analysis';
-import { DAY_COLOUR } from './palette';
+import { DAY_COLOUR, DAY_STYLE, plotlyDash } from './palette';
 
 type Key = 'vo2MlMin' | 'hrBpm';
 
@@ -39,7 +39,7 @@ function rampPart(a: TestAnalysis, key: Key, x: 'workW' | 'timeS') {
 
 function trace(a: TestAnalysis, day: 1 | 2, key: Key, x: 'workW' | 'timeS') {
   const { xs, ys } = rampPart(a, key, x);
-  return { type: 'scatter', mode: 'lines', name: `Day ${day}`, x: xs, y: ys, line: { color: DAY_COLOUR[day], width: 2, dash: day === 1 ? 'solid' : 'dash' } };
+  return { type: 'scatter', mode: 'lines', name: `Day ${day}`, x: xs, y: ys, line: { color: DAY_COLOUR[day], width: 2, dash: plotlyDash(DAY_STYLE[day].dash) } };
 }
 
 function vt1Mark(a: TestAnalysis, day: 1 | 2, key: Key, x: 'workW' | 'timeS') {

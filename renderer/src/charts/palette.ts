@@ -1,26 +1,16 @@
 /**
- * Colours from the Okabe–Ito palette (Okabe & Ito, "Color Universal Design", 2008), safe for
- * the common colour-vision deficiencies. Colour never carries meaning alone: every chip has
- * its word, and day 2 is also drawn dashed.
+ * The workbench's colours come from the one palette in core/palette.ts, shared with the PDF
+ * report; this module only adapts it to the names the screens use.
  */
-export const OKABE_ITO = {
-  black: '#000000',
-  orange: '#E69F00',
-  skyBlue: '#56B4E9',
-  bluishGreen: '#009E73',
-  yellow: '#F0E442',
-  blue: '#0072B2',
-  vermillion: '#D55E00',
-  reddishPurple: '#CC79A7',
-  grey: '#999999',
-} as const;
+import { DAY_STYLE, THRESHOLD_STYLE } from '../../../core/palette';
 
-export const DAY_COLOUR = { 1: OKABE_ITO.blue, 2: OKABE_ITO.orange } as const;
-export const THRESHOLD_COLOUR = { vt1: OKABE_ITO.bluishGreen, vt2: OKABE_ITO.reddishPurple } as const;
+export { OKABE_ITO, SERIES_STYLE, THRESHOLD_STYLE, VSLOPE_STYLE, DAY_STYLE, verdictStyle } from '../../../core/palette';
 
-export const VERDICT_STYLE = {
-  within: { colour: OKABE_ITO.bluishGreen, words: 'Within band' },
-  decline: { colour: OKABE_ITO.vermillion, words: 'Decline beyond band' },
-  rise: { colour: OKABE_ITO.skyBlue, words: 'Rise beyond band' },
-  not_comparable: { colour: OKABE_ITO.grey, words: 'Not comparable' },
-} as const;
+export const DAY_COLOUR = { 1: DAY_STYLE[1].colour, 2: DAY_STYLE[2].colour } as const;
+export const THRESHOLD_COLOUR = { vt1: THRESHOLD_STYLE.vt1.colour, vt2: THRESHOLD_STYLE.vt2.colour } as const;
+
+/** Plotly's dash name for a palette dash array. */
+export function plotlyDash(dash: readonly number[]): 'solid' | 'dash' | 'dot' {
+  return dash.length === 0 ? 'solid' : dash[0] < 2 ? 'dot' : 'dash';
+}
+

@@ -6,7 +6,8 @@
  */
 import type { MethodOutcome, ProcessedSeries, ThresholdId } from '../../../core/model/analysis';
 import type { DayOutcome, ThresholdState } from '../../../core/case/recompute';
-import { OKABE_ITO, THRESHOLD_COLOUR } from './palette';
+import { vslopeView } from '../../../core/report/vslope-view';
+import { OKABE_ITO, SERIES_STYLE, THRESHOLD_COLOUR, THRESHOLD_STYLE, VSLOPE_STYLE, plotlyDash } from './palette';
 
 type Trace = Record<string, unknown>;
 type Shape = Record<string, unknown>;
@@ -32,7 +33,7 @@ function markLines(day: DayOutcome, axis: 'time' | 'vo2'): { shapes: Shape[]; an
     }
     if (state.effective) {
       const x = axis === 'time' ? state.effective.timeS : state.effective.vo2MlMin;
-      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: x, x1: x, y0: 0, y1: 1, line: { color: colour, width: 2.5 } });
+      shapes.push({ type: 'line', xref: 'x', yref: 'paper', x0: x, x1: x, y0: 0, y1: 1, line: { color: colour, width: 2.5, dash: plotlyDash(THRESHOLD_STYLE[id].dash) } });
       annotations.push({ x, y: 1, xref: 'x', yref: 'paper', yanchor: 'bottom', text: `${id.toUpperCase()}${state.override ? ' (reviewer)' : ''}`, showarrow: false, font: { color: colour, size: 12 } });
     }
   }
@@ -57,17 +58,26 @@ function methodMarks(methods: readonly MethodOutcome[], axis: 'time' | 'vo2', id
 
 const markerY2 = { overlaying: 'y', range: [0, 1], visible: false, fixedrange: true };
 
+/**
+ * V-slope over the analysed window (core/report/vslope-view.ts, shared with the report): the
+ * ramp up to VT2, the ramp above it faint, rest and recovery left out; equal axis scales, the
+ * line of identity and the fit's two regression lines named with their slopes.
+ */
 export function vSlopeChart(day: DayOutcome) {
-  const s: ProcessedSeries = day.analysis.series;
+  const view = vslopeView(day.analysis, { vt1: day.vt1.effective, vt2: day.vt2.effective });
+  const xs = (pts: readonly (readonly [number, number])[]) => pts.map((p) => p[0]);
+  const ys = (pts: readonly (readonly [number, number])[]) => pts.map((p) => p[1]);
+  const hover = 'VO₂ %{x:.0f} mL/min, VCO₂ %{y:.0f} mL/min<extra></extra>';
+  const [lo, hi] = view.range;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'markers', name: 'VCO₂ against VO₂', x: s.vo2MlMin, y: s.vco2MlMin, marker: { color: OKABE_ITO.blue, size: 4, opacity: 0.7 }, hovertemplate: 'VO₂ %{x:.0f} mL/min, VCO₂ %{y:.0f} mL/min<extra></extra>' },
+    { type: 'scatter', mode: 'markers', name: 'ramp above VT2 (not fitted)', x: xs(view.outside), y: ys(view.outside), marker: { color: VSLOPE_STYLE.outside, size: 4 }, hovertemplate: hover },
+    { type: 'scatter', mode: 'markers', name: 'VCO₂ against VO₂ (analysed window)', x: xs(view.analysed), y: ys(view.analysed), marker: { color: VSLOPE_STYLE.analysed, size: 4, opacity: 0.55 }, hovertemplate: hover },
+    { type: 'scatter', mode: 'lines', name: 'line of identity (slope 1)', x: [lo, hi], y: [lo, hi], line: { color: VSLOPE_STYLE.identity.colour, width: 1.5, dash: plotlyDash(VSLOPE_STYLE.identity.dash) }, hoverinfo: 'skip' },
   ];
-  const fits = day.vt1.automatic.methods.filter((m) => m.found && m.evidence.xName === 'vo2MlMin' && m.evidence.yName === 'vco2MlMin');
-  for (const [k, m] of fits.entries()) {
-    if (!m.found) continue;
-    for (const [i, seg] of m.evidence.segments.entries()) {
-      data.push({ type: 'scatter', mode: 'lines', name: `${m.label} fit`, legendgroup: m.method, showlegend: i === 0, x: [seg.x0, seg.x1], y: [seg.intercept + seg.slope * seg.x0, seg.intercept + seg.slope * seg.x1], line: { color: k === 0 ? OKABE_ITO.black : OKABE_ITO.grey, width: 2, dash: k === 0 ? 'solid' : 'dot' }, hovertemplate: `${m.label}: slope ${seg.slope.toFixed(2)}<extra></extra>` });
-    }
+  for (const l of view.lines) {
+    const style = l.part === 'below' ? VSLOPE_STYLE.below : VSLOPE_STYLE.above;
+    const name = `${l.part === 'below' ? 'below VT1' : 'above VT1'}: slope ${l.slope.toFixed(2)}`;
+    data.push({ type: 'scatter', mode: 'lines', name, x: [l.from[0], l.to[0]], y: [l.from[1], l.to[1]], line: { color: style.colour, width: 2.5 }, hovertemplate: `${view.fitLabel ?? 'fit'}, ${name}<extra></extra>` });
   }
   const vt1Marks = methodMarks(day.vt1.automatic.methods, 'vo2', 'vt1');
   if (vt1Marks) data.push(vt1Marks);
@@ -75,9 +85,9 @@ export function vSlopeChart(day: DayOutcome) {
   return {
     data,
     layout: {
-      title: { text: 'V-slope: VCO₂ against VO₂' },
-      xaxis: { title: { text: 'VO₂ (mL/min)' } },
-      yaxis: { title: { text: 'VCO₂ (mL/min)' } },
+      title: { text: `V-slope: VCO₂ against VO₂${view.fitLabel ? ` (fit: ${view.fitLabel})` : ''}` },
+      xaxis: { title: { text: 'VO₂ (mL/min)' }, range: [lo, hi], constrain: 'domain' },
+      yaxis: { title: { text: 'VCO₂ (mL/min)' }, range: [lo, hi], scaleanchor: 'x', scaleratio: 1, constrain: 'domain' },
       yaxis2: markerY2,
       legend: { orientation: 'h', y: -0.22 },
       ...marks,
@@ -88,8 +98,8 @@ export function vSlopeChart(day: DayOutcome) {
 export function equivalentsChart(day: DayOutcome) {
   const s = day.analysis.series;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'lines', name: 'VE/VO₂', x: s.timeS, y: ratio(s.veLMin, s.vo2MlMin, 1000), line: { color: OKABE_ITO.blue, width: 2 } },
-    { type: 'scatter', mode: 'lines', name: 'VE/VCO₂', x: s.timeS, y: ratio(s.veLMin, s.vco2MlMin, 1000), line: { color: OKABE_ITO.vermillion, width: 2, dash: 'dash' } },
+    { type: 'scatter', mode: 'lines', name: 'VE/VO₂', x: s.timeS, y: ratio(s.veLMin, s.vo2MlMin, 1000), line: { color: SERIES_STYLE.veVo2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVo2.dash) } },
+    { type: 'scatter', mode: 'lines', name: 'VE/VCO₂', x: s.timeS, y: ratio(s.veLMin, s.vco2MlMin, 1000), line: { color: SERIES_STYLE.veVco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVco2.dash) } },
   ];
   for (const id of IDS) {
     const m = methodMarks(day[id].automatic.methods, 'time', id);
@@ -111,8 +121,8 @@ export function equivalentsChart(day: DayOutcome) {
 export function endTidalChart(day: DayOutcome) {
   const s = day.analysis.series;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'lines', name: 'PetO₂', x: s.timeS, y: s.peto2Mmhg, line: { color: OKABE_ITO.blue, width: 2 } },
-    { type: 'scatter', mode: 'lines', name: 'PetCO₂', x: s.timeS, y: s.petco2Mmhg, line: { color: OKABE_ITO.vermillion, width: 2, dash: 'dash' } },
+    { type: 'scatter', mode: 'lines', name: 'PetO₂', x: s.timeS, y: s.peto2Mmhg, line: { color: SERIES_STYLE.peto2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.peto2.dash) } },
+    { type: 'scatter', mode: 'lines', name: 'PetCO₂', x: s.timeS, y: s.petco2Mmhg, line: { color: SERIES_STYLE.petco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.petco2.dash) } },
   ];
   return {
     data,

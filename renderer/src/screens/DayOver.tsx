@@ -9,7 +9,7 @@ import type { MatchedVariable } from '../../../core/compare/matched';
 import type { EngineView } from '../engine/protocol';
 import { Chart } from '../charts/Chart';
 import { overlayCharts } from '../charts/overlay-charts';
-import { VERDICT_STYLE } from '../charts/palette';
+import { verdictStyle } from '../charts/palette';
 import { Caution } from '../ui/notices';
 import { fmt, prose, signed } from '../ui/format';
 
@@ -65,7 +65,7 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
           </thead>
           <tbody>
             {c.metrics.map((m) => {
-              const style = VERDICT_STYLE[m.verdict];
+              const style = verdictStyle(m.verdict, m.adverseBeyondBand);
               const d = digitsOf(m.unit);
               return (
                 <tr key={m.id} data-metric={m.id}>
@@ -81,7 +81,6 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
                   <td>{m.band ? `±${fmt(m.band.halfWidthPct, 1)}%` : '—'}</td>
                   <td className="verdict" data-verdict={m.verdict} title={m.reason}>
                     <span className="chip" style={{ background: style.colour }} aria-hidden="true" /> {style.words}
-                    {m.adverseBeyondBand && <strong> (adverse)</strong>}
                   </td>
                   <td className="source">{m.band ? `${m.band.origin}: ${m.band.source}` : m.reason}</td>
                 </tr>

@@ -113,7 +113,7 @@ export function buildAnalysis(options: FixtureOptions = {}): TestAnalysis {
     },
     derived: { veVco2Slope: 28, oues: 2000, dVo2dWrMlMinW: 10, breathingReserveLMin: null, breathingReservePct: null, hrReserveBpm: null, weberClass: 'A', ...options.derived },
     predicted: { hrMaxBpm: 180, friendVo2MlKgMin: null, hansenVo2MlMin: null, pctPredictedFriend: null, pctPredictedHansen: null },
-    effort: { verdict: options.effort ?? 'maximal', criteria: [], reasons: [] },
+    effort: { verdict: options.effort ?? 'maximal', combination: '', criteria: [], reasons: [] },
     warnings: [],
     provenance: { software: 'Twofold', softwareVersion: '0.1.0', settings: DEFAULT_SETTINGS },
   };

@@ -42,7 +42,7 @@ describe('matchedWorkloads', () => {
     if (!m.available) throw new Error(m.reason);
     const zero = m.rows.find((x) => x.workW === 0)!;
     // the first sample of the ramp (t = 180 s, 0 W) is rest-level VO2 500, not a recovery value
-    expect(zero.values.vo2MlMin.day1).toBe(500);
+    expect(zero.values.vo2MlMin.day1).toBeCloseTo(500, 6);
   });
 
   it('treadmill and missing load: not available, with the reason', () => {
@@ -50,5 +50,37 @@ describe('matchedWorkloads', () => {
     expect(tm).toEqual({ available: false, reason: 'Not available: day 2 on a treadmill, which has no workload in watts.' });
     const noLoad = matchedWorkloads(day1, buildAnalysis({ noWork: true }), DEFAULT_SETTINGS);
     expect(noLoad.available).toBe(false);
+  });
+
+  it('reads each workload from a ±10 W local fit: one disturbed sample cannot swing the value', () => {
+    // Day 1 ramp, 15 W/min sampled every 5 s (1.25 W apart): 17 samples lie within 30 ± 10 W.
+    // A +400 mL/min disturbance on the sample at exactly 30 W (t = 300 s) moved the one-moment
+    // reading to 1200 (+50 %); a least-squares line through the 17 samples moves by the
+    // disturbance's leverage at the centre, 400/17 = 23.5 mL/min (+2.9 %).
+    const noisy = buildAnalysis();
+    const i = noisy.series.timeS.indexOf(300);
+    const vo2 = [...noisy.series.vo2MlMin];
+    vo2[i] += 400;
+    const disturbed = { ...noisy, series: { ...noisy.series, vo2MlMin: vo2 } };
+    const r = matchedWorkloads(disturbed, day2, DEFAULT_SETTINGS);
+    if (!r.available) throw new Error(r.reason);
+    expect(r.windowW).toBe(10);
+    const at30 = r.rows.find((x) => x.kind === 'step' && x.workW === 30)!;
+    expect(at30.reading).toEqual({ day1: 'local-fit', day2: 'local-fit' });
+    expect(at30.values.vo2MlMin.day1).toBeCloseTo(800 + 400 / 17, 6);
+  });
+
+  it('a held step is read as the mean of the window, and says so', () => {
+    // A step protocol: 25 W held for 3 min, then 50 W, 75 W … (VO2 = 500 + 10·W when settled);
+    // around 50 W (±10 W) the load is constant, so no line can be fitted: the mean is used.
+    const base = buildAnalysis();
+    const work = base.series.timeS.map((t) => (t >= 180 && t <= 900 ? 25 * (1 + Math.floor((t - 180) / 180)) : 0));
+    const stepSeries = { ...base.series, workW: work, vo2MlMin: work.map((w) => 500 + 10 * w) };
+    const stepped = { ...base, series: stepSeries };
+    const r = matchedWorkloads(stepped, stepped, DEFAULT_SETTINGS);
+    if (!r.available) throw new Error(r.reason);
+    const at50 = r.rows.find((x) => x.kind === 'step' && x.workW === 50)!;
+    expect(at50.reading.day1).toBe('window-mean');
+    expect(at50.values.vo2MlMin.day1).toBeCloseTo(1000, 9);
   });
 });

@@ -39,4 +39,11 @@ describe('planColumns', () => {
     const r = plan(['t', 'VO2', 'VE'], [['1', '300', '9']]);
     expect(r.ok ? null : [r.error.code, r.error.line, r.error.column]).toEqual(['missing-column', 3, null]);
   });
+
+  test("the trade's abbreviations stay in the synonym table: primed flows, BF, VTex, upper-case end-tidal names", () => {
+    // The sample layouts no longer write these headers (they use plain words); real exports do.
+    const r = plan(['t (s)', "V'O2 (ml/min)", "V'CO2 (ml/min)", "V'E (l/min)", 'HR', 'Load', 'PETO2', 'PETCO2', 'BF', 'VTex (l)'], [['1', '300', '250', '9', '70', '0', '100', '40', '15', '0.6']]);
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.columns.map((c) => c.variable)).toEqual(['timeS', 'vo2MlMin', 'vco2MlMin', 'veLMin', 'hrBpm', 'workW', 'peto2Mmhg', 'petco2Mmhg', 'rrPerMin', 'vtL']);
+  });
 });

@@ -1,4 +1,6 @@
 // Reference: our own column-map format (docs/formats.md); JSON positions per ECMA-404.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { mappingFromImport, parseMapping, serializeMapping } from '../../../core/import/mapping';
 import { readBreathText } from '../../../core/import/read-table';
@@ -60,5 +62,20 @@ describe('column map', () => {
     expect(wrongVersion.ok ? null : wrongVersion.error.code).toBe('mapping-invalid');
     const wrongVariable = parseMapping(JSON.stringify({ format: 'twofold-column-map', version: 1, columns: [{ header: 'x', variable: 'oxygen' }] }), 'm.json');
     expect(wrongVariable.ok ? null : wrongVariable.error.message).toContain('columns.0.variable');
+  });
+
+  test('the example map in docs/formats.md parses and reads a file laid out that way', () => {
+    const doc = readFileSync(join(__dirname, '../../../docs/formats.md'), 'utf8');
+    const json = /## Column map[\s\S]*?```json\n([\s\S]*?)```/.exec(doc)![1];
+    const map = parseMapping(json, 'formats.md');
+    if (!map.ok) throw new Error(map.error.message);
+    // mm:ss time, flows in L/min (→ mL/min ×1000), decimal comma, a column to ignore.
+    const text = ['Stopwatch;Oxygen in;Carbon dioxide out;Ventilation;Lab note', '00:03;0,35;0,30;10,5;x', '01:02;1,20;1,10;30,0;y', ''].join('\n');
+    const r = readBreathText(text, { sourceName: 'lab.csv', mapping: map.value });
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.table.breaths.map((b) => [b.timeS, b.vo2MlMin, b.vco2MlMin, b.veLMin])).toEqual([
+      [3, 350, 300, 10.5],
+      [62, 1200, 1100, 30],
+    ]);
   });
 });

@@ -103,3 +103,54 @@ describe('assessEffort', () => {
     expect(plateau.met).toBe(false);
   });
 });
+
+describe('effort options (RER 1.10 or 1.15: Balady et al. 2010, Robergs et al. 2010; HR ≥ 85 % or within 10 bpm: common practice, Howley et al. 1995)', () => {
+  const hrOf = (e: ReturnType<typeof assessEffort>) => e.criteria.find((c) => c.id === 'peak_hr')!;
+
+  it('RER 1.12 is maximal with the 1.10 threshold and not with 1.15', () => {
+    const at = (rerMin: number) => assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 175), settings: { ...DEFAULT_SETTINGS.effort, rerMin } });
+    expect(at(1.1).verdict).toBe('maximal');
+    const strict = at(1.15);
+    expect(strict.criteria[0]).toMatchObject({ met: false, rule: 'peak RER ≥ 1.15', valueText: '1.12' });
+    expect(strict.verdict).not.toBe('maximal');
+  });
+
+  it('HR 168 of predicted 180: 93.3 % meets 85 %; within 10 bpm needs ≥ 170 bpm, so not met', () => {
+    // 168/180 = 93.3 %; 180 − 10 = 170 bpm.
+    const pct = hrOf(assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 168) }));
+    expect(pct).toMatchObject({ met: true, valueText: '93 % (168 bpm)', rule: 'peak HR ≥ 85 % of age-predicted 180 bpm (≥ 153 bpm)' });
+    const within = hrOf(assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 168), settings: { ...DEFAULT_SETTINGS.effort, hrCriterion: 'within-bpm' } }));
+    expect(within).toMatchObject({ met: false, threshold: 170, rule: 'peak HR within 10 bpm of age-predicted 180 bpm (≥ 170 bpm)' });
+    const either = hrOf(assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 168), settings: { ...DEFAULT_SETTINGS.effort, hrCriterion: 'either' } }));
+    expect(either.met).toBe(true);
+  });
+
+  it('switched off for beta-blockade: the HR criterion is not assessed and cannot make a test maximal', () => {
+    // RER 1.12 with HR 175 of 180 is maximal by default; with the criterion off nothing else is met.
+    const e = assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 175), settings: { ...DEFAULT_SETTINGS.effort, hrCriterion: 'off' } });
+    expect(hrOf(e).met).toBeNull();
+    expect(hrOf(e).rule).toContain('switched off');
+    expect(e.verdict).toBe('indeterminate');
+  });
+
+  it('the RER-alone rule decides by RER; the combination is stated with its source', () => {
+    const e = assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 140), settings: { ...DEFAULT_SETTINGS.effort, rule: 'rer-alone' } });
+    expect(e.verdict).toBe('maximal');
+    expect(e.combination).toContain('Balady');
+    expect(assessEffort({ ...base, breaths: ramp(25, 0), peak: peak(1.12, 140) }).combination).toContain('common practice');
+  });
+
+  it('the plateau rule reads "below", and the ramp slope-ratio part is printed', () => {
+    // 70 kg, flat final 80 s: rise 0 mL/kg/min, slope ratio 0.
+    const e = assessEffort({ ...base, weightKg: 70, breaths: ramp(25, 80), peak: peak(1.12, 140) });
+    const plateau = e.criteria.find((c) => c.id === 'vo2_plateau')!;
+    expect(plateau.rule).toBe("rise below 2.1 mL/kg/min over the final minute, and the final minute's slope below 0.50 × the slope over the earlier ramp");
+    expect(plateau.detail).toBe('slope ratio 0.00');
+    expect(plateau.valueText).toBe('0.0 mL/kg/min');
+  });
+
+  it('RPE is printed as the whole number it is, not "18.00"', () => {
+    const e = assessEffort({ ...base, peakRpe: 18, breaths: ramp(25, 0), peak: peak(1.12, 140) });
+    expect(e.criteria.find((c) => c.id === 'peak_rpe')).toMatchObject({ valueText: '18', rule: 'rating ≥ 17 on the Borg 6–20 scale', met: true });
+  });
+});

@@ -27,3 +27,14 @@ describe('format', () => {
     expect(text).toBe('Day 2 VT1 set: 6:40, 1480 mL/min → 6:10, 1395 mL/min (given as a time)');
   });
 });
+
+describe('signedMinSec (durations as m:ss)', () => {
+  it('writes a signed change in minutes and seconds: −287 s → −4:47, +36 s → +0:36', async () => {
+    const { signedMinSec, timeCells } = await import('../../../core/report/time-text');
+    expect(signedMinSec(-287)).toBe('−4:47');
+    expect(signedMinSec(36)).toBe('+0:36');
+    expect(signedMinSec(0.4)).toBe('0:00');
+    expect(timeCells('s', 761, 725, -36)).toEqual({ unit: 'm:ss', day1: '12:41', day2: '12:05', delta: '−0:36' });
+    expect(timeCells('W', 1, 2, 1)).toBeNull();
+  });
+});

@@ -75,9 +75,10 @@ describe('quoted-utf16', () => {
     expect(text).toBe(quotedUtf16Text(table));
     const lines = text.split('\r\n');
     expect(text.replace(/\r\n/g, '')).not.toContain('\n');
-    const header = lines.findIndex((l) => l.startsWith('"t (s)"'));
-    expect(lines[header]).toContain(`"V'O2 (ml/min)"`);
-    expect(lines[header]).toContain('"BF"');
+    expect(lines[0]).toBe('"Exercise session export"');
+    const header = lines.findIndex((l) => l.startsWith('"Elapsed [s]"'));
+    expect(lines[header]).toContain('"O2 uptake [mL/min]"');
+    expect(lines[header]).toContain('"Respiratory rate [/min]"');
     const rows = lines.slice(header + 1, -1).map((l) => l.slice(1, -1).split('","'));
     expect(rows).toHaveLength(b.length);
     rows.forEach((r, i) => expect(Number(r[1])).toBe(b[i].vo2MlMin));
