@@ -39,7 +39,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       `summary      ${r.outcome.comparison.summary.split('. ').slice(0, 2).join('. ')}.`,
       `took         ${Date.now() - started} ms`,
       '',
-      `check it:    twofold verify ${r.outPath}`,
+      `check it:    twofold verify ${r.outPath} --trust ${r.certificatePath}`,
       '',
     ].join('\n'),
   );

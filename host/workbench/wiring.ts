@@ -5,7 +5,10 @@
  *
  * Certificates: the demonstration certificate is made fresh for each run (host/
  * demo-certificate.ts) and its PEM written to `<dataDir>/certificates/demo-certificate.pem`
- * so a report can be checked against it. A lab certificate is a PKCS#12 file
+ * so a report can be checked against it (`twofold verify --trust` that file). Verifying in the
+ * workbench trusts the certificates in `<dataDir>/trust/*.pem` (the lab's CA or its own
+ * certificates, placed there by the lab) and this session's demonstration certificate, and
+ * nothing else. A lab certificate is a PKCS#12 file
  * `<dataDir>/certificates/<id>.p12` with its passphrase in `<id>.passphrase` beside it.
  */
 import { randomBytes } from 'node:crypto';
@@ -19,19 +22,22 @@ import { runReportJob, type Certificate } from '../report-job';
 import { demoCertificate, type DemoCertificate } from '../demo-certificate';
 import { DEMO_FOLDER, DEMO_PAIR } from '../demo-job';
 import { verifyReportBytes } from './verify-port';
+import { parseTrustFile, type TrustAnchor } from '../../core/report/trust';
 
 const DEMO_ID = 'demonstration';
 
 export interface WiringOptions {
   readonly dataDir: string;
   readonly now?: () => Date;
+  /** Time limit of one report verification, ms (verify-worker.ts). */
+  readonly verifyLimitMs?: number;
 }
 
 function readPayload(folder: string, name: string): FilePayload {
   return { name, base64: readFileSync(join(folder, name)).toString('base64') };
 }
 
-export function createReportPort(dataDir: string, now: () => Date): ReportPort {
+export function createReportPort(dataDir: string, now: () => Date, verifyLimitMs?: number): ReportPort {
   const certDir = join(dataDir, 'certificates');
   let demo: Promise<DemoCertificate> | null = null;
   const demoCert = (): Promise<DemoCertificate> => {
@@ -74,7 +80,18 @@ export function createReportPort(dataDir: string, now: () => Date): ReportPort {
       if (!job.ok) return job;
       return { ok: true, bytes: job.value.bytes, demonstration: cert.kind === 'demonstration' };
     },
-    verify: (bytes, fileName) => verifyReportBytes(bytes, fileName),
+    async verify(bytes, fileName) {
+      const trust: TrustAnchor[] = [];
+      const trustDir = join(dataDir, 'trust');
+      if (existsSync(trustDir)) {
+        for (const name of readdirSync(trustDir).filter((n) => n.endsWith('.pem')).sort()) {
+          const parsed = parseTrustFile(readFileSync(join(trustDir, name), 'latin1'), join(trustDir, name));
+          if (parsed.ok) trust.push(...parsed.value);
+        }
+      }
+      if (demo) trust.push({ pem: (await demo).certificatePem, source: "this session's demonstration certificate (not clinical)" });
+      return verifyReportBytes(bytes, fileName, trust, verifyLimitMs);
+    },
     async preview(input) {
       const loaded = loadCase(input.folder);
       if (!loaded.ok) return loaded;
@@ -102,7 +119,7 @@ export function createWiredService(options: WiringOptions): HostService {
       day1: readPayload(DEMO_FOLDER, DEMO_PAIR.day1),
       day2: readPayload(DEMO_FOLDER, DEMO_PAIR.day2),
     }),
-    report: createReportPort(options.dataDir, now),
+    report: createReportPort(options.dataDir, now, options.verifyLimitMs),
   });
 }
 

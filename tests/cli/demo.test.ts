@@ -23,8 +23,12 @@ describe('twofold demo', () => {
     const text = spawnSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).stdout;
     expect(text).toContain('not a clinical signature');
     expect(text).toContain('Used: set by the reviewer');
+    // The demonstration certificate is trusted only when named.
     const v = io();
-    expect(await main(['verify', pdf], v.io)).toBe(0);
-    expect(v.out()).toContain('numbers reproduce');
+    expect(await main(['verify', pdf, '--trust', join(dir, 'demo-certificate.pem')], v.io)).toBe(0);
+    expect(v.out()).toContain('numbers and pages reproduce');
+    const untrusted = io();
+    expect(await main(['verify', pdf], untrusted.io)).toBe(3);
+    expect(untrusted.out()).toContain('No trust list was given');
   });
 });

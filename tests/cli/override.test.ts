@@ -87,8 +87,9 @@ describe('twofold override', () => {
     expect(text).toContain('The V-slope bend reads 30 s later');
     expect(caseJson(folder).log).toEqual(c.log);
     const v = io();
-    expect(await main(['verify', out], v.io), v.out() + v.err()).toBe(0);
-    expect(v.out()).toContain('numbers reproduce');
+    expect(await main(['verify', out, '--trust', cert.certPem, '--case', folder], v.io), v.out() + v.err()).toBe(0);
+    expect(v.out()).toContain('numbers and pages reproduce');
+    expect(v.out()).toContain('its reviewer log (1 entries) continues the 1 entries this report records');
   });
 
   it('a VO2 places the threshold where VO2 first reaches it; withdrawing brings back the automatic estimate', async () => {

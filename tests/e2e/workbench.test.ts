@@ -131,8 +131,8 @@ describe('browser mode, demo pair', () => {
     const path = (await page.locator('[data-testid="export-path"]').textContent())!;
     expect(path.startsWith(join(bench.dataDir, 'cases'))).toBe(true);
     // Exit 0 is required here; execFileSync throws on any other exit code.
-    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path], { encoding: 'utf8', timeout: 120_000 });
-    expect(out).toContain('The report is intact and its numbers reproduce.');
+    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path, '--trust', join(bench.dataDir, 'certificates', 'demo-certificate.pem')], { encoding: 'utf8', timeout: 120_000 });
+    expect(out).toContain('The report is intact, signed by a trusted certificate, and its numbers and pages reproduce.');
     // poppler's own check of the CMS signature over the byte range.
     const sig = execFileSync('pdfsig', [path], { encoding: 'utf8' });
     expect(sig).toContain('Signature Validation: Signature is Valid.');
