@@ -9,16 +9,16 @@ import { z } from 'zod';
 import { CASE_FORMAT, CASE_VERSION } from './case-file';
 
 const num = z.number().finite();
-const nullableNum = num.nullable();
 const sha = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lowercase hex');
 const isoTime = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/, 'an ISO 8601 date-time with a zone');
 
+/** The same ranges the command line's clinical flags accept (cli/commands/report.ts). */
 const clinicalSchema = z.object({
-  peakRpe: nullableNum,
-  lactateMmolL: nullableNum,
-  fev1L: nullableNum,
-  mvvLMin: nullableNum,
-  restingHrBpm: nullableNum,
+  peakRpe: num.min(6).max(20).nullable(),
+  lactateMmolL: num.min(0).max(40).nullable(),
+  fev1L: num.min(0.2).max(9).nullable(),
+  mvvLMin: num.min(5).max(400).nullable(),
+  restingHrBpm: num.min(20).max(200).nullable(),
 });
 
 /** A column map is checked by the importer's own parser, so its format has one owner (core/import/mapping.ts). */
