@@ -3,11 +3,11 @@
  * (host/verify-report.ts: signature over the whole file, the signer's chain to a trusted
  * certificate, embedded files and their SHA-256, case file and reviewer-log chain, numbers
  * recomputed and compared, pages rebuilt and compared), run off the request thread with a
- * time limit (verify-worker.ts), as the Sign-off screen lists them.
+ * time limit (off-thread.ts), as the Sign-off screen lists them.
  */
 import type { TrustAnchor } from '../../core/report/trust';
 import type { VerificationOutcome } from './service';
-import { verifyOffThread } from './verify-worker';
+import { runOffThread } from './off-thread';
 
 /** Check n, named by the step's own heading when it has one ("Embedded files: …"). */
 function checkName(what: string, index: number): string {
@@ -16,7 +16,8 @@ function checkName(what: string, index: number): string {
 }
 
 export async function verifyReportBytes(bytes: Uint8Array, fileName: string, trust: readonly TrustAnchor[], limitMs?: number): Promise<VerificationOutcome> {
-  const outcome = await verifyOffThread(bytes, fileName, trust, limitMs);
+  const run = await runOffThread('verify', { bytes, fileName, trust }, limitMs);
+  const outcome = run.done ? run.value : { passed: false, untrustedOnly: false, steps: [{ ok: false, what: `Verification ${run.why}; the report was not verified.` }] };
   const failed = outcome.steps.find((s) => !s.ok);
   return {
     valid: outcome.passed,

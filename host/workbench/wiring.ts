@@ -12,16 +12,15 @@
  * `<dataDir>/certificates/<id>.p12` with its passphrase in `<id>.passphrase` beside it.
  */
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { FilePayload, HostService, SignerInfo } from './api';
 import { createWorkbenchService, type ReportPort } from './service';
-import { loadCase } from '../case-folder';
-import { runReportJob, type Certificate } from '../report-job';
+import type { Certificate } from '../report-job';
 import { demoCertificate, type DemoCertificate } from '../demo-certificate';
 import { DEMO_FOLDER, DEMO_PAIR } from '../demo-job';
 import { verifyReportBytes } from './verify-port';
+import { runOffThread } from './off-thread';
 import { parseTrustFile, type TrustAnchor } from '../../core/report/trust';
 
 const DEMO_ID = 'demonstration';
@@ -29,7 +28,7 @@ const DEMO_ID = 'demonstration';
 export interface WiringOptions {
   readonly dataDir: string;
   readonly now?: () => Date;
-  /** Time limit of one report verification, ms (verify-worker.ts). */
+  /** Time limit of one report verification or build, ms (off-thread.ts). */
   readonly verifyLimitMs?: number;
 }
 
@@ -37,7 +36,9 @@ function readPayload(folder: string, name: string): FilePayload {
   return { name, base64: readFileSync(join(folder, name)).toString('base64') };
 }
 
-export function createReportPort(dataDir: string, now: () => Date, verifyLimitMs?: number): ReportPort {
+const stopped = (folder: string, why: string) => ({ ok: false as const, error: { code: 'job-stopped', file: folder, line: null, column: null, message: `The report job ${why}.` } });
+
+export function createReportPort(dataDir: string, now: () => Date, limitMs?: number): ReportPort {
   const certDir = join(dataDir, 'certificates');
   let demo: Promise<DemoCertificate> | null = null;
   const demoCert = (): Promise<DemoCertificate> => {
@@ -74,11 +75,10 @@ export function createReportPort(dataDir: string, now: () => Date, verifyLimitMs
     async build(input) {
       const cert = await certificate(input.signerId);
       if (!cert) return { ok: false, error: { code: 'no-certificate', file: join(certDir, `${input.signerId}.p12`), line: null, column: null, message: `There is no certificate '${input.signerId}' with its passphrase file.` } };
-      const loaded = loadCase(input.folder);
-      if (!loaded.ok) return loaded;
-      const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, now: input.now });
-      if (!job.ok) return job;
-      return { ok: true, bytes: job.value.bytes, demonstration: cert.kind === 'demonstration' };
+      const run = await runOffThread('report', { folder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, nowIso: input.now.toISOString() }, limitMs);
+      if (!run.done) return stopped(input.folder, run.why);
+      if (!run.value.ok) return run.value;
+      return { ok: true, bytes: run.value.value.bytes, demonstration: cert.kind === 'demonstration' };
     },
     async verify(bytes, fileName) {
       const trust: TrustAnchor[] = [];
@@ -90,20 +90,13 @@ export function createReportPort(dataDir: string, now: () => Date, verifyLimitMs
         }
       }
       if (demo) trust.push({ pem: (await demo).certificatePem, source: "this session's demonstration certificate (not clinical)" });
-      return verifyReportBytes(bytes, fileName, trust, verifyLimitMs);
+      return verifyReportBytes(bytes, fileName, trust, limitMs);
     },
     async preview(input) {
-      const loaded = loadCase(input.folder);
-      if (!loaded.ok) return loaded;
-      const scratch = mkdtempSync(join(tmpdir(), 'twofold-preview-'));
-      try {
-        const outPath = join(scratch, 'preview-unsigned.pdf');
-        const job = await runReportJob({ caseFile: loaded.value.caseFile, raw: loaded.value.raw, caseFolder: input.folder, outPath, reviewer: input.reviewer, certificate: null, now: input.now });
-        if (!job.ok) return job;
-        return { ok: true, bytes: new Uint8Array(readFileSync(outPath)) };
-      } finally {
-        rmSync(scratch, { recursive: true, force: true });
-      }
+      const run = await runOffThread('report', { folder: input.folder, outPath: null, reviewer: input.reviewer, certificate: null, nowIso: input.now.toISOString() }, limitMs);
+      if (!run.done) return stopped(input.folder, run.why);
+      if (!run.value.ok) return run.value;
+      return { ok: true, bytes: new Uint8Array(run.value.value.pdf ?? []) };
     },
   };
 }
