@@ -10,7 +10,7 @@ import type { CaseFile, RawInput } from '../core/case/case-file';
 import { caseFromText, caseToText } from '../core/case/case-text';
 import type { RawBytes } from '../core/case/recompute';
 import { sha256Hex } from '../core/case/sha256';
-import { fail, locatedError, ok, type Result } from '../core/model/errors';
+import { fail, locatedError, ok, type LocatedError, type Result } from '../core/model/errors';
 import { writeFileAtomic } from './atomic-write';
 
 export const CASE_FILE_NAME = 'twofold-case.json';
@@ -37,6 +37,8 @@ export function storeRaw(folder: string, input: RawInput, bytes: Uint8Array): Re
 
 export function saveCase(folder: string, caseFile: CaseFile, raw: RawBytes): Result<string> {
   mkdirSync(folder, { recursive: true });
+  const cut = logOnDiskNotContinued(caseFilePath(folder), caseFile);
+  if (cut) return fail(cut);
   for (const [input, bytes] of [[caseFile.inputs.day1, raw.day1], [caseFile.inputs.day2, raw.day2]] as const) {
     const stored = storeRaw(folder, input, bytes);
     if (!stored.ok) return stored;
@@ -44,6 +46,24 @@ export function saveCase(folder: string, caseFile: CaseFile, raw: RawBytes): Res
   const path = caseFilePath(folder);
   writeFileAtomic(path, caseToText(caseFile));
   return ok(path);
+}
+
+/**
+ * Compare-and-swap on the reviewer log: the log to save must hold every entry of the log on
+ * disk, in order, with the same hashes. A save that would drop or replace one (a writer that
+ * read the case before another recorded an entry, or a log cut short) is refused.
+ */
+function logOnDiskNotContinued(path: string, caseFile: CaseFile): LocatedError | null {
+  let onDisk: { log?: { hash?: unknown }[] };
+  try {
+    onDisk = JSON.parse(readFileSync(path, 'utf8')) as typeof onDisk;
+  } catch {
+    return null; // No case file yet (or an unreadable one, which loading reports).
+  }
+  const disk = Array.isArray(onDisk?.log) ? onDisk.log : [];
+  const kept = disk.every((e, i) => caseFile.log[i]?.hash === e?.hash);
+  if (kept) return null;
+  return locatedError('case-log-not-continued', path, null, null, `The case file on disk has ${disk.length} reviewer-log entries that this save does not keep (another writer recorded an entry since this case was read, or the log would be cut short); nothing was written. Run the action again.`);
 }
 
 export interface LoadedCase {
