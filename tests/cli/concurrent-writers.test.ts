@@ -42,5 +42,5 @@ describe('concurrent writers on one case', () => {
     const loaded = loadCase(folder);
     expect(loaded.ok).toBe(true);
     if (loaded.ok) expect(new Set(loaded.value.caseFile.log.slice(start).map((e) => e.who)).size).toBe(WRITERS);
-  }, 600_000);
+  }, ROUNDS * 90_000 + 120_000);
 });
