@@ -61,7 +61,9 @@ function logOnDiskNotContinued(path: string, caseFile: CaseFile): LocatedError |
     return null; // No case file yet (or an unreadable one, which loading reports).
   }
   const disk = Array.isArray(onDisk?.log) ? onDisk.log : [];
-  const kept = disk.every((e, i) => caseFile.log[i]?.hash === e?.hash);
+  // An opening entry alone may be made again (new column maps or clinical inputs before any review; core/case/opening.ts).
+  const resealed = disk.length === 1 && (disk[0] as { action?: { kind?: unknown } })?.action?.kind === 'case-opened' && caseFile.log[0]?.action.kind === 'case-opened';
+  const kept = resealed || disk.every((e, i) => caseFile.log[i]?.hash === e?.hash);
   if (kept) return null;
   return locatedError('case-log-not-continued', path, null, null, `The case file on disk has ${disk.length} reviewer-log entries that this save does not keep (another writer recorded an entry since this case was read, or the log would be cut short); nothing was written. Run the action again.`);
 }

@@ -167,8 +167,8 @@ async function record(io: CliIo, folder: string, path: string, action: ReturnTyp
   if (!saved.ok) return badInput(io, saved.error);
 
   const entry = after.value.caseFile.log[after.value.caseFile.log.length - 1];
-  const day = entry.action.kind === 'sign-off' ? null : entry.action.day;
-  const threshold = entry.action.kind === 'sign-off' ? null : entry.action.threshold;
+  const day = entry.action.kind === 'set-threshold' || entry.action.kind === 'withdraw' ? entry.action.day : null;
+  const threshold = entry.action.kind === 'set-threshold' || entry.action.kind === 'withdraw' ? entry.action.threshold : null;
   const lines = [`case     ${saved.value}`, `entry ${entry.seq}  ${describeAction(entry.action)}`, `         by ${entry.who} (${entry.role}) at ${entry.at}; reason: ${entry.reason}`];
   if (day !== null && threshold !== null) {
     const was = dayOf(before.value.outcome, day)[threshold];

@@ -46,10 +46,11 @@ const actionSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('set-threshold'), day, threshold, givenAs: z.enum(['time', 'vo2']), before: point.nullable(), after: point }),
   z.object({ kind: z.literal('withdraw'), withdraws: z.number().int().positive(), day, threshold, before: point.nullable(), after: point.nullable() }),
   z.object({ kind: z.literal('sign-off'), statement: z.string().min(1) }),
+  z.object({ kind: z.literal('case-opened'), migrated: z.boolean() }),
 ]);
 
 const entrySchema = z.object({
-  seq: z.number().int().positive(),
+  seq: z.number().int().nonnegative(),
   at: isoTime,
   who: z.string().min(1),
   role: z.string().min(1),

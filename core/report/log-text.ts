@@ -19,5 +19,7 @@ export function describeAction(action: ReviewAction): string {
       return `Entry ${action.withdraws} withdrawn (day ${action.day} ${action.threshold.toUpperCase()}): ${point(action.before)} → ${point(action.after)}`;
     case 'sign-off':
       return `Sign-off: ${action.statement}`;
+    case 'case-opened':
+      return action.migrated ? 'Case opened (entry added when a case file older than opening entries was read)' : 'Case opened: raw files, column maps, settings and clinical inputs chained';
   }
 }

@@ -39,6 +39,8 @@ function describe(action: EngineView['log'][number]['action']): string {
       return `Withdrew entry ${action.withdraws} (day ${action.day} ${action.threshold.toUpperCase()}); now ${action.after ? `${clock(action.after.timeS)}, ${fmt(action.after.vo2MlMin, 0, 'mL/min')}` : 'none'}`;
     case 'sign-off':
       return `Signed off: ${action.statement}`;
+    case 'case-opened':
+      return action.migrated ? 'Case opened (opening entry added when an older case file was read)' : 'Case opened: raw files, column maps, settings and clinical inputs chained';
   }
 }
 
