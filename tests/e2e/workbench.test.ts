@@ -169,7 +169,8 @@ describe('browser mode, demo pair', () => {
     expect(await page.locator('[data-testid="override-vt1"]').textContent()).toContain('Excess-CO2 rise is clearer');
     expect(numberIn(await cell('[data-testid="row-vt1"]', 4))).toBe(Math.round(overrideVo2));
     await goTo('Sign-off');
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(1);
+    // The opening entry (0) and the override (1).
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(2);
   });
 
   it('made no request outside 127.0.0.1', () => {

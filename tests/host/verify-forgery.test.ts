@@ -100,5 +100,5 @@ describe('verify refuses forged reports', () => {
     const bad = io();
     expect(await main(['verify', path, '--trust', dir], bad.io)).toBe(2);
     expect(bad.err()).toContain(`${dir}:0:0: The trust file is a folder, not a file.`);
-  });
+  }, 300_000);
 });
