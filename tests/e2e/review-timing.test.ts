@@ -35,14 +35,14 @@ function longPair() {
 const pair = longPair();
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 
-/** The one case in the data folder as saved on disk, once its log has `entries` entries (autosave follows the values). */
+/** The one case in the data folder as saved on disk, once its log has `entries` reviewer entries after its opening entry 0 (autosave follows the values). */
 async function savedCase(entries: number): Promise<LoadedCase> {
   const casesDir = join(bench.dataDir, 'cases');
   let seen = -1;
   for (const deadline = Date.now() + 15_000; Date.now() < deadline; await new Promise((resolve) => setTimeout(resolve, 50))) {
     const [caseId] = readdirSync(casesDir);
     const loaded = loadCase(join(casesDir, caseId));
-    if (loaded.ok) seen = loaded.value.caseFile.log.length;
+    if (loaded.ok) seen = loaded.value.caseFile.log.length - 1;
     if (loaded.ok && seen === entries) return loaded.value;
   }
   throw new Error(`The saved case has ${seen} log entries, expected ${entries}.`);
@@ -126,7 +126,7 @@ describe('a 1,500-breath pair', () => {
     // Autosave followed every change: the saved case is the newest, with the fifth time.
     await savedNote();
     const saved = await savedCase(5);
-    const last = saved.caseFile.log[4].action;
+    const last = saved.caseFile.log[5].action;
     expect(last.kind === 'set-threshold' && last.after.timeS).toBe(Math.round(ramp.incrementalStartS + 300 + 60 * 4));
     expectRecordReproduced(saved);
   }, 150_000);
@@ -145,8 +145,8 @@ describe('a 1,500-breath pair', () => {
     await withdrawButton.click();
     await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 4)'));
     await page.locator('nav.screens button', { hasText: 'Sign-off' }).click();
-    // 5 overrides, the undo (6), the redo (7), the withdrawal (8): the log only grows.
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(8);
+    // The opening entry, 5 overrides, the undo (6), the redo (7), the withdrawal (8): the log only grows.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(9);
     await savedCase(8);
   });
 
@@ -171,10 +171,10 @@ describe('a 1,500-breath pair', () => {
       (document.querySelector('button[data-command="review.undo"]') as HTMLButtonElement).click();
     }, t);
     const saved = await savedCase(10);
-    const [set, undo] = saved.caseFile.log.slice(8).map((e) => e.action);
+    const [set, undo] = saved.caseFile.log.slice(9).map((e) => e.action);
     expect(set.kind === 'set-threshold' && set.after.timeS).toBe(t);
     expect(undo.kind === 'withdraw' && undo.withdraws).toBe(9);
-    expect(saved.caseFile.log[9].reason).toBe('undo');
+    expect(saved.caseFile.log[10].reason).toBe('undo');
     // The screen shows the undo's view: entry 4 in force again, the undone override redoable.
     await page.waitForFunction(() => !(document.querySelector('button[data-command="review.redo"]') as HTMLButtonElement | null)?.disabled);
     expect(await page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent()).toContain('reviewer (entry 4)');
@@ -182,7 +182,7 @@ describe('a 1,500-breath pair', () => {
     // Nothing older lands afterwards.
     await new Promise((resolve) => setTimeout(resolve, 500));
     const after = loadCase(saved.path);
-    expect(after.ok && after.value.caseFile.log.length).toBe(10);
+    expect(after.ok && after.value.caseFile.log.length).toBe(11);
     expectRecordReproduced(saved);
     await page.screenshot({ path: join(SCREENSHOTS, '9-quick-change-saved.png'), fullPage: true });
   });
