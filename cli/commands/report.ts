@@ -30,6 +30,7 @@ import type { ClinicalInputs } from '../../core/model/analysis';
 import { formatLocated } from '../../core/model/errors';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { resealOpening, reviewerEntries } from '../../core/case/opening';
+import { outputFileProblem } from '../../host/output-check';
 import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
 import { readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
@@ -184,6 +185,12 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     return EXIT_BAD_INPUT;
   }
   const out = resolve(io.cwd, values.out);
+  // Checked before anything is written, so a report that cannot be written leaves no case folder behind.
+  const outProblem = outputFileProblem(out);
+  if (outProblem) {
+    io.err(`${out}:0:0: ${outProblem}\n`);
+    return EXIT_BAD_INPUT;
+  }
   const folder = caseFolder(values.case, out, io.cwd);
   const paths = positionals.map((p) => resolve(io.cwd, p));
   for (const p of paths) {

@@ -154,7 +154,7 @@ describe('browser mode, demo pair', () => {
     await page.setInputFiles('[data-testid="verify-input"]', { name: 'chosen.pdf', mimeType: 'application/pdf', buffer: bytes });
     await page.waitForFunction(() => document.querySelector('[data-testid="verification"]')?.textContent?.includes('chosen.pdf'), undefined, { timeout: 120_000 });
     expect(await page.locator('[data-testid="verification"]').textContent()).toContain('✔ Valid');
-  });
+  }, 240_000);
 
   it('after a reload, the reopened case still holds the override and its log entry', async () => {
     await page.reload();
