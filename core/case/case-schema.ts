@@ -30,7 +30,8 @@ const columnMapSchema = z.record(z.string(), z.unknown()).transform((value, ctx)
 });
 
 const rawInputSchema = z.object({
-  name: z.string().min(1),
+  // A bare file name: no folders, no control characters (it names an attachment in the report).
+  name: z.string().min(1).max(255).regex(/^[^/\\\u0000-\u001f]+$/, 'a file name without folders or control characters').refine((n) => n !== '.' && n !== '..', 'a file name'),
   sha256: sha,
   sizeBytes: z.number().int().nonnegative(),
   storedAs: z.string().regex(/^raw\/[0-9a-f]{64}(\.[A-Za-z0-9]{1,8})?$/, 'raw/<sha256>.<extension>'),

@@ -20,9 +20,12 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
   try {
     data = JSON.parse(text);
   } catch (error) {
-    const position = /position (\d+)/.exec(error instanceof Error ? error.message : '');
-    const { line, column } = position ? lineColumn(text, Number(position[1])) : { line: null, column: null };
-    return fail(locatedError('case-not-json', file, line, column, 'This case file is not valid JSON; it may be damaged or not a Twofold case file.'));
+    const message = error instanceof Error ? error.message : '';
+    const lc = /line (\d+) column (\d+)/.exec(message);
+    const position = /position (\d+)/.exec(message);
+    // Without a position the text ended early: the place is its end.
+    const { line, column } = lc ? { line: Number(lc[1]), column: Number(lc[2]) } : lineColumn(text, position ? Number(position[1]) : text.length);
+    return fail(locatedError('case-not-json', file, line, column, `This case file is not valid JSON (${message.replace(/\s*\(line \d+ column \d+\)/, '')}); it may be damaged or not a Twofold case file.`));
   }
   const head = data as { format?: unknown; version?: unknown } | null;
   if (!head || typeof head !== 'object' || head.format !== CASE_FORMAT) {

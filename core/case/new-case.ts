@@ -22,10 +22,17 @@ export interface RawFile {
   readonly columnMap?: ColumnMapping | null;
 }
 
+/** A bare file name: the last path segment, control characters replaced, at most 255 characters. */
+export function bareName(name: string): string {
+  const last = name.split(/[\\/]/).filter((p) => p !== '' && p !== '.' && p !== '..').pop() ?? 'breath-file';
+  return last.replace(/[\u0000-\u001f]/g, '_').slice(0, 255);
+}
+
 export function rawInput(file: RawFile): RawInput {
   const sha256 = sha256Hex(file.bytes);
+  const name = bareName(file.name);
   const ext = /\.([A-Za-z0-9]{1,8})$/.exec(file.name)?.[1].toLowerCase();
-  return { name: file.name, sha256, sizeBytes: file.bytes.length, storedAs: `raw/${sha256}${ext ? `.${ext}` : ''}`, columnMap: file.columnMap ?? null };
+  return { name, sha256, sizeBytes: file.bytes.length, storedAs: `raw/${sha256}${ext ? `.${ext}` : ''}`, columnMap: file.columnMap ?? null };
 }
 
 export function newCase(createdAt: string, day1: RawFile, day2: RawFile, settings: Settings, clinical: { day1: ClinicalInputs; day2: ClinicalInputs }): CaseFile {
