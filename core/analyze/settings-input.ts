@@ -48,7 +48,7 @@ export const settingsSchema = z.strictObject({
   thresholds: z.strictObject({
     minPointsPerSegment: intRange(2, 200),
     disagreementPct: range(0.1, 100),
-    bootstrap: z.strictObject({ replicates: intRange(0, 2000), seed: intRange(0, 4_294_967_295) }),
+    bootstrap: z.strictObject({ replicates: intRange(0, 2000), seed: intRange(0, 4_294_967_295), checkEvery: intRange(0, 2000).optional(), stableWithinPct: range(0, 100).optional() }),
   }),
   peaks: z.strictObject({ windowS: range(5, 120) }),
   effort: z.strictObject({
