@@ -92,7 +92,7 @@ describe('twofold override', () => {
     expect(await main(['verify', out, '--trust', cert.certPem, '--case', folder], v.io), v.out() + v.err()).toBe(0);
     expect(v.out()).toContain('numbers and pages reproduce');
     expect(v.out()).toContain('its reviewer log (2 entries) continues the 2 entries this report records');
-  });
+  }, 240_000);
 
   it('a VO2 places the threshold where VO2 first reaches it; withdrawing brings back the automatic estimate', async () => {
     const folder = await freshCase('by-vo2');
