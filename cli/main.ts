@@ -4,6 +4,7 @@
  */
 import { EXIT_BAD_INPUT, EXIT_OTHER, processIo, UsageError, type CliIo } from './io';
 import { SOFTWARE_VERSION } from '../core/version';
+import { readProblem } from '../host/read-problem';
 
 export type Command = (args: string[], io: CliIo) => Promise<number>;
 
@@ -53,7 +54,15 @@ export async function main(argv: string[], io: CliIo = processIo()): Promise<num
       io.err(`twofold ${name}: ${error.message}\n`);
       return EXIT_BAD_INPUT;
     }
-    io.err(`twofold ${name}: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+    // No stack trace reaches a user: a file the system could not open is bad input, named by
+    // its path (exit 2); anything else is one sentence (exit 1), the stack only with TWOFOLD_DEBUG=1.
+    const errno = error as NodeJS.ErrnoException;
+    if (typeof errno?.code === 'string' && typeof errno.path === 'string') {
+      io.err(`${errno.path}:0:0: ${readProblem(error, 'file')}\n`);
+      return EXIT_BAD_INPUT;
+    }
+    const detail = io.env.TWOFOLD_DEBUG === '1' && error instanceof Error ? `\n${error.stack ?? ''}` : '';
+    io.err(`twofold ${name}: an internal fault stopped this command (${error instanceof Error ? error.message : String(error)}); nothing more was written.${detail}\n`);
     return EXIT_OTHER;
   }
 }

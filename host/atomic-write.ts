@@ -9,13 +9,14 @@ import { closeSync, fsyncSync, openSync, renameSync, unlinkSync, writeSync } fro
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join } from 'node:path';
 
-export function writeFileAtomic(path: string, data: Uint8Array | string): void {
+/** `mode`: permission bits of the new file; 0600 (only this user) unless a caller needs more. */
+export function writeFileAtomic(path: string, data: Uint8Array | string, mode = 0o600): void {
   const folder = dirname(path);
   const temporary = join(folder, `.${basename(path)}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`);
   const bytes = typeof data === 'string' ? Buffer.from(data, 'utf8') : data;
   let renamed = false;
   try {
-    const fd = openSync(temporary, 'wx', 0o644);
+    const fd = openSync(temporary, 'wx', mode);
     try {
       let written = 0;
       while (written < bytes.length) written += writeSync(fd, bytes, written, bytes.length - written);

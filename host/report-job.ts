@@ -57,8 +57,6 @@ export async function runReportJob(job: ReportJob): Promise<Result<ReportJobResu
   const recorded = recordCase(job.caseFile, job.raw);
   if (!recorded.ok) return recorded;
   const { caseFile, outcome } = recorded.value;
-  const saved = saveCase(job.caseFolder, caseFile, job.raw);
-  if (!saved.ok) return saved;
   const generatedAt = job.now.toISOString().replace(/\.\d{3}Z$/, 'Z');
   const pdf = await buildReport({
     caseFile,
@@ -84,6 +82,9 @@ export async function runReportJob(job: ReportJob): Promise<Result<ReportJobResu
     if (!signed.ok) return signed;
     bytes = signed.value;
   }
+  // The case is saved only once the report is built and signed, so a failed signature leaves the folder as it was.
+  const saved = saveCase(job.caseFolder, caseFile, job.raw);
+  if (!saved.ok) return saved;
   writeFileAtomic(job.outPath, bytes);
   return ok({ casePath: saved.value, outPath: job.outPath, bytes: bytes.length, outcome, caseFile });
 }

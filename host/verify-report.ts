@@ -3,9 +3,13 @@
  * the signature (valid, covering the whole file), the embedded files (present, their SHA-256
  * matching the case file), the case file (schema and reviewer-log chain), the numbers
  * (recomputed from the embedded raw files, each read with the column map the embedded case
- * file records for it, the settings and reviewer log, equal to the recorded ones), and the
- * printed comparison figures read back in the locale the case records (printed-numbers.ts).
- * The report passes only when every step holds.
+ * file records for it, the settings and reviewer log, equal to the recorded ones), the
+ * printed comparison figures read back in the locale the case records (printed-numbers.ts),
+ * the signer (a certificate chain to the lab's trust list, core/report/trust.ts) and the pages
+ * (rebuilt from the embedded case, raw files and build record, and compared page by page,
+ * report-pages.ts). With a case folder's log at hand it also checks that the log still
+ * continues the head the report recorded (nothing cut off since). The report passes only
+ * when every step holds; `untrustedOnly` says the one failure is the signer's trust.
  */
 import { columnMapOf } from '../core/case/case-file';
 import { caseFromText } from '../core/case/case-text';
@@ -15,10 +19,16 @@ import { sha256Hex } from '../core/case/sha256';
 import type { Comparison } from '../core/compare/compare-tests';
 import { SOFTWARE_VERSION } from '../core/version';
 import { verifySignature } from '../core/report/verify-signature';
+import { BUILD_RECORD_NAME, logShortenedFrom, parseBuildRecord } from '../core/report/build-record';
+import { buildReport } from '../core/report/build-report';
+import { checkTrust, type TrustAnchor } from '../core/report/trust';
+import type { CaseFile } from '../core/case/case-file';
 import { cachedEngine } from './cached-engine';
+import { reportFonts } from './fonts';
 import { embeddedFiles } from './pdf-attachments';
 import { pdfText } from './pdf-text';
 import { checkPrintedNumbers } from './printed-numbers';
+import { comparePages } from './report-pages';
 
 export interface VerifyStep {
   readonly ok: boolean;
@@ -27,20 +37,42 @@ export interface VerifyStep {
 
 export interface VerifyOutcome {
   readonly passed: boolean;
+  /** True when every check but the signer's trust holds. */
+  readonly untrustedOnly: boolean;
   readonly steps: readonly VerifyStep[];
 }
 
-export function verifyReport(pdf: Uint8Array, file: string): VerifyOutcome {
+export interface VerifyOptions {
+  /** Certificates the lab trusts; nothing is trusted without them. */
+  readonly trust: readonly TrustAnchor[];
+  /** The reviewer log of the case folder the report was made from, when it is at hand. */
+  readonly caseLog?: { readonly log: CaseFile['log']; readonly path: string };
+  /** Time for certificate validity when the signature states none. */
+  readonly now?: Date;
+}
+
+export async function verifyReport(pdf: Uint8Array, file: string, options: VerifyOptions): Promise<VerifyOutcome> {
   const steps: VerifyStep[] = [];
+  let trustFailed = false;
+  const finish = (): VerifyOutcome => {
+    const passed = steps.every((s) => s.ok);
+    return { passed, untrustedOnly: !passed && trustFailed && steps.filter((s) => !s.ok).length === 1, steps };
+  };
   const done = (ok: boolean, what: string): VerifyOutcome => {
     steps.push({ ok, what });
-    return { passed: ok && steps.every((s) => s.ok), steps };
+    return finish();
   };
 
   const signature = verifySignature(pdf, file);
   if (!signature.ok) return done(false, `Signature: ${signature.error.message}`);
   const s = signature.value;
-  steps.push({ ok: true, what: `Signature valid (${s.digestAlgorithm}), covering the whole file (bytes 0–${s.byteRange[1]} and ${s.byteRange[2]}–${s.byteRange[2] + s.byteRange[3]} of ${pdf.length}); signer "${s.signer}"${s.selfSigned ? ', a self-signed certificate (trust in it is not established by this check)' : ''}${s.signingTime ? `, signed ${s.signingTime}` : ''}.` });
+  steps.push({ ok: true, what: `Signature valid (${s.digestAlgorithm}), covering the whole file (bytes 0–${s.byteRange[1]} and ${s.byteRange[2]}–${s.byteRange[2] + s.byteRange[3]} of ${pdf.length}); signer "${s.signer}"${s.selfSigned ? ', a self-signed certificate' : ''}${s.signingTime ? `, signed ${s.signingTime}` : ''}.` });
+  const trusted = checkTrust(s.certificatePem, s.otherCertificatesPem, options.trust, [...(s.signingTime ? [new Date(s.signingTime)] : []), options.now ?? new Date()], file);
+  if (trusted.ok) steps.push({ ok: true, what: `Signer trusted: ${trusted.value.path.map((n) => `"${n}"`).join(' issued by ')} chains to a certificate on the trust list (${trusted.value.anchor}).` });
+  else {
+    trustFailed = true;
+    steps.push({ ok: false, what: `Signer: ${trusted.error.message}` });
+  }
 
   const files = embeddedFiles(pdf, file);
   if (!files.ok) return done(false, `Embedded files: ${files.error.message}`);
@@ -82,8 +114,35 @@ export function verifyReport(pdf: Uint8Array, file: string): VerifyOutcome {
   // The printed comparison figures, read back in the locale the case records.
   const locale = caseFile.reportLocale ?? 'en';
   const text = pdfText(pdf);
-  if (text === null) return done(true, `Printed figures: not read back (pdftotext from poppler-utils is not installed); the report states its numbers in ${locale}.`);
-  const printed = checkPrintedNumbers(text, outcome.value.comparison, caseFile.reportLocale);
-  if (!printed.ok) return done(false, `Printed figures: read in ${locale}, ${printed.problems.length} of ${printed.checked} comparison figures do not match (${printed.problems.slice(0, 3).join('; ')}).`);
-  return done(true, `Printed figures: all ${printed.checked} day 1 and day 2 figures of the comparison table read back in ${locale} equal the recomputed values.`);
+  if (text === null) steps.push({ ok: true, what: `Printed figures: not read back (pdftotext from poppler-utils is not installed); the report states its numbers in ${locale}.` });
+  else {
+    const printed = checkPrintedNumbers(text, outcome.value.comparison, caseFile.reportLocale);
+    if (!printed.ok) return done(false, `Printed figures: read in ${locale}, ${printed.problems.length} of ${printed.checked} comparison figures do not match (${printed.problems.slice(0, 3).join('; ')}).`);
+    steps.push({ ok: true, what: `Printed figures: all ${printed.checked} day 1 and day 2 figures of the comparison table read back in ${locale} equal the recomputed values.` });
+  }
+  const recordEntry = files.value.find((f) => f.name === BUILD_RECORD_NAME);
+  if (!recordEntry) return done(false, `Pages: the report carries no build record (${BUILD_RECORD_NAME}), so its pages cannot be rebuilt and compared; it was made by a Twofold older than this check.`);
+  const record = parseBuildRecord(new TextDecoder().decode(recordEntry.bytes), `${BUILD_RECORD_NAME} (embedded)`);
+  if (!record.ok) return done(false, `Pages: ${record.error.message}`);
+  const head = record.value.logHead;
+  const headProblem = logShortenedFrom(caseFile, head) ?? (caseFile.log.length !== head.entries ? `the build record names a reviewer log of ${head.entries} entries, the embedded case holds ${caseFile.log.length}` : null);
+  if (headProblem) return done(false, `Reviewer log: ${headProblem}`);
+  let rebuilt: Uint8Array;
+  try {
+    rebuilt = await buildReport({ caseFile, caseText: new TextDecoder().decode(caseEntry.bytes), outcome: outcome.value, raw: { day1: raw[0], day2: raw[1] }, fonts: reportFonts(), generatedAt: record.value.generatedAt, reviewer: record.value.reviewer, signature: record.value.signature });
+  } catch (error) {
+    return done(false, `Pages: the report could not be rebuilt from its embedded case (${error instanceof Error ? error.message : String(error)}).`);
+  }
+  const pages = comparePages(pdf, rebuilt);
+  if (!pages.same) {
+    const version = record.value.softwareVersion !== SOFTWARE_VERSION ? ` The report was made by version ${record.value.softwareVersion}; this is ${SOFTWARE_VERSION}.` : '';
+    return done(false, `Pages: ${pages.what}${version}`);
+  }
+  steps.push({ ok: true, what: `Pages: all ${pages.pages} pages are exactly the pages rebuilt from the embedded case, raw files and build record.` });
+  if (options.caseLog) {
+    const cut = logShortenedFrom({ log: options.caseLog.log }, head);
+    if (cut) return done(false, `Case folder ${options.caseLog.path}: ${cut}`);
+    steps.push({ ok: true, what: `Case folder ${options.caseLog.path}: its reviewer log (${options.caseLog.log.length} entries) continues the ${head.entries} entries this report records.` });
+  }
+  return finish();
 }

@@ -9,6 +9,7 @@ import { resolve } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { summaryJson } from '../../core/analyze/summary-json';
 import { readBreathFile } from '../../core/import/read-table';
+import { implausibleData } from '../../core/import/sanity';
 import type { BreathTable, TestMetadata } from '../../core/model/breath-table';
 import type { ClinicalInputs, TestAnalysis, ThresholdResult } from '../../core/model/analysis';
 import { formatLocated, locatedError, type LocatedError } from '../../core/model/errors';
@@ -124,6 +125,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const imported = await readBreathFile(bytes, { sourceName: file, settings });
   if (!imported.ok) return badInput(io, imported.error);
 
+  const impossible = implausibleData(imported.value.table.breaths, imported.value.flags, file, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null);
+  if (impossible) return badInput(io, impossible);
   const table: BreathTable = { ...imported.value.table, metadata: { ...imported.value.table.metadata, ...overrides } };
   const analysis = analyzeTest(table, settings, clinical);
   const importNotes = [...imported.value.warnings, ...imported.value.rejected].map(formatLocated);

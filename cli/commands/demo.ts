@@ -7,7 +7,8 @@ import { resolve } from 'node:path';
 import { formatLocated } from '../../core/model/errors';
 import { runDemo } from '../../host/demo-job';
 import { parseFlags } from '../args';
-import { EXIT_OK, EXIT_OTHER, type CliIo } from '../io';
+import { EXIT_BAD_INPUT, EXIT_OK, EXIT_OTHER, type CliIo } from '../io';
+import { outputFolderProblem } from '../../host/output-check';
 
 const USAGE = `usage: twofold demo [--out DIR] [--paper a4|letter]
 
@@ -23,6 +24,11 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   }
   const paper = values.paper === 'letter' ? 'letter' : 'a4';
   const dir = resolve(io.cwd, values.out ?? 'demo-out');
+  const outProblem = outputFolderProblem(dir);
+  if (outProblem) {
+    io.err(`${dir}:0:0: ${outProblem}\n`);
+    return EXIT_BAD_INPUT;
+  }
   const started = Date.now();
   const result = await runDemo(dir, new Date(), paper);
   if (!result.ok) {
@@ -39,7 +45,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       `summary      ${r.outcome.comparison.summary.split('. ').slice(0, 2).join('. ')}.`,
       `took         ${Date.now() - started} ms`,
       '',
-      `check it:    twofold verify ${r.outPath}`,
+      `check it:    twofold verify ${r.outPath} --trust ${r.certificatePath}`,
       '',
     ].join('\n'),
   );

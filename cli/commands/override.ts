@@ -25,7 +25,8 @@ import type { CaseOutcome, ThresholdState } from '../../core/case/recompute';
 import { recordOverride, recordWithdrawal, type Reviewer, type ThresholdValue } from '../../core/case/review';
 import type { Comparison } from '../../core/compare/compare-tests';
 import type { ThresholdId } from '../../core/model/analysis';
-import { formatLocated, type LocatedError, type Result } from '../../core/model/errors';
+import { formatLocated, ok, type LocatedError, type Result } from '../../core/model/errors';
+import { withCaseLock } from '../../host/case-lock';
 import { describeAction } from '../../core/report/log-text';
 import { CASE_FILE_NAME, caseFilePath, loadCase, saveCase } from '../../host/case-folder';
 import { recordCase } from '../../host/report-job';
@@ -118,6 +119,13 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     io.err(`${path}:0:0: There is no case here; 'twofold report DAY1 DAY2 --out REPORT.pdf --case ${positionals[0]}' makes one.\n`);
     return EXIT_BAD_INPUT;
   }
+  if (action.kind === 'list' || reviewerFields === null) return record(io, folder, path, action, reviewerFields);
+  // One writer at a time: the case is read, changed and saved under its lock (host/case-lock.ts).
+  const locked = await withCaseLock(folder, async () => ok(await record(io, folder, path, action, reviewerFields)));
+  return locked.ok ? locked.value : badInput(io, locked.error);
+}
+
+async function record(io: CliIo, folder: string, path: string, action: ReturnType<typeof actionOf>, reviewerFields: { who: string; role: string; reason: string } | null): Promise<number> {
   const textBefore = readFileSync(path, 'utf8');
   const loaded = loadCase(folder);
   if (!loaded.ok) return badInput(io, loaded.error);

@@ -32,6 +32,8 @@ import { sha256Hex } from '../../core/case/sha256';
 import type { ClinicalInputs } from '../../core/model/analysis';
 import { formatLocated } from '../../core/model/errors';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
+import { resealOpening, reviewerEntries } from '../../core/case/opening';
+import { outputFileProblem } from '../../host/output-check';
 import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
 import { readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
@@ -193,6 +195,12 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     return EXIT_BAD_INPUT;
   }
   const out = resolve(io.cwd, values.out);
+  // Checked before anything is written, so a report that cannot be written leaves no case folder behind.
+  const outProblem = outputFileProblem(out);
+  if (outProblem) {
+    io.err(`${out}:0:0: ${outProblem}\n`);
+    return EXIT_BAD_INPUT;
+  }
   const folder = caseFolder(values.case, out, io.cwd);
   const paths = positionals.map((p) => resolve(io.cwd, p));
   for (const p of paths) {
@@ -236,9 +244,10 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     const changes = clinicalChanges(caseFile.clinical, given);
     if (changes.length > 0) {
       const listed = changes.map((c) => `  ${describeChange(c)}`).join('\n');
-      if (caseFile.log.length > 0) {
+      const reviewed = reviewerEntries(caseFile.log).length;
+      if (reviewed > 0) {
         io.err(
-          `${caseFilePath(folder)}:0:0: These clinical inputs differ from the ones this case recorded, and its reviewer log (${caseFile.log.length} ${caseFile.log.length === 1 ? 'entry' : 'entries'}) is chained to the recorded inputs, so they cannot be changed here. ` +
+          `${caseFilePath(folder)}:0:0: These clinical inputs differ from the ones this case recorded, and its reviewer log (${reviewed} ${reviewed === 1 ? 'entry' : 'entries'}) is chained to the recorded inputs, so they cannot be changed here. ` +
             `Nothing was written. To use the new values, start another case folder (--case NEW_FOLDER) and record the review there.\n${listed}\n`,
         );
         return EXIT_BAD_INPUT;
@@ -247,7 +256,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
         io.err(`${caseFilePath(folder)}:0:0: These clinical inputs differ from the ones this case recorded; nothing was written. Add --amend-clinical to change them.\n${listed}\n`);
         return EXIT_BAD_INPUT;
       }
-      caseFile = { ...caseFile, clinical: { day1: { ...caseFile.clinical.day1, ...given[1] }, day2: { ...caseFile.clinical.day2, ...given[2] } } };
+      // The opening entry chains the clinical inputs, so it is made again for the new ones.
+      caseFile = resealOpening({ ...caseFile, clinical: { day1: { ...caseFile.clinical.day1, ...given[1] }, day2: { ...caseFile.clinical.day2, ...given[2] } } });
       amended = changes;
     }
   } else {

@@ -10,53 +10,68 @@ import { z } from 'zod';
 import { DEFAULT_SETTINGS, SETTINGS_VERSION, type Settings } from '../model/settings';
 import { fail, locatedError, ok, type Result } from '../model/errors';
 
-const positive = z.number().positive();
-const nullableTime = z.number().nonnegative().nullable();
+/**
+ * Every number has a stated range, so no setting can ask for unbounded work (a billion
+ * bootstrap replicates, a nanowatt workload step) or a meaningless analysis. The ranges are
+ * common practice: wide enough for every published choice we know of, narrow enough to
+ * finish; the limits of work are ours (replicates ≤ 2,000: a 95 % interval settles well
+ * below that, Efron & Tibshirani, An Introduction to the Bootstrap, 1993, ch. 13 (memory)).
+ */
+const range = (min: number, max: number) => z.number().min(min).max(max);
+const intRange = (min: number, max: number) => z.number().int().min(min).max(max);
+/** A phase boundary: within a day of recording, or null. */
+const nullableTime = range(0, 86_400).nullable();
 
-/** The full settings, every field checked; the case file validates its settings with it too. */
+/** The full settings, every field checked and bounded; the case file validates its settings with it too. */
 export const settingsSchema = z.strictObject({
   version: z.literal(SETTINGS_VERSION),
   import: z.strictObject({
-    implausible: z.strictObject({ vo2MaxMlMin: positive, hrMinBpm: positive, hrMaxBpm: positive, rerMin: positive, rerMax: positive }),
-    rerMismatch: positive,
+    implausible: z
+      .strictObject({ vo2MaxMlMin: range(1000, 15_000), hrMinBpm: range(10, 100), hrMaxBpm: range(150, 300), rerMin: range(0.3, 1.0), rerMax: range(1.2, 3.0) })
+      .refine((v) => v.hrMinBpm < v.hrMaxBpm, { message: 'hrMinBpm must be below hrMaxBpm', path: ['hrMinBpm'] }),
+    rerMismatch: range(0.001, 1),
   }),
   clean: z.strictObject({
     outliers: z.discriminatedUnion('kind', [
       z.strictObject({ kind: z.literal('none') }),
-      z.strictObject({ kind: z.literal('local-sd'), windowBreaths: z.number().int().min(4), limitSd: positive }),
+      z.strictObject({ kind: z.literal('local-sd'), windowBreaths: intRange(4, 101), limitSd: range(1, 20) }),
     ]),
     averaging: z.discriminatedUnion('kind', [
-      z.strictObject({ kind: z.literal('rolling-time'), windowS: positive }),
-      z.strictObject({ kind: z.literal('time-bins'), binS: positive }),
-      z.strictObject({ kind: z.literal('rolling-breaths'), breaths: z.number().int().min(1) }),
+      z.strictObject({ kind: z.literal('rolling-time'), windowS: range(1, 120) }),
+      z.strictObject({ kind: z.literal('time-bins'), binS: range(1, 120) }),
+      z.strictObject({ kind: z.literal('rolling-breaths'), breaths: intRange(1, 60) }),
     ]),
-    phases: z.strictObject({ incrementalStartS: nullableTime, incrementalEndS: nullableTime }),
+    phases: z
+      .strictObject({ incrementalStartS: nullableTime, incrementalEndS: nullableTime })
+      .refine((p) => p.incrementalStartS === null || p.incrementalEndS === null || p.incrementalStartS < p.incrementalEndS, { message: 'incrementalStartS must be before incrementalEndS', path: ['incrementalStartS'] }),
   }),
   thresholds: z.strictObject({
-    minPointsPerSegment: z.number().int().min(2),
-    disagreementPct: positive,
-    bootstrap: z.strictObject({ replicates: z.number().int().min(0), seed: z.number().int(), checkEvery: z.number().int().min(0).optional(), stableWithinPct: z.number().nonnegative().optional() }),
+    minPointsPerSegment: intRange(2, 200),
+    disagreementPct: range(0.1, 100),
+    bootstrap: z.strictObject({ replicates: intRange(0, 2000), seed: intRange(0, 4_294_967_295), checkEvery: intRange(0, 2000).optional(), stableWithinPct: range(0, 100).optional() }),
   }),
-  peaks: z.strictObject({ windowS: positive }),
+  peaks: z.strictObject({ windowS: range(5, 120) }),
   effort: z.strictObject({
-    rerMin: positive,
-    plateauMlMin: positive,
-    plateauMlKgMin: positive,
+    rerMin: range(0.8, 1.5),
+    plateauMlMin: range(10, 1000),
+    plateauMlKgMin: range(0.1, 20),
     hrMaxFormula: z.enum(['tanaka', 'fox']),
-    hrPctMin: positive,
-    rpeMin: z.number().min(6).max(20),
-    lactateMinMmolL: positive,
+    hrPctMin: range(50, 100),
+    rpeMin: range(6, 20),
+    lactateMinMmolL: range(1, 20),
     // Optional: case files from before these options load unchanged (core/model/settings.ts).
     hrCriterion: z.enum(['percent', 'within-bpm', 'either', 'off']).optional(),
-    hrWithinBpm: positive.optional(),
+    hrWithinBpm: range(1, 60).optional(),
     rule: z.enum(['rer-plus-one', 'rer-alone']).optional(),
   }),
-  compare: z.strictObject({
-    intervalHMin: z.number().nonnegative(),
-    intervalHMax: positive,
-    workloadStepW: positive,
-    bandKind: z.enum(['typical', 'mdc95']),
-  }),
+  compare: z
+    .strictObject({
+      intervalHMin: range(0, 336),
+      intervalHMax: range(1, 336),
+      workloadStepW: range(1, 200),
+      bandKind: z.enum(['typical', 'mdc95']),
+    })
+    .refine((c) => c.intervalHMin < c.intervalHMax, { message: 'intervalHMin must be below intervalHMax', path: ['intervalHMin'] }),
   report: z.strictObject({ paper: z.enum(['a4', 'letter']) }),
 });
 
@@ -93,7 +108,33 @@ export function settingsFromJson(text: string, fileName: string): Result<Setting
     const { line, column } = locate(text, message);
     return fail(locatedError('settings-json', fileName, line, column, `The settings file is not valid JSON (${message}).`));
   }
-  return settingsFromPartial(partial, fileName);
+  const settings = settingsFromPartial(partial, fileName);
+  if (settings.ok || settings.error.code !== 'settings-invalid') return settings;
+  const at = lineOfPath(text, settingsPath(partial));
+  return at ? fail({ ...settings.error, line: at.line, column: at.column }) : settings;
+}
+
+/** The dotted path of the first invalid setting, from the same validation. */
+function settingsPath(partial: unknown): readonly (string | number)[] {
+  const parsed = settingsSchema.safeParse(merge(DEFAULT_SETTINGS, partial));
+  return parsed.success ? [] : parsed.error.issues[0].path.map((k) => (typeof k === 'symbol' ? String(k) : k));
+}
+
+/** Line and column of the last key of `path` in the file's text, found key by key; null when absent (a default). */
+function lineOfPath(text: string, path: readonly (string | number)[]): { line: number; column: number } | null {
+  let from = 0;
+  let found = -1;
+  for (const key of path) {
+    if (typeof key !== 'string') continue;
+    const i = text.indexOf(`"${key}"`, from);
+    if (i < 0) break;
+    found = i;
+    from = i + key.length + 2;
+  }
+  if (found < 0) return null;
+  const before = text.slice(0, found);
+  const lines = before.split('\n');
+  return { line: lines.length, column: lines[lines.length - 1].length + 1 };
 }
 
 function locate(text: string, message: string): { line: number | null; column: number | null } {

@@ -56,7 +56,7 @@ export function appendEntry(caseFile: CaseFile, entry: NewEntry, file = 'case fi
   }
   const last = caseFile.log[caseFile.log.length - 1];
   const body: AuditEntryBody = {
-    seq: caseFile.log.length + 1,
+    seq: last ? last.seq + 1 : 1,
     at: entry.at,
     who: entry.who,
     role: entry.role,
@@ -76,11 +76,16 @@ export function appendEntry(caseFile: CaseFile, entry: NewEntry, file = 'case fi
  */
 export function verifyLog(caseFile: CaseFile, file = 'case file', lineOf: (seq: number) => number | null = () => null): Result<true> {
   let expectedPrev = anchorHash(caseFile);
+  if (caseFile.log.length === 0) {
+    return fail(locatedError('log-empty', file, null, null, 'The reviewer log is empty, but every case starts with an opening entry: entries have been removed, so the history cannot be trusted.'));
+  }
+  // Cases opened before opening entries existed start at entry 1 (core/case/opening.ts).
+  const first = caseFile.log[0].action.kind === 'case-opened' ? 0 : 1;
   for (let i = 0; i < caseFile.log.length; i++) {
     const entry = caseFile.log[i];
     const where = (code: string, message: string): LocatedError => locatedError(code, file, lineOf(entry.seq), null, message);
-    if (entry.seq !== i + 1) {
-      return fail(where('log-order', `Reviewer log entry ${i + 1} carries number ${entry.seq}: entries have been removed or reordered, so the history cannot be trusted.`));
+    if (entry.seq !== i + first || (i > 0 && entry.action.kind === 'case-opened')) {
+      return fail(where('log-order', `Reviewer log entry ${i + first} carries number ${entry.seq}${entry.action.kind === 'case-opened' && i > 0 ? ' and is an opening entry' : ''}: entries have been removed or reordered, so the history cannot be trusted.`));
     }
     if (entry.prevHash !== expectedPrev) {
       const what = i === 0 ? 'the raw files, column maps, settings or clinical inputs it was recorded against' : `entry ${i}`;

@@ -64,6 +64,11 @@ export type ReviewAction =
       readonly after: ThresholdPoint | null;
     }
   | {
+      /** The opening entry, number 0, chained to the inputs (opening.ts); `migrated` when added to an older case file on reading it. */
+      readonly kind: 'case-opened';
+      readonly migrated: boolean;
+    }
+  | {
       readonly kind: 'sign-off';
       /** The statement the reviewer signs, e.g. "Reviewed; thresholds accepted as shown." */
       readonly statement: string;
@@ -73,7 +78,7 @@ export type ReviewAction =
 
 /** The fields of a log entry that its hash covers, everything but `hash` itself. */
 export interface AuditEntryBody {
-  /** 1-based position in the log. */
+  /** Position in the log: 0 for the opening entry, reviewer entries from 1. */
   readonly seq: number;
   /** ISO 8601 date-time, given by the shell. */
   readonly at: string;

@@ -11,16 +11,16 @@ import { CASE_FORMAT, CASE_VERSION } from './case-file';
 import { resolveLocale } from '../locale/locales';
 
 const num = z.number().finite();
-const nullableNum = num.nullable();
 const sha = z.string().regex(/^[0-9a-f]{64}$/, 'a SHA-256 in lowercase hex');
 const isoTime = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/, 'an ISO 8601 date-time with a zone');
 
+/** The same ranges the command line's clinical flags accept (cli/commands/report.ts). */
 const clinicalSchema = z.object({
-  peakRpe: nullableNum,
-  lactateMmolL: nullableNum,
-  fev1L: nullableNum,
-  mvvLMin: nullableNum,
-  restingHrBpm: nullableNum,
+  peakRpe: num.min(6).max(20).nullable(),
+  lactateMmolL: num.min(0).max(40).nullable(),
+  fev1L: num.min(0.2).max(9).nullable(),
+  mvvLMin: num.min(5).max(400).nullable(),
+  restingHrBpm: num.min(20).max(200).nullable(),
 });
 
 /** A column map is checked by the importer's own parser, so its format has one owner (core/import/mapping.ts). */
@@ -32,7 +32,8 @@ const columnMapSchema = z.record(z.string(), z.unknown()).transform((value, ctx)
 });
 
 const rawInputSchema = z.object({
-  name: z.string().min(1),
+  // A bare file name: no folders, no control characters (it names an attachment in the report).
+  name: z.string().min(1).max(255).regex(/^[^/\\\u0000-\u001f]+$/, 'a file name without folders or control characters').refine((n) => n !== '.' && n !== '..', 'a file name'),
   sha256: sha,
   sizeBytes: z.number().int().nonnegative(),
   storedAs: z.string().regex(/^raw\/[0-9a-f]{64}(\.[A-Za-z0-9]{1,8})?$/, 'raw/<sha256>.<extension>'),
@@ -50,10 +51,11 @@ const actionSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('sign-off'), statement: z.string().min(1) }),
   z.object({ kind: z.literal('follow-up'), report: followUpReportSchema }),
   z.object({ kind: z.literal('follow-up-correction'), corrects: z.number().int().positive(), report: followUpReportSchema.nullable() }),
+  z.object({ kind: z.literal('case-opened'), migrated: z.boolean() }),
 ]);
 
 const entrySchema = z.object({
-  seq: z.number().int().positive(),
+  seq: z.number().int().nonnegative(),
   at: isoTime,
   who: z.string().min(1),
   role: z.string().min(1),

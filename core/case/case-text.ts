@@ -1,13 +1,15 @@
 /**
  * The case file to and from text. Saving writes indented JSON with one key per line (so a
  * located error can point at a line, and a diff reads well); loading parses, checks the
- * format and version, validates with the zod schema, and checks the reviewer log's hash
- * chain. Anything wrong comes back as a located error, never as an exception.
+ * format and version, validates with the zod schema, migrates a case file older than
+ * opening entries (an empty log gets one, marked migrated; opening.ts), and checks the
+ * reviewer log's hash chain. Anything wrong comes back as a located error, never as an exception.
  */
 import { fail, locatedError, ok, type Result } from '../model/errors';
 import { verifyLog } from './audit-log';
 import { CASE_FORMAT, CASE_VERSION, type CaseFile } from './case-file';
 import { caseSchema } from './case-schema';
+import { openingEntry } from './opening';
 
 export function caseToText(caseFile: CaseFile): string {
   return `${JSON.stringify(caseFile, null, 2)}\n`;
@@ -18,9 +20,12 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
   try {
     data = JSON.parse(text);
   } catch (error) {
-    const position = /position (\d+)/.exec(error instanceof Error ? error.message : '');
-    const { line, column } = position ? lineColumn(text, Number(position[1])) : { line: null, column: null };
-    return fail(locatedError('case-not-json', file, line, column, 'This case file is not valid JSON; it may be damaged or not a Twofold case file.'));
+    const message = error instanceof Error ? error.message : '';
+    const lc = /line (\d+) column (\d+)/.exec(message);
+    const position = /position (\d+)/.exec(message);
+    // Without a position the text ended early: the place is its end.
+    const { line, column } = lc ? { line: Number(lc[1]), column: Number(lc[2]) } : lineColumn(text, position ? Number(position[1]) : text.length);
+    return fail(locatedError('case-not-json', file, line, column, `This case file is not valid JSON (${message.replace(/\s*\(line \d+ column \d+\)/, '')}); it may be damaged or not a Twofold case file.`));
   }
   const head = data as { format?: unknown; version?: unknown } | null;
   if (!head || typeof head !== 'object' || head.format !== CASE_FORMAT) {
@@ -36,7 +41,9 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
     const last = issue.path[issue.path.length - 1];
     return fail(locatedError('case-invalid', file, typeof last === 'string' ? lineOfKey(text, last, 0) : null, null, `The case file's field ${path || '(top level)'} is not valid: ${issue.message}.`));
   }
-  const caseFile = parsed.data as CaseFile;
+  const read = parsed.data as CaseFile;
+  // A case file from before opening entries, with an empty log, is migrated (opening.ts).
+  const caseFile = read.log.length === 0 ? { ...read, log: [openingEntry(read, true)] } : read;
   const chain = verifyLog(caseFile, file, (seq) => lineOfEntry(text, seq));
   if (!chain.ok) return chain;
   return ok(caseFile);

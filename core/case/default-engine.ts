@@ -7,7 +7,8 @@ import { analyzeTest } from '../analyze/analyze-test';
 import { valuesAt, valuesAtContext } from '../analyze/values-at';
 import { compareTests, type Comparison } from '../compare/compare-tests';
 import { readBreathBytes } from '../import/read-table';
-import { ok } from '../model/errors';
+import { implausibleTable } from '../import/sanity';
+import { fail, ok } from '../model/errors';
 import type { Engine } from './engine';
 
 export const defaultEngine: Engine<Comparison> = {
@@ -15,7 +16,11 @@ export const defaultEngine: Engine<Comparison> = {
     const read = readBreathBytes(bytes, { sourceName: name, settings, mapping: columnMap });
     return read.ok ? ok(read.value.table) : read;
   },
-  analyzeTest: (table, settings, clinical) => ok(analyzeTest(table, settings, clinical)),
+  analyzeTest: (table, settings, clinical) => {
+    // Impossible data is refused rather than analysed with confidence (core/import/sanity.ts).
+    const impossible = implausibleTable(table, settings);
+    return impossible ? fail(impossible) : ok(analyzeTest(table, settings, clinical));
+  },
   valuesAt: (a, timeS) => valuesAt(a.series, timeS, valuesAtContext(a.peak, a.predicted, a.metadata.weightKg)),
   compareTests: (day1, day2, settings) => compareTests(day1, day2, settings),
 };

@@ -39,7 +39,8 @@ export function peakValues(
   for (let i = 0; i < use.length; i++) {
     const b = use[i];
     add(sums, b, 1);
-    while (use[lo].timeS <= b.timeS - windowS) add(sums, use[lo++], -1);
+    // lo < i: the window always keeps this breath, even when a time cell is huge (1e18 s) and b.timeS - windowS rounds to b.timeS.
+    while (lo < i && use[lo].timeS <= b.timeS - windowS) add(sums, use[lo++], -1);
     if (!short && b.timeS - firstT < windowS) continue;
     if (short && i < use.length - 1) continue;
     best.vo2 = Math.max(best.vo2, sums.vo2 / sums.n);

@@ -33,6 +33,7 @@ import { settingsInWords } from './settings-text';
 import { dayMeasuresBlock } from './day-measures';
 import { effortBlock } from './effort-table';
 import { draftReason, drawDraftMark, signOffInForce } from './draft-mark';
+import { BUILD_RECORD_NAME, buildRecordText, logHeadOf } from './build-record';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -412,7 +413,7 @@ function provenanceSection(L: Layout, input: ReportInput): void {
     ],
     { size: 6.5 },
   );
-  L.paragraph('The three files are attached to this PDF. `twofold verify` checks the signature, extracts them, checks their SHA-256 and recomputes every number from them.', { size: 7.5, color: MUTED });
+  L.paragraph('These files and a build record are attached to this PDF. `twofold verify` checks the signature, extracts them, checks their SHA-256 and recomputes every number from them.', { size: 7.5, color: MUTED });
 }
 
 function logSection(L: Layout, caseFile: CaseFile): void {
@@ -474,4 +475,6 @@ function attach(doc: InstanceType<typeof PDFDocument>, input: ReportInput, creat
   doc.file(Buffer.from(input.raw.day1), { ...base, name: `day1-${inputs.day1.name}`, type: 'text/plain', description: `Day 1 raw breath file, SHA-256 ${inputs.day1.sha256}` } as Options);
   doc.file(Buffer.from(input.raw.day2), { ...base, name: `day2-${inputs.day2.name}`, type: 'text/plain', description: `Day 2 raw breath file, SHA-256 ${inputs.day2.sha256}` } as Options);
   doc.file(Buffer.from(input.caseText, 'utf8'), { ...base, name: 'twofold-case.json', type: 'application/json', relationship: 'Data', description: 'Twofold case file: settings, clinical inputs, reviewer log, recorded results' } as Options);
+  const record = buildRecordText({ format: 'twofold-build', version: 1, generatedAt: input.generatedAt, reviewer: input.reviewer, signature: input.signature, softwareVersion: SOFTWARE_VERSION, logHead: logHeadOf(input.caseFile) });
+  doc.file(Buffer.from(record, 'utf8'), { ...base, name: BUILD_RECORD_NAME, type: 'application/json', relationship: 'Data', description: 'Twofold build record: build time, reviewer, signature kind, reviewer-log head' } as Options);
 }

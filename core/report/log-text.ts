@@ -26,5 +26,7 @@ export function describeAction(action: ReviewAction, f: Pick<ReportFormat, 'fixe
     case 'follow-up':
     case 'follow-up-correction':
       return describeFollowUpAction(action);
+    case 'case-opened':
+      return action.migrated ? 'Case opened (entry added when a case file older than opening entries was read)' : 'Case opened: raw files, column maps, settings and clinical inputs chained';
   }
 }

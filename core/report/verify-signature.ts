@@ -7,8 +7,8 @@
  *    two signed byte ranges must equal the signed messageDigest attribute (RFC 5652 §11.2);
  * 3. the signature over the DER of the signed attributes (re-tagged as a SET, §5.4) must
  *    verify with the signer certificate's RSA public key (PKCS#1 v1.5, RFC 8017).
- * Trust in the certificate itself (a chain to a known authority) is a separate question that
- * this does not answer; the signer's name and whether it is self-signed are reported.
+ * Trust in the certificate itself (a chain to a certificate the lab trusts) is checked
+ * separately, by trust.ts, from the certificates this returns.
  */
 import forge from 'node-forge';
 import { fail, locatedError, ok, type Result } from '../model/errors';
@@ -19,6 +19,9 @@ export interface SignatureCheck {
   readonly selfSigned: boolean;
   readonly signingTime: string | null;
   readonly digestAlgorithm: string;
+  /** The signer's certificate (PEM) and any other certificates the signature carries (a chain). */
+  readonly certificatePem: string;
+  readonly otherCertificatesPem: readonly string[];
 }
 
 const OID_MESSAGE_DIGEST = forge.pki.oids.messageDigest;
@@ -75,6 +78,8 @@ export function verifySignature(pdf: Uint8Array, file: string): Result<Signature
     selfSigned: cert.isIssuer(cert),
     signingTime: signed.signingTime,
     digestAlgorithm: forge.pki.oids[signed.digestOid] ?? signed.digestOid,
+    certificatePem: forge.pki.certificateToPem(cert),
+    otherCertificatesPem: signed.others.map((c) => forge.pki.certificateToPem(c)),
   });
 }
 
@@ -85,6 +90,7 @@ interface SignerParts {
   readonly signature: string;
   readonly signingTime: string | null;
   readonly certificate: forge.pki.Certificate;
+  readonly others: readonly forge.pki.Certificate[];
 }
 
 type Asn1 = forge.asn1.Asn1;
@@ -127,5 +133,5 @@ function signerParts(der: string): SignerParts {
   if (!certificates) throw new Error('no certificate in the signature');
   const certs = children(certificates).map((c) => forge.pki.certificateFromAsn1(c));
   const certificate = certs.find((c) => c.serialNumber.replace(/^0+/, '') === serialHex.replace(/^0+/, '')) ?? certs[0];
-  return { digestOid, messageDigest, signedAttrsDer: asn1.toDer(asSet).getBytes(), signature, signingTime, certificate };
+  return { digestOid, messageDigest, signedAttrsDer: asn1.toDer(asSet).getBytes(), signature, signingTime, certificate, others: certs.filter((c) => c !== certificate) };
 }

@@ -4,9 +4,15 @@
  * Chromium's app mode when Chromium and a display are present. Chromium gets its own
  * throw-away profile and the flags that stop it calling out (background networking,
  * component updates, sync).
+ *
+ * The address with the token never appears in a process's arguments (which every local user
+ * can read with `ps`): Chromium is started on a launch page, a file in a folder only this
+ * user can open (0700, the file 0600), which forwards to the address; the file is deleted a
+ * minute later or when the window closes, whichever comes first.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startBridge, type RunningBridge } from './http-bridge';
@@ -33,5 +39,25 @@ export function openAppWindow(url: string, env: Readonly<Record<string, string |
   const chromium = findChromium();
   if (!chromium || !(env.DISPLAY || env.WAYLAND_DISPLAY)) return null;
   const profile = mkdtempSync(join(tmpdir(), 'twofold-chromium-'));
-  return spawn(chromium, [`--app=${url}`, `--user-data-dir=${profile}`, ...CHROMIUM_QUIET_FLAGS], { stdio: 'ignore', detached: false });
+  const launch = writeLaunchPage(url);
+  const child = spawn(chromium, appWindowArgs(launch.page, profile), { stdio: 'ignore', detached: false });
+  const timer = setTimeout(launch.remove, 60_000);
+  timer.unref();
+  child.once('exit', launch.remove);
+  return child;
+}
+
+/** Chromium's arguments: the launch page's file address, never the tokened address itself. */
+export function appWindowArgs(launchPage: string, profile: string): string[] {
+  return [`--app=${pathToFileURL(launchPage).href}`, `--user-data-dir=${profile}`, ...CHROMIUM_QUIET_FLAGS];
+}
+
+/** A page that forwards to `url`, in a fresh 0700 folder, itself 0600. */
+export function writeLaunchPage(url: string): { page: string; remove: () => void } {
+  const dir = mkdtempSync(join(tmpdir(), 'twofold-launch-'));
+  chmodSync(dir, 0o700);
+  const page = join(dir, 'open.html');
+  const quoted = JSON.stringify(url).replace(/</g, '\\u003c');
+  writeFileSync(page, `<!doctype html><meta charset="utf-8"><title>Twofold</title><script>location.replace(${quoted});</script>\n`, { mode: 0o600 });
+  return { page, remove: () => rmSync(dir, { recursive: true, force: true }) };
 }

@@ -10,6 +10,7 @@ import type { BridgeError, FilePayload, HostReply, HostService, SignerInfo } fro
 import { createCaseStore } from './case-store';
 import { createMappingStore } from './mapping-store';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
+import { withCaseLock } from '../case-lock';
 
 export interface VerificationOutcome {
   readonly valid: boolean;
@@ -68,7 +69,8 @@ export function createWorkbenchService(deps: ServiceDeps): HostService {
     demoPair: async () => ok(await deps.demoPair()),
     createCase: async (r) => cases.create(r.title, r.day1, r.day2, DEFAULT_SETTINGS, r.clinical),
     openCase: (r) => guard(`case ${r.caseId}`, () => cases.open(r.caseId)),
-    saveCase: (r) => guard(`case ${r.caseId}`, () => cases.save(r.caseId, r.caseJson)),
+    // Under the case's lock (host/case-lock.ts), so a save never interleaves with another writer's.
+    saveCase: (r) => guard(`case ${r.caseId}`, () => withCaseLock(cases.folderOf(r.caseId), () => cases.save(r.caseId, r.caseJson))),
     listCases: async () => ok({ cases: cases.list() }),
     listMappings: async () => ok({ mappings: mappings.list() }),
     saveMapping: async (r) => {

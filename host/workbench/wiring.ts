@@ -5,35 +5,40 @@
  *
  * Certificates: the demonstration certificate is made fresh for each run (host/
  * demo-certificate.ts) and its PEM written to `<dataDir>/certificates/demo-certificate.pem`
- * so a report can be checked against it. A lab certificate is a PKCS#12 file
+ * so a report can be checked against it (`twofold verify --trust` that file). Verifying in the
+ * workbench trusts the certificates in `<dataDir>/trust/*.pem` (the lab's CA or its own
+ * certificates, placed there by the lab) and this session's demonstration certificate, and
+ * nothing else. A lab certificate is a PKCS#12 file
  * `<dataDir>/certificates/<id>.p12` with its passphrase in `<id>.passphrase` beside it.
  */
 import { randomBytes } from 'node:crypto';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { FilePayload, HostService, SignerInfo } from './api';
 import { createWorkbenchService, type ReportPort } from './service';
-import { loadCase } from '../case-folder';
-import { runReportJob, type Certificate } from '../report-job';
+import type { Certificate } from '../report-job';
 import { demoCertificate, type DemoCertificate } from '../demo-certificate';
 import { DEMO_FOLDER, DEMO_PAIR } from '../demo-job';
 import { verifyReportBytes } from './verify-port';
-import type { CaseFile } from '../../core/case/case-file';
-import { resolveLocale } from '../../core/locale/locales';
+import { runOffThread } from './off-thread';
+import { parseTrustFile, type TrustAnchor } from '../../core/report/trust';
 
 const DEMO_ID = 'demonstration';
 
 export interface WiringOptions {
   readonly dataDir: string;
   readonly now?: () => Date;
+  /** Time limit of one report verification or build, ms (off-thread.ts). */
+  readonly verifyLimitMs?: number;
 }
 
 function readPayload(folder: string, name: string): FilePayload {
   return { name, base64: readFileSync(join(folder, name)).toString('base64') };
 }
 
-export function createReportPort(dataDir: string, now: () => Date): ReportPort {
+const stopped = (folder: string, why: string) => ({ ok: false as const, error: { code: 'job-stopped', file: folder, line: null, column: null, message: `The report job ${why}.` } });
+
+export function createReportPort(dataDir: string, now: () => Date, limitMs?: number): ReportPort {
   const certDir = join(dataDir, 'certificates');
   let demo: Promise<DemoCertificate> | null = null;
   const demoCert = (): Promise<DemoCertificate> => {
@@ -70,33 +75,30 @@ export function createReportPort(dataDir: string, now: () => Date): ReportPort {
     async build(input) {
       const cert = await certificate(input.signerId);
       if (!cert) return { ok: false, error: { code: 'no-certificate', file: join(certDir, `${input.signerId}.p12`), line: null, column: null, message: `There is no certificate '${input.signerId}' with its passphrase file.` } };
-      const loaded = loadCase(input.folder);
-      if (!loaded.ok) return loaded;
-      const job = await runReportJob({ caseFile: withLocale(loaded.value.caseFile, input.locale), raw: loaded.value.raw, caseFolder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, now: input.now });
-      if (!job.ok) return job;
-      return { ok: true, bytes: job.value.bytes, demonstration: cert.kind === 'demonstration' };
+      const run = await runOffThread('report', { folder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, nowIso: input.now.toISOString(), locale: input.locale }, limitMs);
+      if (!run.done) return stopped(input.folder, run.why);
+      if (!run.value.ok) return run.value;
+      return { ok: true, bytes: run.value.value.bytes, demonstration: cert.kind === 'demonstration' };
     },
-    verify: (bytes, fileName) => verifyReportBytes(bytes, fileName),
-    async preview(input) {
-      const loaded = loadCase(input.folder);
-      if (!loaded.ok) return loaded;
-      const scratch = mkdtempSync(join(tmpdir(), 'twofold-preview-'));
-      try {
-        const outPath = join(scratch, 'preview-unsigned.pdf');
-        const job = await runReportJob({ caseFile: withLocale(loaded.value.caseFile, input.locale), raw: loaded.value.raw, caseFolder: input.folder, outPath, reviewer: input.reviewer, certificate: null, now: input.now });
-        if (!job.ok) return job;
-        return { ok: true, bytes: new Uint8Array(readFileSync(outPath)) };
-      } finally {
-        rmSync(scratch, { recursive: true, force: true });
+    async verify(bytes, fileName) {
+      const trust: TrustAnchor[] = [];
+      const trustDir = join(dataDir, 'trust');
+      if (existsSync(trustDir)) {
+        for (const name of readdirSync(trustDir).filter((n) => n.endsWith('.pem')).sort()) {
+          const parsed = parseTrustFile(readFileSync(join(trustDir, name), 'latin1'), join(trustDir, name));
+          if (parsed.ok) trust.push(...parsed.value);
+        }
       }
+      if (demo) trust.push({ pem: (await demo).certificatePem, source: "this session's demonstration certificate (not clinical)" });
+      return verifyReportBytes(bytes, fileName, trust, limitMs);
+    },
+    async preview(input) {
+      const run = await runOffThread('report', { folder: input.folder, outPath: null, reviewer: input.reviewer, certificate: null, nowIso: input.now.toISOString(), locale: input.locale }, limitMs);
+      if (!run.done) return stopped(input.folder, run.why);
+      if (!run.value.ok) return run.value;
+      return { ok: true, bytes: new Uint8Array(run.value.value.pdf ?? []) };
     },
   };
-}
-
-/** The case with the report locale the workbench asked for (an unknown tag keeps the case's). */
-function withLocale(caseFile: CaseFile, tag: string | undefined): CaseFile {
-  const locale = tag === undefined ? null : resolveLocale(tag);
-  return locale ? { ...caseFile, reportLocale: locale.tag } : caseFile;
 }
 
 export function createWiredService(options: WiringOptions): HostService {
@@ -110,7 +112,7 @@ export function createWiredService(options: WiringOptions): HostService {
       day1: readPayload(DEMO_FOLDER, DEMO_PAIR.day1),
       day2: readPayload(DEMO_FOLDER, DEMO_PAIR.day2),
     }),
-    report: createReportPort(options.dataDir, now),
+    report: createReportPort(options.dataDir, now, options.verifyLimitMs),
   });
 }
 

@@ -27,8 +27,12 @@ describe('twofold demo', () => {
     expect(text).toContain('Recovery after each test, as reported');
     expect(text.replace(/\s+/g, ' ')).toContain("not a diagnosis. Interpreting them is the clinician's task.");
     expect(text.replace(/\s+/g, ' ')).toContain('after the day 2 test, reported back to usual state by 288 h (12 days), not yet at 168 h (7 days)');
+    // The demonstration certificate is trusted only when named.
     const v = io();
-    expect(await main(['verify', pdf], v.io)).toBe(0);
-    expect(v.out()).toContain('numbers reproduce');
+    expect(await main(['verify', pdf, '--trust', join(dir, 'demo-certificate.pem')], v.io)).toBe(0);
+    expect(v.out()).toContain('numbers and pages reproduce');
+    const untrusted = io();
+    expect(await main(['verify', pdf], untrusted.io)).toBe(3);
+    expect(untrusted.out()).toContain('No trust list was given');
   }, 180_000); // The whole job plus pdfsig, pdftotext and verify: over a minute on a loaded 2-core machine.
 });

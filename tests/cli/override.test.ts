@@ -59,8 +59,10 @@ describe('twofold override', () => {
     expect(t.out()).toContain(`after:  ${timeS.toFixed(1)} s`);
 
     const c = caseJson(folder);
-    expect(c.log).toHaveLength(1);
-    const entry = c.log[0];
+    // Entry 0 opens the case (core/case/opening.ts); the override is entry 1.
+    expect(c.log).toHaveLength(2);
+    expect(c.log[0].action.kind).toBe('case-opened');
+    const entry = c.log[1];
     expect(entry).toMatchObject({ seq: 1, who: 'T. Tester', role: 'exercise physiologist', reason: 'The V-slope bend reads 30 s later' });
     expect(entry.action).toMatchObject({ kind: 'set-threshold', day: 2, threshold: 'vt1', givenAs: 'time' });
     expect(entry.action.before.timeS).toBeCloseTo(autoTimeS, 9);
@@ -87,9 +89,10 @@ describe('twofold override', () => {
     expect(text).toContain('The V-slope bend reads 30 s later');
     expect(caseJson(folder).log).toEqual(c.log);
     const v = io();
-    expect(await main(['verify', out], v.io), v.out() + v.err()).toBe(0);
-    expect(v.out()).toContain('numbers reproduce');
-  });
+    expect(await main(['verify', out, '--trust', cert.certPem, '--case', folder], v.io), v.out() + v.err()).toBe(0);
+    expect(v.out()).toContain('numbers and pages reproduce');
+    expect(v.out()).toContain('its reviewer log (2 entries) continues the 2 entries this report records');
+  }, 240_000);
 
   it('a VO2 places the threshold where VO2 first reaches it; withdrawing brings back the automatic estimate', async () => {
     const folder = await freshCase('by-vo2');
@@ -99,7 +102,7 @@ describe('twofold override', () => {
     expect(await main(['override', folder, '--day', '1', '--threshold', 'VT2', '--vo2-ml-min', String(vo2), '--reason', 'RCP reads lower on VE/VCO2', ...WHO], t.io), t.err()).toBe(0);
     expect(t.out()).toContain(`VO2 ${vo2} mL/min (reviewer, entry 1)`);
     const c = caseJson(folder);
-    expect(c.log[0].action).toMatchObject({ givenAs: 'vo2', day: 1, threshold: 'vt2' });
+    expect(c.log[1].action).toMatchObject({ givenAs: 'vo2', day: 1, threshold: 'vt2' });
     // The reviewer's VO2 is where the threshold sits: read off the series at the mapped time, it is the given VO2.
     expect(c.recorded.numbers['day1.vt2.vo2MlMin']).toBeCloseTo(vo2, 6);
     expect(c.recorded.numbers['day1.vt2Source']).toBe('reviewer#1');
@@ -109,8 +112,8 @@ describe('twofold override', () => {
     expect(w.out()).toContain('Entry 1 withdrawn (day 1 VT2)');
     expect(w.out()).toContain(`after:  ${automatic['day1.vt2.timeS'].toFixed(1)} s`);
     const after = caseJson(folder);
-    expect(after.log.map((e: { action: { kind: string } }) => e.action.kind)).toEqual(['set-threshold', 'withdraw']);
-    expect(after.log[1].prevHash).toBe(after.log[0].hash);
+    expect(after.log.map((e: { action: { kind: string } }) => e.action.kind)).toEqual(['case-opened', 'set-threshold', 'withdraw']);
+    expect(after.log[2].prevHash).toBe(after.log[1].hash);
     expect(after.recorded.numbers['day1.vt2Source']).toBe('automatic');
     expect(after.recorded.numbers['day1.vt2.timeS']).toBe(automatic['day1.vt2.timeS']);
     expect(after.recorded.numbers['day1.vt2.vo2MlMin']).toBe(automatic['day1.vt2.vo2MlMin']);
@@ -127,7 +130,8 @@ describe('twofold override', () => {
     expect(list.out()).toContain('day 1 VT2');
     expect(list.out()).toMatch(/^ {2}1 {2}\S+Z {2}T\. Tester \(exercise physiologist\) {2}Day 1 VT2 set: .* \(given as a VO₂\) {2}reason: RCP reads lower on VE\/VCO2$/m);
     expect(list.out()).toMatch(/^ {2}2 {2}\S+Z {2}T\. Tester \(exercise physiologist\) {2}Entry 1 withdrawn \(day 1 VT2\).* {2}reason: Automatic reading accepted after all$/m);
-    expect(caseJson(folder).log).toHaveLength(2);
+    expect(list.out()).toMatch(/^ {2}0 {2}\S+Z {2}Twofold \(software, on opening the case\) {2}Case opened: /m);
+    expect(caseJson(folder).log).toHaveLength(3);
   });
 
   it('bad input names the flag or the file, exits 2 and writes nothing', async () => {

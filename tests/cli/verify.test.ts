@@ -13,9 +13,11 @@ import { opensslCertificate } from '../core/report/fixture';
 
 let dir: string;
 let signed: string;
+let trust: string;
 
 beforeAll(async () => {
   const cert = opensslCertificate();
+  trust = cert.certPem;
   dir = mkdtempSync(join(tmpdir(), 'twofold-cli-verify-'));
   signed = join(dir, 'signed.pdf');
   const code = await main(['report', join(DEMO_FOLDER, DEMO_PAIR.day1), join(DEMO_FOLDER, DEMO_PAIR.day2), '--out', signed, '--sign', join(cert.dir, 'lab.p12'), '--pass-env', 'P'], io({ P: cert.password }).io);
@@ -25,7 +27,7 @@ beforeAll(async () => {
 describe('twofold verify', () => {
   it('exit 0 for the intact report', async () => {
     const t = io();
-    expect(await main(['verify', signed], t.io)).toBe(0);
+    expect(await main(['verify', signed, '--trust', trust], t.io)).toBe(0);
     expect(t.out()).not.toContain('FAILED');
   });
 
@@ -36,7 +38,7 @@ describe('twofold verify', () => {
     const bad = join(dir, 'bad.pdf');
     writeFileSync(bad, bytes);
     const t = io();
-    expect(await main(['verify', bad], t.io)).toBe(1);
+    expect(await main(['verify', bad, '--trust', trust], t.io)).toBe(1);
     expect(t.out()).toContain('FAILED Signature: The file was changed after it was signed');
     expect(spawnSync('pdfsig', [bad], { encoding: 'utf8' }).stdout).not.toContain('Signature is Valid');
   });
@@ -45,8 +47,8 @@ describe('twofold verify', () => {
     const unsigned = join(dir, 'unsigned.pdf');
     expect(await main(['report', join(DEMO_FOLDER, DEMO_PAIR.day1), join(DEMO_FOLDER, DEMO_PAIR.day2), '--out', unsigned], io().io)).toBe(0);
     const t = io();
-    expect(await main(['verify', unsigned], t.io)).toBe(1);
+    expect(await main(['verify', unsigned, '--trust', trust], t.io)).toBe(1);
     expect(t.out()).toContain('carries no digital signature');
-    expect(await main(['verify', join(dir, 'nothing.pdf')], io().io)).toBe(2);
+    expect(await main(['verify', join(dir, 'nothing.pdf'), '--trust', trust], io().io)).toBe(2);
   });
 });

@@ -39,14 +39,14 @@ const p95 = (values: number[]) => [...values].sort((a, b) => a - b)[Math.ceil(0.
 /** Overrides timed (issue 14: the 95th percentile over at least 30). */
 const N = 30;
 
-/** The one case in the data folder as saved on disk, once its log has `entries` entries (autosave follows the values). */
+/** The one case in the data folder as saved on disk, once its log has `entries` reviewer entries after its opening entry 0 (autosave follows the values). */
 async function savedCase(entries: number): Promise<LoadedCase> {
   const casesDir = join(bench.dataDir, 'cases');
   let seen = -1;
   for (const deadline = Date.now() + 15_000; Date.now() < deadline; await new Promise((resolve) => setTimeout(resolve, 50))) {
     const [caseId] = readdirSync(casesDir);
     const loaded = loadCase(join(casesDir, caseId));
-    if (loaded.ok) seen = loaded.value.caseFile.log.length;
+    if (loaded.ok) seen = loaded.value.caseFile.log.length - 1;
     if (loaded.ok && seen === entries) return loaded.value;
   }
   throw new Error(`The saved case has ${seen} log entries, expected ${entries}.`);
@@ -135,7 +135,8 @@ describe('a 1,500-breath pair', () => {
     // Autosave followed every change: the saved case is the newest, with the last time.
     await savedNote();
     const saved = await savedCase(N);
-    const last = saved.caseFile.log[N - 1].action;
+    // log[0] is the opening entry; reviewer entry k is log[k].
+    const last = saved.caseFile.log[N].action;
     expect(last.kind === 'set-threshold' && last.after.timeS).toBe(Math.round(ramp.incrementalStartS + 300 + 10 * (N - 1)));
     expectRecordReproduced(saved);
   }, 400_000);
@@ -154,8 +155,8 @@ describe('a 1,500-breath pair', () => {
     await withdrawButton.click();
     await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), N - 1);
     await page.locator('nav.screens button', { hasText: 'Sign-off' }).click();
-    // N overrides, the undo (N + 1), the redo (N + 2), the withdrawal (N + 3): the log only grows.
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(N + 3);
+    // The opening entry, N overrides, the undo (N + 1), the redo (N + 2), the withdrawal (N + 3): the log only grows.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(N + 4);
     await savedCase(N + 3);
   });
 
@@ -180,10 +181,10 @@ describe('a 1,500-breath pair', () => {
       (document.querySelector('button[data-command="review.undo"]') as HTMLButtonElement).click();
     }, t);
     const saved = await savedCase(N + 5);
-    const [set, undo] = saved.caseFile.log.slice(N + 3).map((e) => e.action);
+    const [set, undo] = saved.caseFile.log.slice(N + 4).map((e) => e.action);
     expect(set.kind === 'set-threshold' && set.after.timeS).toBe(t);
     expect(undo.kind === 'withdraw' && undo.withdraws).toBe(N + 4);
-    expect(saved.caseFile.log[N + 4].reason).toBe('undo');
+    expect(saved.caseFile.log[N + 5].reason).toBe('undo');
     // The screen shows the undo's view: entry N − 1 in force again, the undone override redoable.
     await page.waitForFunction(() => !(document.querySelector('button[data-command="review.redo"]') as HTMLButtonElement | null)?.disabled);
     expect(await page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent()).toContain(`reviewer (entry ${N - 1})`);
@@ -191,7 +192,7 @@ describe('a 1,500-breath pair', () => {
     // Nothing older lands afterwards.
     await new Promise((resolve) => setTimeout(resolve, 500));
     const after = loadCase(saved.path);
-    expect(after.ok && after.value.caseFile.log.length).toBe(N + 5);
+    expect(after.ok && after.value.caseFile.log.length).toBe(N + 6);
     expectRecordReproduced(saved);
     await page.screenshot({ path: join(SCREENSHOTS, '9-quick-change-saved.png'), fullPage: true });
   });

@@ -131,8 +131,8 @@ describe('browser mode, demo pair', () => {
     const path = (await page.locator('[data-testid="export-path"]').textContent())!;
     expect(path.startsWith(join(bench.dataDir, 'cases'))).toBe(true);
     // Exit 0 is required here; execFileSync throws on any other exit code.
-    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path], { encoding: 'utf8', timeout: 120_000 });
-    expect(out).toContain('The report is intact and its numbers reproduce.');
+    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path, '--trust', join(bench.dataDir, 'certificates', 'demo-certificate.pem')], { encoding: 'utf8', timeout: 120_000 });
+    expect(out).toContain('The report is intact, signed by a trusted certificate, and its numbers and pages reproduce.');
     // poppler's own check of the CMS signature over the byte range.
     const sig = execFileSync('pdfsig', [path], { encoding: 'utf8' });
     expect(sig).toContain('Signature Validation: Signature is Valid.');
@@ -154,7 +154,7 @@ describe('browser mode, demo pair', () => {
     await page.setInputFiles('[data-testid="verify-input"]', { name: 'chosen.pdf', mimeType: 'application/pdf', buffer: bytes });
     await page.waitForFunction(() => document.querySelector('[data-testid="verification"]')?.textContent?.includes('chosen.pdf'), undefined, { timeout: 120_000 });
     expect(await page.locator('[data-testid="verification"]').textContent()).toContain('✔ Valid');
-  });
+  }, 240_000);
 
   it('after a reload, the reopened case still holds the override and its log entry', async () => {
     await page.reload();
@@ -169,7 +169,8 @@ describe('browser mode, demo pair', () => {
     expect(await page.locator('[data-testid="override-vt1"]').textContent()).toContain('Excess-CO2 rise is clearer');
     expect(numberIn(await cell('[data-testid="row-vt1"]', 4))).toBe(Math.round(overrideVo2));
     await goTo('Sign-off');
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(1);
+    // The opening entry (0) and the override (1).
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(2);
   });
 
   it('made no request outside 127.0.0.1', () => {

@@ -3,6 +3,9 @@
  * folder given as argv[2], printing "saved N" (N = log entries) after each completed save.
  */
 import { appendEntry } from '../../core/case/audit-log';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { caseFromText } from '../../core/case/case-text';
 import { saveCase } from '../../host/case-folder';
 import { caseWithLog } from '../core/case/fixtures';
 
@@ -14,6 +17,13 @@ const raw = { day1: new TextEncoder().encode('time_s,vo2\n1,300\n'), day2: new T
 for (let i = 0; i < 200; i++) {
   const r = appendEntry(c, { at: '2026-03-10T10:00:00Z', who: 'R. Reviewer', role: 'exercise physiologist', reason: `padding ${i} ${'x'.repeat(40_000)}`, action: { kind: 'sign-off', statement: 'ok' } });
   if (r.ok) c = r.value;
+}
+// A folder left by an earlier, killed child is continued: a save never drops entries already on disk.
+try {
+  const onDisk = caseFromText(readFileSync(join(folder, 'twofold-case.json'), 'utf8'), 'on disk');
+  if (onDisk.ok && onDisk.value.log.length > c.log.length) c = onDisk.value;
+} catch {
+  // No case there yet.
 }
 for (;;) {
   const r = appendEntry(c, { at: '2026-03-10T11:00:00Z', who: 'R. Reviewer', role: 'exercise physiologist', reason: 'another save', action: { kind: 'sign-off', statement: 'ok' } });

@@ -19,7 +19,7 @@ import { reportFonts } from '../../host/fonts';
 import { readRaw } from '../../host/report-job';
 import { verifyReport } from '../../host/verify-report';
 import { join } from 'node:path';
-import { opensslCertificate } from '../core/report/fixture';
+import { opensslCertificate, trustOf } from '../core/report/fixture';
 
 const cert = opensslCertificate();
 const day1 = readRaw(join(DEMO_FOLDER, DEMO_PAIR.day1));
@@ -55,21 +55,21 @@ describe('verify: follow-up reports', () => {
     expect(numbers['followUp.day2.notYetAtH']).toBe(168);
     expect(numbers['followUp.day1.recovery']).toBe('not-recovered');
     expect(numbers['followUp.day2.reportsInForce[1].afterTestH']).toBe(72);
-    const verdict = verifyReport(pdf, 'report.pdf');
+    const verdict = await verifyReport(pdf, 'report.pdf', { trust: trustOf(cert) });
     expect(verdict.steps.filter((s) => !s.ok).map((s) => s.what)).toEqual([]);
     expect(verdict.passed).toBe(true);
   }, 120_000);
 
   it('fails on a rating edited in the attached case file (the chain breaks)', async () => {
     const { pdf } = await signed(c, (t) => t.replace('"score": 8', '"score": 2'));
-    const verdict = verifyReport(pdf, 'report.pdf');
+    const verdict = await verifyReport(pdf, 'report.pdf', { trust: trustOf(cert) });
     expect(verdict.passed).toBe(false);
     expect(verdict.steps[verdict.steps.length - 1].what).toMatch(/^Case file: .*Reviewer log entry \d+ .* was edited after it was recorded/);
   }, 120_000);
 
   it('fails, naming the figure, on a recorded recovery time that does not follow from the log', async () => {
     const { pdf } = await signed(c, (t) => t.replace('"followUp.day2.recoveredByH": 288', '"followUp.day2.recoveredByH": 48'));
-    const verdict = verifyReport(pdf, 'report.pdf');
+    const verdict = await verifyReport(pdf, 'report.pdf', { trust: trustOf(cert) });
     expect(verdict.passed).toBe(false);
     expect(verdict.steps[verdict.steps.length - 1].what).toContain('followUp.day2.recoveredByH recorded 48, recomputed 288');
   }, 120_000);

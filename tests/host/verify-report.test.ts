@@ -20,7 +20,7 @@ import { DEMO_PAIR } from '../../host/demo-job';
 import { reportFonts } from '../../host/fonts';
 import { verifyReport } from '../../host/verify-report';
 import { layoutKeyOf, workbenchEngine } from '../../renderer/src/engine/core-engine';
-import { opensslCertificate } from '../core/report/fixture';
+import { opensslCertificate, trustOf } from '../core/report/fixture';
 import { day2, heartRateMap, mappedCase, original, originalCase, renamed } from './mapped-case';
 
 const cert = opensslCertificate();
@@ -53,7 +53,7 @@ async function signedReport(caseFile: CaseFile, engine: Engine<Comparison>, reco
 describe('verify: a report whose day-1 file needed a column map', () => {
   it('verifies when the case records the map the workbench read with, and reproduces the original file\'s numbers', async () => {
     const { pdf, recorded } = await signedReport(mappedCase(heartRateMap), await workbenchWay(heartRateMap));
-    const verdict = verifyReport(pdf, 'report.pdf');
+    const verdict = await verifyReport(pdf, 'report.pdf', { trust: trustOf(cert) });
     expect(verdict.steps.filter((s) => !s.ok).map((s) => s.what)).toEqual([]);
     expect(verdict.passed).toBe(true);
     expect(verdict.steps.map((s) => s.what).join('\n')).toContain('Day 1 read with the column map the case records.');
@@ -69,7 +69,7 @@ describe('verify: a report whose day-1 file needed a column map', () => {
   it('fails, naming the heart-rate numbers, when the embedded case does not record the map its numbers were made with', async () => {
     // The state before cases recorded their maps: numbers from the mapped read, a case that names no map.
     const { pdf } = await signedReport(mappedCase(null), await workbenchWay(heartRateMap), mappedCase(heartRateMap));
-    const verdict = verifyReport(pdf, 'report.pdf');
+    const verdict = await verifyReport(pdf, 'report.pdf', { trust: trustOf(cert) });
     expect(verdict.passed).toBe(false);
     const last = verdict.steps[verdict.steps.length - 1].what;
     expect(last).toContain('Numbers: recomputing does not give the recorded results');

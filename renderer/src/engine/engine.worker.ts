@@ -19,6 +19,7 @@ import { recomputeCase, recomputeValues, recordResults, type CaseOutcome, type C
 import { recordOverride, recordWithdrawal } from '../../../core/case/review';
 import { activeOverrides } from '../../../core/case/overrides';
 import { recordFollowUp, recordFollowUpCorrection } from '../../../core/case/follow-ups';
+import { reviewerEntries } from '../../../core/case/opening';
 import { locatedError, ok, type LocatedError } from '../../../core/model/errors';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
@@ -119,7 +120,7 @@ async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'o
   // Each day is read with the column map its case records (core/case/new-case.ts). While the
   // reviewer log is empty (nothing is chained to the inputs yet), a day without one takes the
   // map remembered for its layout, and the case records it; after that the maps stand.
-  const reviewed = parsed.value.log.length > 0;
+  const reviewed = reviewerEntries(parsed.value.log).length > 0;
   const probe = workbenchEngine(new Map());
   const plain: Partial<Record<'day1' | 'day2', ImportResult>> = {};
   const columnMaps: Record<'day1' | 'day2', ColumnMapping | null> = { day1: null, day2: null };

@@ -43,6 +43,8 @@ function describe(action: EngineView['log'][number]['action']): string {
     case 'follow-up':
     case 'follow-up-correction':
       return describeFollowUpAction(action);
+    case 'case-opened':
+      return action.migrated ? 'Case opened (opening entry added when an older case file was read)' : 'Case opened: raw files, column maps, settings and clinical inputs chained';
   }
 }
 

@@ -13,13 +13,16 @@ const sha = (s: string) => createHash('sha256').update(s, 'utf8').digest('hex');
 describe('audit log', () => {
   it('hashes an entry as SHA-256 of its canonical body, chained to the anchor', () => {
     const c = caseWithLog();
-    const e = c.log[0];
+    // Entry 0 is the opening entry, chained to the anchor (core/case/opening.ts); entry 1 to it.
+    expect(c.log[0].action.kind).toBe('case-opened');
+    expect(c.log[0].prevHash).toBe(anchorHash(c));
+    const e = c.log[1];
     // Keys in code-unit order: action, at, prevHash, reason, role, seq, who; action's keys likewise.
     const body =
       `{"action":{"after":{"timeS":570,"vo2MlMin":1320},"before":{"timeS":600,"vo2MlMin":1400},"day":2,"givenAs":"time","kind":"set-threshold","threshold":"vt1"},` +
-      `"at":"2026-03-10T09:00:00Z","prevHash":"${anchorHash(c)}","reason":"reason 1","role":"exercise physiologist","seq":1,"who":"R. Reviewer"}`;
+      `"at":"2026-03-10T09:00:00Z","prevHash":"${c.log[0].hash}","reason":"reason 1","role":"exercise physiologist","seq":1,"who":"R. Reviewer"}`;
     expect(e.hash).toBe(sha(body));
-    expect(c.log[1].prevHash).toBe(c.log[0].hash);
+    expect(c.log[2].prevHash).toBe(c.log[1].hash);
     expect(verifyLog(c).ok).toBe(true);
   });
 

@@ -53,7 +53,8 @@ describe('activeOverrides', () => {
     const active = activeOverrides(c.log).get('2:vt1');
     expect(active?.seq).toBe(1);
     expect(active?.point.timeS).toBe(570);
-    expect(activeOverrides(c.log.slice(0, 2)).get('2:vt1')?.seq).toBe(2);
+    // log[0] is the opening entry; the first three entries are the opening and entries 1 and 2.
+    expect(activeOverrides(c.log.slice(0, 3)).get('2:vt1')?.seq).toBe(2);
     expect(activeOverrides(c.log).has('1:vt1')).toBe(false);
   });
 

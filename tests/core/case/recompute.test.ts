@@ -52,7 +52,7 @@ describe('recomputeCase', () => {
     expect(after.recorded.numbers['day2.vt1Source']).toBe('reviewer#1');
     const back = recordWithdrawal(moved.value, after, reviewer, 1, 'second look: automatic estimate is right');
     if (!back.ok) throw new Error(back.error.message);
-    const action = back.value.log[1].action;
+    const action = back.value.log[2].action;
     expect(action.kind === 'withdraw' && action.after?.vo2MlMin).toBe(auto.day2.vt1.automatic.at?.vo2MlMin);
     const restored = run(back.value);
     expect(restored.recorded.digest).toBe(auto.recorded.digest);

@@ -83,3 +83,8 @@ export function appendIncrementalUpdate(pdf: Uint8Array, objectNumber: number, d
   const xref = `xref\n0 1\n0000000000 65535 f \n${objectNumber} 1\n${String(objOffset).padStart(10, '0')} 00000 n \ntrailer\n<< /Size ${size} /Root ${root} /Prev ${prev} >>\nstartxref\n${xrefOffset}\n%%EOF\n`;
   return new Uint8Array(Buffer.concat([Buffer.from(pdf), body, Buffer.from(xref, 'latin1')]));
 }
+
+/** The trust list that names this certificate alone, as `twofold verify --trust cert.pem` reads it. */
+export function trustOf(cert: LabCertificate): { pem: string; source: string }[] {
+  return [{ pem: readFileSync(cert.certPem, 'latin1'), source: cert.certPem }];
+}

@@ -14,12 +14,13 @@ import { fixed } from '../../../core/report/format';
 import { verifySignature } from '../../../core/report/verify-signature';
 import { embeddedFiles } from '../../../host/pdf-attachments';
 import { verifyReport } from '../../../host/verify-report';
-import { appendIncrementalUpdate, opensslCertificate, signedDemoReport } from './fixture';
+import { appendIncrementalUpdate, opensslCertificate, signedDemoReport, trustOf } from './fixture';
 
 let dir: string;
 let signed: Uint8Array;
 let built: Awaited<ReturnType<typeof signedDemoReport>>;
 let certPem: string;
+let trust: ReturnType<typeof trustOf>;
 
 function tool(cmd: string, args: string[]) {
   const r = spawnSync(cmd, args, { encoding: 'utf8' });
@@ -36,6 +37,7 @@ beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'twofold-report-'));
   const cert = opensslCertificate();
   certPem = cert.certPem;
+  trust = trustOf(cert);
   built = await signedDemoReport(cert);
   signed = built.signed;
   write('report.pdf', signed);
@@ -104,7 +106,7 @@ describe('the signed report, checked by outside tools', () => {
     execFileSync('mkdir', ['-p', out]);
     execFileSync('pdfdetach', ['-saveall', '-o', out, join(dir, 'report.pdf')]);
     const names = readdirSync(out).sort();
-    expect(names).toEqual(['day1-qh0417-day1.csv', 'day2-qh0417-day2.csv', 'twofold-case.json']);
+    expect(names).toEqual(['day1-qh0417-day1.csv', 'day2-qh0417-day2.csv', 'twofold-build.json', 'twofold-case.json']);
     const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
     expect(sha(readFileSync(join(out, names[0])))).toBe(built.caseFile.inputs.day1.sha256);
     expect(sha(readFileSync(join(out, names[1])))).toBe(built.caseFile.inputs.day2.sha256);
@@ -113,15 +115,15 @@ describe('the signed report, checked by outside tools', () => {
     if (ours.ok) for (const f of ours.value) expect(sha(f.bytes)).toBe(sha(readFileSync(join(out, f.name))));
   });
 
-  it("Twofold's own check agrees: signature whole, files intact, numbers reproduce", () => {
-    const r = verifyReport(signed, 'report.pdf');
+  it("Twofold's own check agrees: signature whole, files intact, numbers reproduce", async () => {
+    const r = await verifyReport(signed, 'report.pdf', { trust });
     expect(r.steps.map((s) => s.what).join('\n')).toContain('reproduced');
     expect(r.passed).toBe(true);
   });
 });
 
 describe('tampering', () => {
-  it('one changed byte inside the signed range fails pdfsig and Twofold', () => {
+  it('one changed byte inside the signed range fails pdfsig and Twofold', async () => {
     const text = Buffer.from(signed).toString('latin1');
     const at = text.indexOf('/Producer');
     const bad = new Uint8Array(signed);
@@ -131,10 +133,10 @@ describe('tampering', () => {
     expect(r.out).not.toContain('Signature is Valid');
     const ours = verifySignature(bad, 'one-byte.pdf');
     expect(!ours.ok && ours.error.code).toBe('signature-digest-mismatch');
-    expect(verifyReport(bad, 'one-byte.pdf').passed).toBe(false);
+    expect((await verifyReport(bad, 'one-byte.pdf', { trust })).passed).toBe(false);
   });
 
-  it('an appended incremental update that alters a recorded number fails pdfsig (not total) and Twofold', () => {
+  it('an appended incremental update that alters a recorded number fails pdfsig (not total) and Twofold', async () => {
     const text = Buffer.from(signed).toString('latin1');
     const spec = /(\d+) 0 obj\s*<<\s*\/Type \/Filespec[^]*?\/F \(twofold-case\.json\)[^]*?\/EF <<\s*\/F (\d+) 0 R/.exec(text);
     expect(spec).not.toBeNull();
@@ -150,13 +152,13 @@ describe('tampering', () => {
     const path = write('appended.pdf', updated);
     expect(tool('qpdf', ['--check', path]).out).toContain('No syntax or stream encoding errors found');
     // A reader now sees the altered case file (pdfdetach takes the newest object):
-    execFileSync('pdfdetach', ['-save', '3', '-o', join(dir, 'appended-case.json'), path]);
+    execFileSync('pdfdetach', ['-savefile', 'twofold-case.json', '-o', join(dir, 'appended-case.json'), path]);
     expect(readFileSync(join(dir, 'appended-case.json'), 'utf8')).toContain(`${key}: ${(day2 ?? 0) + 100}`);
     const pdfsig = tool('pdfsig', [path]);
     expect(pdfsig.out).not.toContain('Total document signed');
     const ours = verifySignature(updated, 'appended.pdf');
     expect(!ours.ok && ours.error.code).toBe('signature-partial');
-    const full = verifyReport(updated, 'appended.pdf');
+    const full = await verifyReport(updated, 'appended.pdf', { trust });
     expect(full.passed).toBe(false);
     expect(full.steps[0].what).toContain('added after the signed part');
   });

@@ -83,7 +83,8 @@ describe('case store', () => {
     const again = store.open(summary.caseId);
     if (!again.ok) throw new Error(again.error.message);
     const reread = caseFromText(again.value.caseJson, 'case');
-    expect(reread.ok && reread.value.log.map((e) => e.reason)).toEqual(['checked']);
+    expect(reread.ok && reread.value.log.slice(1).map((e) => e.reason)).toEqual(['checked']);
+    expect(reread.ok && reread.value.log[0].action.kind).toBe('case-opened');
   });
 
   it('refuses to save a case whose log entry was edited, and keeps the saved one', () => {
