@@ -71,7 +71,9 @@ export type EngineRequest =
   | { readonly type: 'set-threshold'; readonly day: DayNumber; readonly threshold: ThresholdId; readonly givenAs: 'time' | 'vo2'; readonly value: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'withdraw'; readonly seq: number; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'undo'; readonly reviewer: Reviewer; readonly at: string }
-  | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string };
+  | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string }
+  /** A sign-off entry in the reviewer log (core/case/review.ts `recordSignOff`). */
+  | { readonly type: 'sign-off'; readonly statement: string; readonly reviewer: Reviewer; readonly at: string };
 
 export type EngineReply<C = unknown> =
   | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
