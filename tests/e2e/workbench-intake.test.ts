@@ -8,11 +8,9 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { newCase } from '../../core/case/new-case';
-import { recomputeCase } from '../../core/case/recompute';
-import { defaultEngine } from '../../core/case/default-engine';
+import { readBreathFile } from '../../core/import/read-table';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
-import { noClinicalInputs } from '../../core/analyze/analyze-test';
+import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
 import { numberIn, ROOT, SCREENSHOTS, startWorkbench, type Workbench } from './harness';
 
@@ -64,10 +62,10 @@ describe('browser mode, intake', () => {
   });
 
   it('opens an .xlsx chosen through the file chooser, with the VT1 core finds in Node', async () => {
-    const day1 = { name: 'qh0417-day1.xlsx', bytes: new Uint8Array(readFileSync(XLSX)) };
-    const day2 = { name: DEMO_PAIR.day2, bytes: new Uint8Array(readFileSync(DAY2)) };
-    const reference = recomputeCase(newCase('2026-01-01T00:00:00Z', day1, day2, DEFAULT_SETTINGS, { day1: noClinicalInputs(), day2: noClinicalInputs() }), { day1: day1.bytes, day2: day2.bytes }, defaultEngine);
-    if (!reference.ok) throw new Error(reference.error.message);
+    // As `twofold analyze` reads it: the one importer (async for a workbook), then the analysis.
+    const imported = await readBreathFile(new Uint8Array(readFileSync(XLSX)), { sourceName: 'qh0417-day1.xlsx', settings: DEFAULT_SETTINGS });
+    if (!imported.ok) throw new Error(imported.error.message);
+    const reference = analyzeTest(imported.value.table, DEFAULT_SETTINGS, noClinicalInputs());
 
     await choose(1, XLSX);
     await choose(2, DAY2);
@@ -81,7 +79,7 @@ describe('browser mode, intake', () => {
     expect(await page.locator('.error-notice').count()).toBe(0);
     expect(await page.locator('.day-tab').first().textContent()).toContain('qh0417-day1.xlsx');
     const vt1 = numberIn(await page.locator('[data-testid="row-vt1"] > :nth-child(4)').textContent());
-    expect(vt1).toBe(Math.round(reference.value.day1.analysis.vt1.at!.vo2MlMin));
+    expect(vt1).toBe(Math.round(reference.vt1.at!.vo2MlMin));
     expect(caseFolders().length).toBe(1);
   });
 
