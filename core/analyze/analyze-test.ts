@@ -16,6 +16,8 @@ import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
 import { removeOutliers } from '../clean/outliers';
 import { averageBreaths } from '../clean/averaging';
 import { findPhases } from '../clean/phases';
+import { intervalLabel } from '../thresholds/interval-label';
+import { isShortRamp } from '../thresholds/ramp-length';
 import { findThresholds } from '../thresholds/find-thresholds';
 import { peakValues } from '../measures/peaks';
 import { breathingReserve, dVo2dWr, hrReserve, mvvLMin, oues, veVco2Slope, weberClass } from '../measures/derived';
@@ -55,8 +57,9 @@ export function analyzeTest(table: BreathTable, settings: Settings, clinical: Cl
   };
 
   const context = valuesAtContext(peak, predicted, meta.weightKg);
-  const vt1 = thresholdResult('vt1', estimates.vt1, series, context);
-  const vt2 = thresholdResult('vt2', estimates.vt2, series, context);
+  const short = isShortRamp(phases.incrementalStartS, phases.incrementalEndS);
+  const vt1 = thresholdResult('vt1', estimates.vt1, series, context, short);
+  const vt2 = thresholdResult('vt2', estimates.vt2, series, context, short);
 
   const slopeEnd = vt2.at ? vt2.at.timeS : phases.incrementalEndS;
   const mvv = mvvLMin(clinical.mvvLMin, clinical.fev1L);
@@ -113,13 +116,14 @@ export function analyzeTest(table: BreathTable, settings: Settings, clinical: Cl
   };
 }
 
-function thresholdResult(id: ThresholdId, e: ThresholdEstimate, series: TestAnalysis['series'], context: ValuesAtContext): ThresholdResult {
+function thresholdResult(id: ThresholdId, e: ThresholdEstimate, series: TestAnalysis['series'], context: ValuesAtContext, shortRamp: boolean): ThresholdResult {
   return {
     id,
     methods: e.methods,
     at: e.consensus ? valuesAt(series, e.consensus.timeS, context, e.consensus.vo2MlMin) : null,
     ci95Vo2MlMin: e.ci95Vo2MlMin,
     ci95TimeS: e.ci95TimeS,
+    ...(e.ci95Vo2MlMin ? { ciLabel: intervalLabel(id, shortRamp) } : {}),
     spreadVo2MlMin: e.spreadVo2MlMin,
     methodsDisagree: e.methodsDisagree,
     reason: e.consensus ? null : (e.reason ?? 'no method found a breakpoint'),

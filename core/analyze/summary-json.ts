@@ -30,6 +30,7 @@ function threshold(t: ThresholdResult): Json {
     pct_predicted_peak_vo2: num(t.at.pctPredictedPeakVo2),
     ci95_vo2_ml_min: t.ci95Vo2MlMin ? [num(t.ci95Vo2MlMin[0]), num(t.ci95Vo2MlMin[1])] : null,
     ci95_time_s: t.ci95TimeS ? [num(t.ci95TimeS[0]), num(t.ci95TimeS[1])] : null,
+    ci_label: t.ci95Vo2MlMin ? (t.ciLabel ?? null) : null,
     spread_vo2_ml_min: num(t.spreadVo2MlMin),
     methods_disagree: t.methodsDisagree,
     methods,

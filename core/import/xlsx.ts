@@ -65,6 +65,7 @@ function loadExcel(): Promise<ExcelModule> {
 }
 
 export async function workbookRows(bytes: Uint8Array, file: string, sheetName: string | null): Promise<Result<WorkbookRows>> {
+  // exceljs loads only when a workbook is read: a CSV never pays for it.
   let workbook: ExcelJS.Workbook;
   try {
     workbook = new (await loadExcel()).Workbook();

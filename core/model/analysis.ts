@@ -104,6 +104,11 @@ export interface ThresholdResult {
   readonly at: ValuesAt | null;
   readonly ci95Vo2MlMin: readonly [number, number] | null;
   readonly ci95TimeS: readonly [number, number] | null;
+  /**
+   * How to name the interval: "95% interval", or the coverage measured on held-out generated
+   * tests where that was outside 93–97 % (core/thresholds/interval-label.ts). Absent without an interval.
+   */
+  readonly ciLabel?: string;
   /** Range of the methods' VO2 estimates (max − min), mL/min. */
   readonly spreadVo2MlMin: number | null;
   readonly methodsDisagree: boolean;

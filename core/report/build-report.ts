@@ -274,7 +274,7 @@ function thresholdBlock(L: Layout, id: ThresholdId, state: ThresholdState): void
     { size: 7.5 },
   );
   const consensus = auto.at ? `automatic consensus ${minSec(auto.at.timeS)}, VO₂ ${fixed(auto.at.vo2MlMin, 0)} mL/min` : `no automatic estimate (${auto.reason ?? 'no method found it'})`;
-  const ci = auto.ci95Vo2MlMin ? `, 95% CI ${fixed(auto.ci95Vo2MlMin[0], 0)}–${fixed(auto.ci95Vo2MlMin[1], 0)} mL/min` : '';
+  const ci = auto.ci95Vo2MlMin ? `, ${auto.ciLabel ?? '95% interval'} ${fixed(auto.ci95Vo2MlMin[0], 0)}–${fixed(auto.ci95Vo2MlMin[1], 0)} mL/min` : '';
   const spread = auto.spreadVo2MlMin !== null ? `; methods span ${fixed(auto.spreadVo2MlMin, 0)} mL/min${auto.methodsDisagree ? ' (they disagree)' : ''}` : '';
   L.paragraph(`${consensus}${ci}${spread}.`, { size: 8.5 });
   const o = state.override;

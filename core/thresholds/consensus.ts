@@ -9,15 +9,37 @@
  * Example: estimates 1,500, 1,550 and 1,700 mL/min → consensus 1,550, spread 200; with a
  * 10 % limit (155 mL/min) the methods disagree.
  *
- * The median of all methods that found the threshold, the combined V-slope with VE
- * (vslope-shared.ts) among them. Letting that one method lead (its estimate as the consensus
- * whenever it found VT1) gave a lower median error on generated tests but failed badly
- * where it alone went wrong (a demo pair that reproduces showed a false VT1 decline), so the
- * median stands: robust to one wayward method (our choice; docs/validation.md).
+ * With a rule (CONSENSUS_RULES, what findThresholds uses): the median of the leading methods
+ * found, unless it lies more than the guard from the median of all (then that median). The
+ * leading methods were chosen for their small bias on two generator families; the other
+ * methods stay as checks (spread, disagreement flag, guard). Without a rule: the median of all
+ * (the preliminary VT2, which only bounds the VT1 window).
  */
-import type { MethodOutcome } from '../model/analysis';
+import type { MethodOutcome, ThresholdId } from '../model/analysis';
 import { median } from '../math/stats';
 import { timeAtValue, type MonotoneCurve } from './read-off';
+
+/**
+ * Which methods lead a threshold's consensus, decided from the validation on two independently
+ * built generator families (docs/validation.md, "Consensus"): the methods whose own bias was
+ * smallest on both. The lead is the median of the leading methods found; every other method is
+ * a check. When the lead lies more than `guardPct` % from the median of all found methods, the
+ * lead is not trusted and that median of all is the consensus (one wayward fit cannot carry the
+ * threshold alone, the failure that withdrew a single leading method before).
+ */
+export interface ConsensusRule {
+  readonly lead: readonly string[];
+  readonly guardPct: number;
+}
+
+export const CONSENSUS_RULES: Readonly<Record<ThresholdId, ConsensusRule>> = {
+  // PetO2 (early by 5–8 % on both families), excess CO2 (late by about 4 %), VE/VO2 and the
+  // two-regression V-slope (early, wider) are checks.
+  vt1: { lead: ['vslope-ve', 'vslope-hinge'], guardPct: 10 },
+  // VE/VCO2 and PetCO2 come early on both families (their curved course before the bend pulls a
+  // two-line knot early); VE against smoothed VCO2 is nearly unbiased.
+  vt2: { lead: ['ve-vs-vco2'], guardPct: 10 },
+};
 
 export interface Consensus {
   readonly consensus: { readonly timeS: number; readonly vo2MlMin: number } | null;
@@ -31,6 +53,7 @@ export function consensusOf(
   vo2: MonotoneCurve,
   disagreementPct: number,
   thresholdName: string,
+  rule?: ConsensusRule,
 ): Consensus {
   const found = outcomes.flatMap((o) => (o.found ? [o.vo2MlMin] : []));
   if (found.length === 0) {
@@ -42,7 +65,10 @@ export function consensusOf(
       reason: `No method found ${thresholdName}. ${why.join(' ')}`.trim(),
     };
   }
-  const vo2MlMin = median(found);
+  const all = median(found);
+  const leading = rule ? outcomes.flatMap((o) => (o.found && rule.lead.includes(o.method) ? [o.vo2MlMin] : [])) : [];
+  const lead = leading.length ? median(leading) : null;
+  const vo2MlMin = lead !== null && rule && Math.abs(lead - all) <= (rule.guardPct / 100) * all ? lead : all;
   const spread = Math.max(...found) - Math.min(...found);
   return {
     consensus: { timeS: timeAtValue(vo2, vo2MlMin), vo2MlMin },

@@ -29,6 +29,8 @@ export interface ThresholdEstimate {
   readonly consensus: { readonly timeS: number; readonly vo2MlMin: number } | null;
   readonly ci95Vo2MlMin: readonly [number, number] | null;
   readonly ci95TimeS: readonly [number, number] | null;
+  /** The SDs the interval was built from (uncertainty.ts); absent for the preliminary VT2. */
+  readonly ciParts?: { readonly bootSdMlMin: number; readonly methodSdMlMin: number; readonly floorSdMlMin: number } | null;
   readonly spreadVo2MlMin: number | null;
   readonly methodsDisagree: boolean;
   readonly reason: string | null;

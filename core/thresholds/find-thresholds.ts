@@ -22,11 +22,12 @@
 import type { Phases, ProcessedSeries, ThresholdId } from '../model/analysis';
 import type { Settings } from '../model/settings';
 import { median } from '../math/stats';
-import { consensusOf } from './consensus';
+import { CONSENSUS_RULES, consensusOf } from './consensus';
 import type { DetectorEntry, DetectorInput, ThresholdEstimate } from './detector';
 import { VT1_METHODS, VT2_METHODS } from './methods';
 import { vo2Curve } from './read-off';
-import { combinationInterval, methodAwareInterval, methodReplicates } from './uncertainty';
+import { isShortRamp } from './ramp-length';
+import { combinationInterval, INTERVAL_CALIBRATION, methodAwareInterval, methodReplicates } from './uncertainty';
 
 const NAMES: Record<ThresholdId, string> = { vt1: 'VT1', vt2: 'VT2' };
 
@@ -84,19 +85,21 @@ export function estimateThreshold(
   input: DetectorInput,
   incremental: readonly [number, number],
   withInterval: boolean,
+  shortRamp = false,
 ): ThresholdEstimate {
   const outcomes = methods.map((m) => m.detect(input));
   const curve = vo2Curve(input.series, incremental[0], incremental[1]);
   const reps = withInterval ? methodReplicates(outcomes, input, id === 'vt1' ? 1 : 2) : null;
-  const c = consensusOf(outcomes, curve, input.settings.thresholds.disagreementPct, NAMES[id]);
+  const c = consensusOf(outcomes, curve, input.settings.thresholds.disagreementPct, NAMES[id], withInterval ? CONSENSUS_RULES[id] : undefined);
   const boot = reps && c.consensus ? combinationInterval(reps, median, curve) : null;
   const found = outcomes.flatMap((o) => (o.found ? [o.vo2MlMin] : []));
-  const ci = boot && c.consensus ? methodAwareInterval(boot, c.consensus.vo2MlMin, found, curve) : null;
+  const ci = boot && c.consensus ? methodAwareInterval(boot, c.consensus.vo2MlMin, found, curve, INTERVAL_CALIBRATION[id], shortRamp) : null;
   return {
     methods: outcomes,
     consensus: c.consensus,
     ci95Vo2MlMin: ci?.ci95Vo2MlMin ?? null,
     ci95TimeS: ci?.ci95TimeS ?? null,
+    ciParts: ci?.parts ?? null,
     spreadVo2MlMin: c.spreadVo2MlMin,
     methodsDisagree: c.methodsDisagree,
     reason: c.reason,
@@ -110,11 +113,12 @@ export function findThresholds(
 ): { vt1: ThresholdEstimate; vt2: ThresholdEstimate } {
   const inc: [number, number] = [phases.incrementalStartS, phases.incrementalEndS];
   const input = (fromS: number, toS: number): DetectorInput => ({ series, fromS, toS, settings });
+  const short = isShortRamp(inc[0], inc[1]);
   const preliminary = estimateThreshold('vt2', VT2_METHODS, input(inc[0], inc[1]), inc, false);
   const bound = vt2Bound(preliminary, inc[1]);
   const vt1Input = (toS: number): DetectorInput => ({ ...vt1Window(series, phases, toS), settings });
-  const below = estimateThreshold('vt1', VT1_METHODS, vt1Input(bound ?? inc[1]), inc, true);
-  const vt1 = below.consensus || bound === null ? below : estimateThreshold('vt1', VT1_METHODS, vt1Input(inc[1]), inc, true);
-  const vt2 = estimateThreshold('vt2', VT2_METHODS, input(vt1.consensus?.timeS ?? inc[0], inc[1]), inc, true);
+  const below = estimateThreshold('vt1', VT1_METHODS, vt1Input(bound ?? inc[1]), inc, true, short);
+  const vt1 = below.consensus || bound === null ? below : estimateThreshold('vt1', VT1_METHODS, vt1Input(inc[1]), inc, true, short);
+  const vt2 = estimateThreshold('vt2', VT2_METHODS, input(vt1.consensus?.timeS ?? inc[0], inc[1]), inc, true, short);
   return { vt1, vt2 };
 }

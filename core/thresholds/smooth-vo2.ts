@@ -17,8 +17,11 @@ import type { ProcessedSeries } from '../model/analysis';
 
 /** Smoothed VO2 at every index of the series (NaN where no neighbour has a finite VO2). */
 export function locallySmoothedVo2(series: ProcessedSeries, halfWidthS: number): Float64Array {
-  const t = series.timeS;
-  const v = series.vo2MlMin;
+  return locallySmoothed(series.timeS, series.vo2MlMin, halfWidthS);
+}
+
+/** The same local linear smooth of any variable against time (NaN where no neighbour is finite). */
+export function locallySmoothed(t: readonly number[], v: readonly number[], halfWidthS: number): Float64Array {
   const n = t.length;
   const out = new Float64Array(n).fill(Number.NaN);
   let lo = 0;

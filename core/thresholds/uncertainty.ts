@@ -21,6 +21,7 @@
  * interval shows how far noise moves the consensus; a bias the methods share is not in it.
  */
 import type { MethodOutcome } from '../model/analysis';
+import type { Settings } from '../model/settings';
 import { seededRandom, type Random } from '../math/random';
 import { median, quantile, sampleSd } from '../math/stats';
 import type { DetectorInput } from './detector';
@@ -28,7 +29,7 @@ import { minPerSide } from './edge-floor';
 import { fitSample, type MethodSample } from './hinge-method';
 import { HINGE_METHODS } from './methods';
 import { timeAtValue, type MonotoneCurve } from './read-off';
-import { hingeFit, hingeValue, replaceY, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
+import { hingeFit, hingeValue, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
 import { vslopeSample } from './vslope-hinge';
 
 export interface ThresholdCi {
@@ -36,6 +37,8 @@ export interface ThresholdCi {
   readonly ci95TimeS: readonly [number, number];
   /** Replicates in which at least one method could be refitted. */
   readonly replicates: number;
+  /** The SDs the reported interval was built from, mL/min (methodAwareInterval only). */
+  readonly parts?: { readonly bootSdMlMin: number; readonly methodSdMlMin: number; readonly floorSdMlMin: number };
 }
 
 interface Refit {
@@ -43,6 +46,8 @@ interface Refit {
   readonly scratch: YScratch;
   readonly fitted: Float64Array;
   readonly residuals: Float64Array;
+  /** x − mean x of the base points, for the replicate's prefix sums. */
+  readonly centredX: Float64Array;
   readonly block: number;
   readonly estimate: (p: PreparedPoints) => number | null;
 }
@@ -81,12 +86,15 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
     fitted[i] = hingeValue(fit, p.x[i]);
     residuals[i] = p.y[i] - fitted[i];
   }
+  const centredX = new Float64Array(n);
+  for (let i = 0; i < n; i++) centredX[i] = p.x[i] - p.mx;
   const s = sample;
   return {
     base: p,
     scratch: yScratch(n),
     fitted,
     residuals,
+    centredX,
     block: blockLength(residuals),
     estimate: (q) => {
       const knot = estimateKnot(q);
@@ -97,14 +105,55 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
   };
 }
 
-function resample(r: Refit, random: Random, out: Float64Array): void {
-  const n = r.residuals.length;
+/**
+ * One replicate of a method's points: fitted values plus residuals drawn in moving blocks,
+ * written straight into the refit's scratch arrays, with the y prefix sums accumulated in the
+ * same pass. The sums are centred on the original points' mean (the fits only take
+ * differences of the sums, so any fixed centre gives the same fit; this one needs no second
+ * pass over the replicate).
+ */
+function resampleInto(r: Refit, random: Random): PreparedPoints {
+  const { base, scratch, fitted, residuals, centredX } = r;
+  const { y, sy, sxy, syy } = scratch;
+  const n = residuals.length;
   const L = r.block;
+  const centre = base.my;
   let i = 0;
   while (i < n) {
-    const start = Math.floor(random() * (n - L + 1));
-    for (let k = 0; k < L && i < n; k++, i++) out[i] = r.fitted[i] + r.residuals[start + k];
+    const shift = Math.floor(random() * (n - L + 1)) - i;
+    const end = Math.min(n, i + L);
+    for (; i < end; i++) {
+      const v = fitted[i] + residuals[i + shift];
+      const cy = v - centre;
+      y[i] = v;
+      sy[i + 1] = sy[i] + cy;
+      sxy[i + 1] = sxy[i] + centredX[i] * cy;
+      syy[i + 1] = syy[i] + cy * cy;
+    }
   }
+  return { x: base.x, y, mx: base.mx, my: centre, sx: base.sx, sy, sxx: base.sxx, sxy, syy };
+}
+
+/** Early-stop rule of the settings; `checkEvery` 0 draws every replicate. */
+interface StopRule {
+  readonly checkEvery: number;
+  readonly stableWithinPct: number;
+}
+
+/** The percentile interval of the combined replicates so far; null with fewer than 2. */
+function percentileEnds(replicates: readonly (readonly number[])[], combine: (values: readonly number[]) => number): readonly [number, number] | null {
+  const estimates: number[] = [];
+  for (const r of replicates) {
+    const values = r.filter(Number.isFinite);
+    if (values.length > 0) estimates.push(combine(values));
+  }
+  return estimates.length < 2 ? null : [quantile(estimates, 0.025), quantile(estimates, 0.975)];
+}
+
+/** True when neither end moved by more than the tolerance, a share of the newer interval's width. */
+export function intervalIsStable(before: readonly [number, number], after: readonly [number, number], stableWithinPct: number): boolean {
+  const tolerance = (stableWithinPct / 100) * (after[1] - after[0]);
+  return Math.abs(after[0] - before[0]) <= tolerance && Math.abs(after[1] - before[1]) <= tolerance;
 }
 
 /** Each found method's estimate, refitted in every bootstrap replicate (NaN where a refit failed). */
@@ -117,9 +166,23 @@ export interface MethodReplicates {
 /**
  * Bootstrap replicates of every found method that can be refitted. All methods are resampled
  * within the same replicate, so a combination (the consensus) can be formed replicate by
- * replicate. Null when no method can be refitted or no replicates are asked for.
+ * replicate. Null when no method can be refitted or no replicates are asked for (then nothing
+ * of the bootstrap is set up).
+ *
+ * Early stop (settings `checkEvery`, `stableWithinPct`; our choice, not a published rule):
+ * after every `checkEvery` replicates the percentile interval of `combine` (the consensus'
+ * median) is formed again; from the second check on, drawing stops when both of its ends
+ * moved by no more than `stableWithinPct` % of its width since the previous check, and in any
+ * case at `replicates`. The same seed and settings always stop at the same replicate.
  */
-export function methodReplicates(outcomes: readonly MethodOutcome[], input: DetectorInput, seedOffset: number): MethodReplicates | null {
+export function methodReplicates(
+  outcomes: readonly MethodOutcome[],
+  input: DetectorInput,
+  seedOffset: number,
+  combine: (values: readonly number[]) => number = median,
+): MethodReplicates | null {
+  const { replicates, seed } = input.settings.thresholds.bootstrap;
+  if (replicates < 2) return null;
   const methods: string[] = [];
   const refits: Refit[] = [];
   for (const o of outcomes) {
@@ -129,20 +192,24 @@ export function methodReplicates(outcomes: readonly MethodOutcome[], input: Dete
     methods.push(o.method);
     refits.push(r);
   }
-  const { replicates, seed } = input.settings.thresholds.bootstrap;
-  if (refits.length === 0 || replicates < 2) return null;
+  if (refits.length === 0) return null;
+  const rule = stopRule(input.settings.thresholds.bootstrap);
   const random = seededRandom((seed + seedOffset) >>> 0);
-  const buffers = refits.map((r) => new Float64Array(r.base.x.length));
   const out: number[][] = [];
+  let previous: readonly [number, number] | null = null;
   for (let b = 0; b < replicates; b++) {
-    out.push(
-      refits.map((r, k) => {
-        resample(r, random, buffers[k]);
-        return r.estimate(replaceY(r.base, buffers[k], r.scratch)) ?? Number.NaN;
-      }),
-    );
+    out.push(refits.map((r) => r.estimate(resampleInto(r, random)) ?? Number.NaN));
+    if (rule.checkEvery > 0 && out.length % rule.checkEvery === 0 && out.length < replicates) {
+      const ends = percentileEnds(out, combine);
+      if (previous && ends && intervalIsStable(previous, ends, rule.stableWithinPct)) break;
+      previous = ends;
+    }
   }
   return { methods, replicates: out };
+}
+
+function stopRule(bootstrap: Settings['thresholds']['bootstrap']): StopRule {
+  return { checkEvery: bootstrap.checkEvery ?? 0, stableWithinPct: bootstrap.stableWithinPct ?? 0 };
 }
 
 /**
@@ -154,15 +221,11 @@ export function combinationInterval(
   combine: (values: readonly number[]) => number,
   vo2: MonotoneCurve,
 ): ThresholdCi | null {
-  const estimates: number[] = [];
-  for (const r of reps.replicates) {
-    const values = r.filter(Number.isFinite);
-    if (values.length > 0) estimates.push(combine(values));
-  }
-  if (estimates.length < 2) return null;
-  const lo = quantile(estimates, 0.025);
-  const hi = quantile(estimates, 0.975);
-  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates.length };
+  const estimates = reps.replicates.filter((r) => r.some(Number.isFinite)).length;
+  const ends = percentileEnds(reps.replicates, combine);
+  if (!ends) return null;
+  const [lo, hi] = ends;
+  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates };
 }
 
 /** Fewest found methods for which the between-method spread is taken robustly (scaled MAD). */
@@ -187,26 +250,64 @@ export function methodSpread(estimatesVo2MlMin: readonly number[]): number {
 }
 
 /**
- * The reported 95 % interval: the bootstrap spread (noise) and the between-method spread (the
- * methods' own biases, which the bootstrap cannot see) added in quadrature, centred on the
- * consensus: consensus ± 1.96 · √(s_boot² + s_methods²), with s_boot = (hi − lo) / 3.92 of
- * the bootstrap percentile interval and s_methods from `methodSpread`. Independent error
- * sources add in variance (common practice, as in a combined standard uncertainty: JCGM
- * 100:2008, Guide to the Expression of Uncertainty in Measurement, §5.1). Checked by its
- * coverage on development and validation seeds (docs/validation.md). Example: bootstrap
- * 1,450–1,550 (s_boot 25.5), estimates 1,400, 1,500 and 1,600 (s_methods 100, the SD of three),
- * consensus 1,500 → 1,500 ± 1.96 · 103.2 = 1,297.7–1,702.3.
+ * How the interval's parts are scaled, per threshold: chosen on development seeds of both
+ * generator families so that the interval holds the true VO2 in about 95 % of tests
+ * (calibration, docs/validation.md "The interval"). `boot` and `methods` multiply the two SDs,
+ * `floorPct` is an SD floor in % of the consensus VO2 for the bias the methods share, which
+ * neither the bootstrap nor their spread can see.
+ */
+export interface IntervalCalibration {
+  readonly boot: number;
+  readonly methods: number;
+  readonly floorPct: number;
+  /** The whole half-width is multiplied by this when the incremental phase is short (ramp-length.ts). */
+  readonly shortRamp: number;
+}
+
+export const INTERVAL_CALIBRATION: Readonly<Record<'vt1' | 'vt2', IntervalCalibration>> = {
+  // Development seeds of both families (docs/validation.md): the bootstrap alone covered VT1 in
+  // about 60–80 % of tests (it sees breath noise, not the shape error of a two-line fit to a
+  // curve), so its SD is tripled; the robust method spread adds little once the leading pair
+  // decides; a 3 % floor holds the bias the methods share. No extra widening for short ramps
+  // was needed (factor 1): their bootstrap is already wider.
+  vt1: { boot: 3, methods: 0.5, floorPct: 3, shortRamp: 1 },
+  vt2: { boot: 1, methods: 1.25, floorPct: 3, shortRamp: 1 },
+};
+
+/**
+ * The reported 95 % interval: the bootstrap spread (noise), the between-method spread (the
+ * methods' own biases, which the bootstrap cannot see) and a floor for the bias they share,
+ * added in quadrature, centred on the consensus:
+ * consensus ± k · 1.96 · √((a·s_boot)² + (b·s_methods)² + (f·consensus)²), with k the
+ * short-ramp factor when the incremental phase is short (else 1),
+ * s_boot = (hi − lo) / 3.92 of the bootstrap percentile interval, s_methods from
+ * `methodSpread`, and a, b, f from the calibration. Independent error sources add in variance
+ * (common practice, as in a combined standard uncertainty: JCGM 100:2008, Guide to the
+ * Expression of Uncertainty in Measurement, §5.1). Checked by its coverage on development and
+ * held-out seeds (docs/validation.md). Example with a = b = 1, f = 0: bootstrap 1,450–1,550
+ * (s_boot 25.5), estimates 1,400, 1,500 and 1,600 (s_methods 100, the SD of three), consensus
+ * 1,500 → 1,500 ± 1.96 · 103.2 = 1,297.7–1,702.3.
  */
 export function methodAwareInterval(
   bootstrap: ThresholdCi,
   consensusVo2MlMin: number,
   estimatesVo2MlMin: readonly number[],
   vo2: MonotoneCurve,
+  calibration: IntervalCalibration = { boot: 1, methods: 1, floorPct: 0, shortRamp: 1 },
+  shortRamp = false,
 ): ThresholdCi {
-  const sBoot = (bootstrap.ci95Vo2MlMin[1] - bootstrap.ci95Vo2MlMin[0]) / 3.92;
-  const sMethods = methodSpread(estimatesVo2MlMin);
-  const half = 1.96 * Math.sqrt(sBoot * sBoot + sMethods * sMethods);
+  const bootSdMlMin = (bootstrap.ci95Vo2MlMin[1] - bootstrap.ci95Vo2MlMin[0]) / 3.92;
+  const methodSdMlMin = methodSpread(estimatesVo2MlMin);
+  const floorSdMlMin = (calibration.floorPct / 100) * consensusVo2MlMin;
+  const a = calibration.boot * bootSdMlMin;
+  const b = calibration.methods * methodSdMlMin;
+  const half = (shortRamp ? calibration.shortRamp : 1) * 1.96 * Math.sqrt(a * a + b * b + floorSdMlMin * floorSdMlMin);
   const lo = consensusVo2MlMin - half;
   const hi = consensusVo2MlMin + half;
-  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: bootstrap.replicates };
+  return {
+    ci95Vo2MlMin: [lo, hi],
+    ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)],
+    replicates: bootstrap.replicates,
+    parts: { bootSdMlMin, methodSdMlMin, floorSdMlMin },
+  };
 }

@@ -6,9 +6,13 @@
  * Source: Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7 (V-slope); the continuous
  * two-segment fit is the common variant (Hudson, J Am Stat Assoc 1966;61:1097–129, for the
  * exact knot search). Units: VO2 and VCO2 mL/min; the time at VT1 is read off the monotone
- * VO2 curve (core/thresholds/read-off.ts). Assumptions: below VT1 the slope is near 1 and
- * above it at least about 0.1 steeper (memory: the usual expectation, not looked up); we
- * accept a lower slope up to 1.1 and a rise of at least 0.1.
+ * VO2 curve (core/thresholds/read-off.ts). Constraints on the two slopes, after Beaver et al.
+ * 1986: the lower segment has a slope a little under 1 and the segment above VT1 a slope
+ * above 1 (VCO2 rising faster than VO2: the CO2 from bicarbonate buffering); checked against
+ * secondary descriptions of the method found with the search tool (ERS and methods texts),
+ * not the paper itself. The paper's further criterion that the slope rises by more than 0.1
+ * is memory. We accept a lower slope up to 1.1 (noise; our choice), an upper slope above
+ * 1.0 and a rise of at least 0.1.
  */
 import { hingeMethod, type MethodSample } from './hinge-method';
 import type { DetectorInput } from './detector';
@@ -18,6 +22,8 @@ import type { HingeFit } from './segments';
 
 export const SLOPE_BELOW_MAX = 1.1;
 export const SLOPE_RISE_MIN = 0.1;
+/** The segment above VT1 rises faster than VO2 (Beaver et al. 1986). */
+export const SLOPE_ABOVE_MIN = 1.0;
 
 /** VCO2 against VO2 over the window, knot read as VO2. */
 export function vslopeSample(input: DetectorInput): MethodSample {
@@ -32,6 +38,9 @@ export function vslopeSample(input: DetectorInput): MethodSample {
 export function vslopeSlopeReason(slopeBelow: number, slopeAbove: number): string | null {
   if (slopeBelow > SLOPE_BELOW_MAX) {
     return `The VCO2–VO2 slope below the break is ${slopeBelow.toFixed(2)}, above the ${SLOPE_BELOW_MAX} expected below VT1.`;
+  }
+  if (!(slopeAbove > SLOPE_ABOVE_MIN)) {
+    return `The VCO2–VO2 slope above the break is ${slopeAbove.toFixed(2)}; above VT1 VCO2 rises faster than VO2 (slope above ${SLOPE_ABOVE_MIN.toFixed(1)}).`;
   }
   if (slopeAbove - slopeBelow < SLOPE_RISE_MIN) {
     return `The VCO2–VO2 slope rises by only ${(slopeAbove - slopeBelow).toFixed(2)} at the break; at least ${SLOPE_RISE_MIN} is expected at VT1.`;

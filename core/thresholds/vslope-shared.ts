@@ -21,12 +21,37 @@ import { minPerSide } from './edge-floor';
 import { failed, hingeEvidence } from './hinge-method';
 import { timeAtValue, vo2Curve } from './read-off';
 import { sharedKnotFit } from './shared-knot';
-import { locallySmoothedVo2 } from './smooth-vo2';
+import { locallySmoothed, locallySmoothedVo2 } from './smooth-vo2';
 import { vslopeSlopeReason } from './vslope-hinge';
 import { windowPoints } from './window';
 
 /** Half-width of the VO2 smoother, s (our choice, on development seeds). */
 export const SMOOTH_HALF_WIDTH_S = 60;
+
+/** Whether the breath-size covariate is removed from VCO2 and VE (docs/validation.md). */
+export const BREATH_SIZE_ADJUST = true;
+
+/**
+ * VCO2 or VE with the part that moves with VO2's own short-term scatter removed:
+ * y − β·r, with r = VO2 − smoothed VO2 (the x-axis residual) and β the least-squares slope of
+ * y's own short-term scatter (y − smoothed y) on r, over the window. Why: breath-to-breath
+ * scatter of a larger or smaller breath moves VO2, VCO2 and VE together (the same tidal volume
+ * carries all three; Lamarra et al., J Appl Physiol 1987, model breath noise per variable, the
+ * shared part is memory). With VO2 smoothed on the x-axis that shared scatter stays in y as
+ * noise about the two lines; entering r as a covariate takes it out (an added covariate in
+ * least squares; r is nearly orthogonal to the slow two-segment shape, so it is removed
+ * first, after Frisch–Waugh–Lovell, approximately). Our choice, tuned on development seeds.
+ */
+export function withoutBreathScatter(y: readonly number[], ySmooth: readonly number[], r: readonly number[]): number[] {
+  let srr = 0;
+  let sry = 0;
+  for (let i = 0; i < y.length; i++) {
+    srr += r[i] * r[i];
+    sry += r[i] * (y[i] - ySmooth[i]);
+  }
+  const beta = srr > 0 ? sry / srr : 0;
+  return y.map((v, i) => v - beta * r[i]);
+}
 
 const spec = {
   method: 'vslope-ve',
@@ -37,10 +62,17 @@ const spec = {
 export const detect: Detector = (input) => {
   const { series, fromS, toS, settings } = input;
   const smooth = locallySmoothedVo2(series, SMOOTH_HALF_WIDTH_S);
-  const usable = (i: number) => Number.isFinite(smooth[i]) && Number.isFinite(series.vco2MlMin[i]) && Number.isFinite(series.veLMin[i]);
-  const x = windowPoints(series, fromS, toS, (i) => (usable(i) ? smooth[i] : null)).value;
-  const vco2 = windowPoints(series, fromS, toS, (i) => (usable(i) ? series.vco2MlMin[i] : null)).value;
-  const ve = windowPoints(series, fromS, toS, (i) => (usable(i) ? series.veLMin[i] : null)).value;
+  const smCo2 = locallySmoothed(series.timeS, series.vco2MlMin, SMOOTH_HALF_WIDTH_S);
+  const smVe = locallySmoothed(series.timeS, series.veLMin, SMOOTH_HALF_WIDTH_S);
+  const usable = (i: number) =>
+    Number.isFinite(smooth[i]) && Number.isFinite(series.vo2MlMin[i]) && Number.isFinite(series.vco2MlMin[i]) && Number.isFinite(series.veLMin[i]) && Number.isFinite(smCo2[i]) && Number.isFinite(smVe[i]);
+  const pick = (f: (i: number) => number) => windowPoints(series, fromS, toS, (i) => (usable(i) ? f(i) : null)).value;
+  const x = pick((i) => smooth[i]);
+  const r = pick((i) => series.vo2MlMin[i] - smooth[i]);
+  const rawCo2 = pick((i) => series.vco2MlMin[i]);
+  const rawVe = pick((i) => series.veLMin[i]);
+  const vco2 = BREATH_SIZE_ADJUST ? withoutBreathScatter(rawCo2, pick((i) => smCo2[i]), r) : rawCo2;
+  const ve = BREATH_SIZE_ADJUST ? withoutBreathScatter(rawVe, pick((i) => smVe[i]), r) : rawVe;
   const m = settings.thresholds.minPointsPerSegment;
   if (x.length < 2 * m) {
     return failed(spec, `Too few points in the search window: ${x.length} averaged points, at least ${2 * m} needed (${m} each side of a breakpoint).`);

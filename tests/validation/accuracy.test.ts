@@ -1,63 +1,96 @@
-// Accuracy of the whole analysis on generated tests with known ground truth: the stated
-// physiological model of sample-tests/generator (VO2 first-order kinetics, VCO2 a broken line
-// of VO2 at the true VT1, VE a broken line of VCO2 at the true VT2, end-tidal pressures from the
-// alveolar equations, AR(1) breath noise, isolated outlier breaths). 72 tests: 3 noise levels ×
-// with/without outlier breaths × cycle ramps 10/20/30 W/min and a treadmill protocol × 3 seeds.
-// The requirement (thresholds work, issue 3): VT1 VO2 median absolute error ≤ 3 % and 95th
-// percentile ≤ 8 %; VT2 ≤ 4 % and ≤ 10 %. docs/validation.md has the figures per condition.
+// Accuracy of the whole analysis (default settings) on held-out generated tests of two
+// independently built physiological models with known thresholds: family 1
+// (sample-tests/generator: first-order VO2, broken-line VCO2 and VE, AR(1) breath noise) and
+// family B (sample-tests/kinetic-family: VCO2 lagging VO2, smooth transitions, broad VE/VCO2
+// nadir, drift, outliers). Each family in two conditions, reported separately: main (8–12 min
+// incremental phases) and hard (5–8 min, or very noisy). Seeds: held out (tests/validation/
+// heldout.ts); tuning used only the development seeds.
 //
-// Requirements not yet met are written as `it.fails`: they pass while the detectors fall short
-// and fail as soon as they meet the requirement, to be turned into plain tests then. The
-// regression guards hold the figures measured on 2026-12-01 (docs/validation.md, "VT1 window
-// and reported VO2") with a small margin. tests/validation/information-limit.test.ts shows why
-// the VT1 p95 cannot reach 8 % on this grid: an oracle told the noise-free VO2 and the true
-// window reaches only p95 21 %.
+// The requirement (issue 10; anchor: physician-versus-physician agreement of 0 ± 8 %,
+// Kaczmarek et al., Multidiscip Respir Med 2019), on the main grid of both families:
+// VT1 median |error| ≤ 3 %, p95 ≤ 10 %, median signed error within ±1.5 %; VT2 ≤ 3 %, ≤ 8 %,
+// ±1.5 %; work rate at VT1 and VT2 (cycle tests) median ≤ 4 %, p95 ≤ 12 %; the threshold
+// interval covers the truth in 93–97 % of tests in every family and condition.
+// Only the requirements met on the held-out seeds are asserted here as requirements. The unmet
+// ones are NOT asserted (a failing test would break CI); their measured figures are written in
+// docs/validation.md ("Against the requirement") and in the lead's report. A few plain bounds
+// below are marked "not the requirement": they hold the result against regression only.
 import { describe, expect, it } from 'vitest';
-import { runCases, summarise } from './measure';
+import { heldOutSets } from './heldout';
+import { measureAll, summarise, type Summary } from './measure';
 
-const results = runCases(3);
-const s = summarise(results);
+const results = new Map<string, Summary>();
+for (const set of heldOutSets()) results.set(set.name, summarise(measureAll(set.cases)));
+const s = (name: string): Summary => {
+  const v = results.get(name);
+  if (!v) throw new Error(`no held-out set ${name}`);
+  return v;
+};
 
-describe('threshold accuracy on 72 generated tests (full pipeline, default settings)', () => {
-  it('covers at least 30 seeds across the stated conditions', () => {
-    expect(s.n).toBe(72);
-    expect(new Set(results.map((r) => r.c.seed)).size).toBe(72);
+describe('held-out sets', () => {
+  it('hold 72 tests each, every threshold found in the main grids', () => {
+    for (const name of ['family 1, main', 'family 1, hard', 'family B, main', 'family B, hard']) expect(s(name).n).toBe(72);
+    for (const name of ['family 1, main', 'family B, main']) expect(s(name).vt1Misses + s(name).vt2Misses).toBe(0);
   });
+});
 
-  it('meets the VT2 median requirement: ≤ 4 %', () => {
-    expect(s.vt2Median).toBeLessThanOrEqual(4);
+describe('family 1, main grid (requirements met)', () => {
+  const m = () => s('family 1, main');
+  it('VT1 median |error| ≤ 3 %', () => expect(m().vt1Median).toBeLessThanOrEqual(3));
+  it('VT1 median signed error within ±1.5 %', () => expect(Math.abs(m().vt1Bias)).toBeLessThanOrEqual(1.5));
+  it('VT2 median |error| ≤ 3 %', () => expect(m().vt2Median).toBeLessThanOrEqual(3));
+  it('VT2 p95 ≤ 8 %', () => expect(m().vt2P95).toBeLessThanOrEqual(8));
+  it('VT2 median signed error within ±1.5 %', () => expect(Math.abs(m().vt2Bias)).toBeLessThanOrEqual(1.5));
+  it('work rate at VT2: median ≤ 4 %, p95 ≤ 12 %', () => {
+    expect(m().cycleN).toBeGreaterThanOrEqual(40);
+    expect(m().work2Median).toBeLessThanOrEqual(4);
+    expect(m().work2P95).toBeLessThanOrEqual(12);
   });
+});
 
-  it.fails('VT1 median ≤ 3 % (requirement; not met: measured 4.9 %)', () => {
-    expect(s.vt1Median).toBeLessThanOrEqual(3);
+describe('family B, main grid (requirements met)', () => {
+  const m = () => s('family B, main');
+  it('VT2 median |error| ≤ 3 %', () => expect(m().vt2Median).toBeLessThanOrEqual(3));
+  it('VT2 median signed error within ±1.5 %', () => expect(Math.abs(m().vt2Bias)).toBeLessThanOrEqual(1.5));
+  it('work rate at VT2: median ≤ 4 %, p95 ≤ 12 %', () => {
+    expect(m().cycleN).toBeGreaterThanOrEqual(30);
+    expect(m().work2Median).toBeLessThanOrEqual(4);
+    expect(m().work2P95).toBeLessThanOrEqual(12);
   });
-
-  it.fails('VT1 95th percentile ≤ 8 % (requirement; not met: measured 16.5 %, the oracle 21.0 %)', () => {
-    expect(s.vt1P95).toBeLessThanOrEqual(8);
+  it('VT1 interval covers the truth in 93–97 % of tests', () => {
+    expect(m().vt1CoveragePct).toBeGreaterThanOrEqual(93);
+    expect(m().vt1CoveragePct).toBeLessThanOrEqual(97);
   });
+});
 
-  it('meets the VT2 95th percentile requirement: ≤ 10 % (measured 9.5 %)', () => {
-    expect(s.vt2P95).toBeLessThanOrEqual(10);
+describe('family B, hard condition (requirements met)', () => {
+  const h = () => s('family B, hard');
+  it('VT1 and VT2 intervals cover the truth in 93–97 % of tests', () => {
+    for (const c of [h().vt1CoveragePct, h().vt2CoveragePct]) {
+      expect(c).toBeGreaterThanOrEqual(93);
+      expect(c).toBeLessThanOrEqual(97);
+    }
   });
+});
 
-  it('regression guard: no worse than measured (VT1 4.9 / 16.5 %, VT2 2.4 / 9.5 %, no misses)', () => {
-    expect(s.vt1Median).toBeLessThanOrEqual(5.2);
-    expect(s.vt1P95).toBeLessThanOrEqual(17.5);
-    expect(s.vt2Median).toBeLessThanOrEqual(2.7);
-    expect(s.vt1Misses + s.vt2Misses).toBe(0);
+describe('bounds that are not the requirement (regression guards, round figures)', () => {
+  it('the interval holds the truth in at least 90 % of tests in every family and condition (requirement: 93–97 %)', () => {
+    for (const r of results.values()) {
+      expect(r.vt1CoveragePct).toBeGreaterThanOrEqual(90);
+      expect(r.vt2CoveragePct).toBeGreaterThanOrEqual(90);
+    }
   });
-
-  it('95 % interval coverage of the true VO2 (measured VT1 90.3 %, VT2 81.9 %; common practice: near 95 %)', () => {
-    expect(s.vt1CoveragePct).toBeGreaterThanOrEqual(88);
-    expect(s.vt2CoveragePct).toBeGreaterThanOrEqual(78);
+  it('main grids: VT1 median ≤ 5 % and p95 ≤ 12 %; VT1 bias within ±2 % (requirement: 3 %, 10 %, ±1.5 %)', () => {
+    for (const name of ['family 1, main', 'family B, main']) {
+      expect(s(name).vt1Median).toBeLessThanOrEqual(5);
+      expect(s(name).vt1P95).toBeLessThanOrEqual(12);
+      expect(Math.abs(s(name).vt1Bias)).toBeLessThanOrEqual(2);
+    }
   });
-
-  it('VT1 interval is narrower than before the robust method spread (median width 23.3 % of VO2, was 35.7 %)', () => {
-    expect(s.vt1CiWidthPct).toBeLessThanOrEqual(25);
+  it('main grids: VT2 p95 ≤ 10 % (requirement: 8 %)', () => {
+    for (const name of ['family 1, main', 'family B, main']) expect(s(name).vt2P95).toBeLessThanOrEqual(10);
   });
-
-  it('is near-exact at the lowest noise for VT2 (noise ×0.5: median ≤ 2 %)', () => {
-    const low = summarise(results.filter((r) => r.c.noiseScale === 0.5));
-    expect(low.vt2Median).toBeLessThanOrEqual(2);
+  it('main grids: work rate at VT1 median ≤ 7 % (requirement: 4 %; p95 not bounded here)', () => {
+    for (const name of ['family 1, main', 'family B, main']) expect(s(name).work1Median).toBeLessThanOrEqual(7);
   });
 });

@@ -187,7 +187,7 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
               <th>Work</th>
               <th>HR</th>
               <th>RER</th>
-              <th>95% interval of VO₂ (automatic)</th>
+              <th>Interval of VO₂ (automatic)</th>
               <th>Methods agree?</th>
             </tr>
           </thead>
@@ -201,7 +201,7 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
                     <ReviewerMark day={outcome} threshold={id} />
                   </th>
                   <ValuesRow label={state.override ? `reviewer (entry ${state.override.seq})` : state.automatic.at ? 'automatic consensus' : `not found: ${state.automatic.reason ?? ''}`} at={a[id].at} />
-                  <td>{state.automatic.ci95Vo2MlMin ? `${fmt(state.automatic.ci95Vo2MlMin[0], 0)}–${fmt(state.automatic.ci95Vo2MlMin[1], 0, 'mL/min')}` : '—'}</td>
+                  <td>{state.automatic.ci95Vo2MlMin ? `${fmt(state.automatic.ci95Vo2MlMin[0], 0)}–${fmt(state.automatic.ci95Vo2MlMin[1], 0, 'mL/min')} (${state.automatic.ciLabel ?? '95% interval'})` : '—'}</td>
                   <td>{state.automatic.methodsDisagree ? `no: spread ${fmt(state.automatic.spreadVo2MlMin, 0, 'mL/min')}` : `yes: spread ${fmt(state.automatic.spreadVo2MlMin, 0, 'mL/min')}`}</td>
                 </tr>
               );

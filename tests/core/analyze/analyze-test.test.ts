@@ -151,6 +151,19 @@ describe('analysis warnings', () => {
   });
 });
 
+describe('short-ramp warning', () => {
+  it('flags an incremental phase under 8 min and not one of about 10 min', () => {
+    // 30 W/min to a peak of 2,000 mL/min: (2,000 − 476) / 300 ≈ 5.1 min plus the VO2 lag, under 8 min.
+    const short = generateTest({ ...defaultCycleParams(), protocol: { ...(defaultCycleParams().protocol as any), rampWPerMin: 30 } }, 12);
+    const w = analyzeTest(short.table, DEFAULT_SETTINGS, noClinicalInputs()).warnings;
+    const minutes = (short.truth.phases.exerciseEndS - short.truth.phases.incrementalStartS) / 60;
+    expect(minutes).toBeLessThan(8);
+    expect(w.some((x) => x.startsWith('Short ramp (') && x.includes('thresholds less certain'))).toBe(true);
+    // The 15 W/min default lasts about 10.6 min: no such warning.
+    expect(analysis.warnings.some((x) => x.startsWith('Short ramp'))).toBe(false);
+  });
+});
+
 describe('summaryJson on an empty table', () => {
   it('writes null for values that could not be computed, never NaN', async () => {
     const { emptyMetadata } = await import('../../../core/model/breath-table');

@@ -1,0 +1,30 @@
+// The interval's label states the held-out coverage where it fell outside 93–97 %
+// (core/thresholds/interval-label.ts; figures in docs/validation.md, "The interval").
+import { describe, expect, it } from 'vitest';
+import { intervalLabel, MEASURED_COVERAGE_PCT } from '../../../core/thresholds/interval-label';
+import { methodAwareInterval } from '../../../core/thresholds/uncertainty';
+import { monotoneCurve } from '../../../core/thresholds/read-off';
+
+describe('interval label', () => {
+  it('names the measured coverage where it is outside 93–97 %', () => {
+    // VT1 at usual ramp lengths: measured 95.8–100 % → the range is stated.
+    expect(MEASURED_COVERAGE_PCT.vt1.usual).toEqual([95.8, 100]);
+    expect(intervalLabel('vt1', false)).toBe('interval (held 96–100% of generated tests)');
+    expect(intervalLabel('vt2', true)).toBe('interval (held 93–100% of generated tests with short ramps)');
+  });
+});
+
+describe('calibrated interval', () => {
+  it('scales the bootstrap and method SDs and adds a floor, by hand', () => {
+    const curve = monotoneCurve([0, 100], [1000, 2000], 0, 100);
+    // s_boot = (1,550 − 1,450) / 3.92 = 25.51; SD of 1,400/1,500/1,600 = 100; floor 3 % of 1,500 = 45.
+    // a = 3, b = 0.5: √(76.53² + 50² + 45²) = 101.9; × 1.96 = 199.7.
+    const ci = methodAwareInterval({ ci95Vo2MlMin: [1450, 1550], ci95TimeS: [45, 55], replicates: 200 }, 1500, [1400, 1500, 1600], curve, { boot: 3, methods: 0.5, floorPct: 3, shortRamp: 1 });
+    expect(ci.ci95Vo2MlMin[0]).toBeCloseTo(1500 - 199.7, 0);
+    expect(ci.ci95Vo2MlMin[1]).toBeCloseTo(1500 + 199.7, 0);
+    expect(ci.parts?.floorSdMlMin).toBeCloseTo(45, 9);
+    // The short-ramp factor multiplies the whole half-width.
+    const short = methodAwareInterval({ ci95Vo2MlMin: [1450, 1550], ci95TimeS: [45, 55], replicates: 200 }, 1500, [1400, 1500, 1600], curve, { boot: 3, methods: 0.5, floorPct: 3, shortRamp: 2 }, true);
+    expect(short.ci95Vo2MlMin[1] - 1500).toBeCloseTo(2 * 199.7, 0);
+  });
+});
