@@ -4,7 +4,10 @@
  * a point; a cell formatted as a time of less than two days (Excel stores time as a
  * fraction of a day, epoch 1899-12-30) becomes `h:mm:ss.sss`; a date-time becomes
  * `YYYY-MM-DDTHH:MM:SS.sss`. A file that is not a readable workbook is a located error.
- * Reading is asynchronous because exceljs is.
+ * Reading is asynchronous because exceljs is. The bytes go to exceljs as a plain Uint8Array
+ * (its zip reader takes one), so the same code runs under Node and in the workbench's
+ * browser build, where exceljs resolves to its own browser bundle. exceljs is loaded on
+ * first use, so start-up does not pay for it.
  */
 import type ExcelJS from 'exceljs';
 import { fail, locatedError, ok, type Result } from '../model/errors';
@@ -52,12 +55,27 @@ function cellText(value: unknown): string {
   return '';
 }
 
+type ExcelModule = typeof ExcelJS;
+let excel: Promise<ExcelModule> | null = null;
+
+/** exceljs, imported on first use (its CommonJS and browser builds both expose `default`). */
+function loadExcel(): Promise<ExcelModule> {
+  excel ??= import('exceljs').then((m) => ((m as { default?: ExcelModule }).default ?? (m as unknown as ExcelModule)));
+  return excel;
+}
+
 export async function workbookRows(bytes: Uint8Array, file: string, sheetName: string | null): Promise<Result<WorkbookRows>> {
   // exceljs loads only when a workbook is read: a CSV never pays for it.
-  const { default: excel } = await import('exceljs');
-  const workbook = new excel.Workbook();
+  let workbook: ExcelJS.Workbook;
   try {
-    await workbook.xlsx.load(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength) as unknown as ExcelJS.Buffer);
+    workbook = new (await loadExcel()).Workbook();
+  } catch (error) {
+    // Not the user's file: the workbook reader itself could not be loaded.
+    const why = error instanceof Error ? error.message : String(error);
+    return fail(locatedError('workbook-reader', file, null, null, `Twofold could not load its Excel workbook reader (${why}); the file was not read. Export the table as CSV meanwhile.`));
+  }
+  try {
+    await workbook.xlsx.load(bytes as unknown as ExcelJS.Buffer);
   } catch (error) {
     const why = error instanceof Error ? error.message : String(error);
     return fail(locatedError('bad-workbook', file, null, null, `The file looks like an Excel workbook but cannot be opened (${why}). Save it again as .xlsx or export CSV.`));

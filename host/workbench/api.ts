@@ -68,7 +68,8 @@ export const HOST_METHODS = {
   /** The demo pair shipped in sample-tests/demo (the declining pair). */
   demoPair: {
     request: z.object({}),
-    response: z.object({ day1: filePayload, day2: filePayload, title: z.string() }),
+    /** `existingCaseId`: a saved case of this very pair (same title and files), to reopen instead of copying again. */
+    response: z.object({ day1: filePayload, day2: filePayload, title: z.string(), existingCaseId: caseId.nullable() }),
   },
   /** Makes a new case (core's `newCase`, default settings) and copies both files into its folder. */
   createCase: {
@@ -84,6 +85,14 @@ export const HOST_METHODS = {
   openCase: {
     request: z.object({ caseId }),
     response: z.object({ summary: caseSummary, day1: filePayload, day2: filePayload, caseJson: z.string() }),
+  },
+  /**
+   * Removes a just-made case whose files could not be analysed, so a failed try leaves no
+   * case behind. Refused (and the case kept) once it has reviewer log entries or reports.
+   */
+  discardCase: {
+    request: z.object({ caseId }),
+    response: z.object({ discarded: z.literal(true) }),
   },
   /** Atomic save of the case file (write a temporary file, flush, rename). */
   saveCase: {

@@ -11,12 +11,13 @@
  * (schema and hash chain) before it replaces the file atomically: a damaged or forged case
  * never reaches the disk, and a kill mid-save leaves the previous version intact.
  */
-import { mkdirSync, readdirSync, readFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BridgeError, CaseSummary, FilePayload } from './api';
 import type { ClinicalInputs } from '../../core/model/analysis';
 import type { Settings } from '../../core/model/settings';
 import { newCase } from '../../core/case/new-case';
+import { sha256Hex } from '../../core/case/sha256';
 import { caseFromText, caseToText } from '../../core/case/case-text';
 import { loadCase, saveCase } from '../case-folder';
 import { writeFileAtomic } from '../atomic-write';
@@ -112,6 +113,39 @@ export function createCaseStore(deps: CaseStoreDeps) {
       const savedAt = deps.now().toISOString();
       writeInfo(caseId, { ...info, savedAt });
       return { ok: true, value: { savedAt, bytes: Buffer.byteLength(text, 'utf8') } };
+    },
+
+    /** The most recently saved case with this title and these exact two files (by SHA-256), if any. */
+    findSame(title: string, day1: FilePayload, day2: FilePayload): string | null {
+      const want = { day1: sha256Hex(bytesOf(day1)), day2: sha256Hex(bytesOf(day2)) };
+      for (const summary of this.list()) {
+        if (summary.title !== title) continue;
+        const loaded = loadCase(folderOf(summary.caseId));
+        if (loaded.ok && loaded.value.caseFile.inputs.day1.sha256 === want.day1 && loaded.value.caseFile.inputs.day2.sha256 === want.day2) return summary.caseId;
+      }
+      return null;
+    },
+
+    /**
+     * Removes a case that holds no work: used when a new case's files could not be analysed,
+     * so a failed try leaves nothing in Recent cases. A case with any reviewer log entry or
+     * any exported report is refused and kept.
+     */
+    discardUnreviewed(caseId: string): Outcome<{ discarded: true }> {
+      const folder = folderOf(caseId);
+      const loaded = loadCase(folder);
+      if (!loaded.ok) return loaded;
+      let reports: string[] = [];
+      try {
+        reports = readdirSync(join(folder, 'reports'));
+      } catch (error) {
+        if ((error as NodeJS.ErrnoException).code !== 'ENOENT') throw error;
+      }
+      if (loaded.value.caseFile.log.length > 0 || reports.length > 0) {
+        return { ok: false, error: { code: 'case-has-work', file: loaded.value.path, line: null, column: null, message: 'The case holds reviewer log entries or reports, so it was kept.' } };
+      }
+      rmSync(folder, { recursive: true, force: true });
+      return { ok: true, value: { discarded: true } };
     },
 
     /** Most recently saved first. A folder whose files cannot be read is listed with a note. */

@@ -66,7 +66,11 @@ export function createWorkbenchService(deps: ServiceDeps): HostService {
   const mappings = createMappingStore(deps.dataDir);
 
   const service: HostService = {
-    demoPair: async () => ok(await deps.demoPair()),
+    demoPair: async () => {
+      const pair = await deps.demoPair();
+      return ok({ ...pair, existingCaseId: cases.findSame(pair.title, pair.day1, pair.day2) });
+    },
+    discardCase: (r) => guard(`case ${r.caseId}`, () => cases.discardUnreviewed(r.caseId)),
     createCase: async (r) => cases.create(r.title, r.day1, r.day2, DEFAULT_SETTINGS, r.clinical),
     openCase: (r) => guard(`case ${r.caseId}`, () => cases.open(r.caseId)),
     // Under the case's lock (host/case-lock.ts), so a save never interleaves with another writer's.

@@ -175,6 +175,7 @@ export function App({ host }: { host: HostClient }) {
       const reply = await engine.request(request);
       settle(reply);
       if (reply.type === 'view') setScreen('breakpoints');
+      return reply.type;
     },
     [engine, host, settle],
   );
@@ -182,8 +183,11 @@ export function App({ host }: { host: HostClient }) {
   const openCase = useCallback(
     async (caseId: string) => {
       const reply = await host.call('openCase', { caseId });
-      if (!reply.ok) return setError(reply.error);
-      await openFiles(reply.value);
+      if (!reply.ok) {
+        setError(reply.error);
+        return 'error' as const;
+      }
+      return openFiles(reply.value);
     },
     [host, openFiles],
   );
@@ -194,7 +198,12 @@ export function App({ host }: { host: HostClient }) {
       const created = await host.call('createCase', { title, day1, day2, clinical });
       setBusy(null);
       if (!created.ok) return setError(created.error);
-      await openCase(created.value.caseId);
+      // Files that cannot be analysed leave no case behind; the error stays on screen.
+      if ((await openCase(created.value.caseId)) === 'error') {
+        await host.call('discardCase', { caseId: created.value.caseId });
+        setSummary(null);
+        setFiles(null);
+      }
     },
     [host, openCase],
   );
@@ -202,8 +211,9 @@ export function App({ host }: { host: HostClient }) {
   const loadDemo = useCallback(async () => {
     const demo = await host.call('demoPair', {});
     if (!demo.ok) return setError(demo.error);
+    if (demo.value.existingCaseId) return void (await openCase(demo.value.existingCaseId));
     await startCase(demo.value.title, demo.value.day1, demo.value.day2, { day1: NO_CLINICAL, day2: NO_CLINICAL });
-  }, [host, startCase]);
+  }, [host, startCase, openCase]);
 
   const answerMapping = useCallback(
     async (layoutKey: string, mappingJson: string) => {
@@ -411,6 +421,7 @@ export function App({ host }: { host: HostClient }) {
             onChooseReport={() => void runCommand('report.verify', ctx)}
             onPreview={() => void preview()}
             previewUrl={previewUrl}
+            onSignOff={(who, statement) => act({ type: 'sign-off', statement, reviewer: who, at: new Date().toISOString() })}
           />
         )}
       </main>

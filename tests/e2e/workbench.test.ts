@@ -105,6 +105,18 @@ describe('browser mode, demo pair', () => {
     await page.waitForSelector('[data-testid="override-vt1"]');
     expect(await cell('[data-testid="row-vt1"]', 2)).toContain('reviewer (entry 1)');
     expect(numberIn((await cell('[data-testid="row-vt1"]', 3))!.split('(')[1])).toBe(overrideTimeS);
+    // The time reads m:ss first: e.g. 372 s → "6:12".
+    const minutes = Math.floor(overrideTimeS / 60);
+    expect((await cell('[data-testid="row-vt1"]', 3))!.startsWith(`${minutes}:${String(overrideTimeS - minutes * 60).padStart(2, '0')}`)).toBe(true);
+    // The reviewer's threshold is marked as such beside its name; day-2 VT2 stays unmarked.
+    expect(await cell('[data-testid="row-vt1"]', 1)).toContain('reviewer-set (entry 1)');
+    expect(await page.locator('[data-testid="row-vt2"] [data-testid="reviewer-mark"]').count()).toBe(0);
+    // No developer timings where a person reads them.
+    expect(await page.locator('[data-testid="timing"]').isVisible()).toBe(true); // measurable by the timing test …
+    const box = await page.locator('[data-testid="timing"]').boundingBox();
+    expect(box!.width * box!.height).toBeLessThanOrEqual(1); // … but a 1-px clip, not text on screen
+    const hidden = await page.locator('[data-testid="timing"]').innerText();
+    expect((await page.locator('body').innerText()).replace(hidden, '')).not.toMatch(/Recomputed in|analysis worker|\bms\b/);
     expect(numberIn(await cell('[data-testid="row-vt1"]', 4))).toBe(Math.round(overrideVo2));
     await page.waitForSelector('[data-testid="charts-ms"]');
     await shot('4-breakpoints-day2-override');
@@ -116,7 +128,31 @@ describe('browser mode, demo pair', () => {
     expect(numberIn(await cell(row, 3))).toBe(Math.round(overrideVo2));
     // Change % = 100 · (day 2 − day 1) / day 1, shown to one decimal.
     expect(numberIn(await cell(row, 5))).toBeCloseTo((100 * (overrideVo2 - day1)) / day1, 1);
+    // Day 2's VT1 values are the reviewer's, and say so; day 1's are automatic and carry no mark.
+    expect(await cell(row, 3)).toContain('reviewer-set (entry 1)');
+    expect(await cell(row, 2)).not.toContain('reviewer-set');
+    expect(await cell('[data-testid="metric-table"] tr[data-metric="peak_vo2"]', 3)).not.toContain('reviewer-set');
+    // The incremental phase's duration reads m:ss, computed here from core's seconds.
+    const duration = reference.comparison.metrics.find((m) => m.id === 'duration')!;
+    const whole = Math.round(duration.day1!);
+    expect(await cell('[data-testid="metric-table"] tr[data-metric="duration"]', 2)).toBe(`${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`);
     await shot('5-day-over-day-after-override');
+  });
+
+  it('records a sign-off: reviewer, role and statement required, one entry in the reviewer log', async () => {
+    await goTo('Sign-off');
+    expect(await page.locator('[data-testid="signoff-status"]').textContent()).toContain('draft');
+    await page.fill('[data-testid="signoff-who"]', 'R. Okafor');
+    await page.fill('[data-testid="signoff-role"]', '');
+    await page.fill('[data-testid="signoff-statement"]', 'Reviewed both tests; day-2 VT1 moved as logged; values accepted.');
+    // Role is required: without it the button stays disabled.
+    expect(await page.isDisabled('[data-testid="signoff-record"]')).toBe(true);
+    await page.fill('[data-testid="signoff-role"]', 'exercise physiologist');
+    await page.click('[data-testid="signoff-record"]');
+    await page.waitForFunction(() => document.querySelector('[data-testid="signoff-status"]')?.textContent?.startsWith('Signed off by'));
+    expect(await page.locator('[data-testid="signoff-status"]').textContent()).toContain('entry 2');
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(2);
+    expect(await page.locator('[data-testid="review-log"] li').nth(1).textContent()).toContain('Signed off: Reviewed both tests');
   });
 
   it('exports a signed PDF that twofold verify and pdfsig accept', async () => {
@@ -136,6 +172,10 @@ describe('browser mode, demo pair', () => {
     // poppler's own check of the CMS signature over the byte range.
     const sig = execFileSync('pdfsig', [path], { encoding: 'utf8' });
     expect(sig).toContain('Signature Validation: Signature is Valid.');
+    // The sign-off recorded on screen is the one the report states (poppler's text extraction).
+    const text = execFileSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    expect(text).toContain('Reviewed both tests');
+    expect(text).not.toContain('No sign-off statement is recorded');
 
     await page.click('text=Verify this report');
     await page.waitForSelector('[data-testid="verification"]', { timeout: 120_000 });
@@ -169,8 +209,9 @@ describe('browser mode, demo pair', () => {
     expect(await page.locator('[data-testid="override-vt1"]').textContent()).toContain('Excess-CO2 rise is clearer');
     expect(numberIn(await cell('[data-testid="row-vt1"]', 4))).toBe(Math.round(overrideVo2));
     await goTo('Sign-off');
-    // The opening entry (0) and the override (1).
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(2);
+    // The opening entry (0), the override and the sign-off, all saved.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(3);
+    expect(await page.locator('[data-testid="signoff-status"]').textContent()).toContain('R. Okafor (exercise physiologist)');
   });
 
   it('made no request outside 127.0.0.1', () => {

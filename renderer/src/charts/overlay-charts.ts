@@ -3,6 +3,7 @@
  * VO2 against time, each day's VT1 (as it now stands) marked. Day 1 solid blue, day 2 dashed
  * orange, so the days differ by line style as well as colour.
  */
+import { clockAxis } from './clock-axis';
 import type { ProcessedSeries, TestAnalysis } from '../../../core/model/analysis';
 import { DAY_COLOUR, DAY_STYLE, plotlyDash } from './palette';
 
@@ -57,11 +58,13 @@ const SPECS: readonly { id: string; key: Key; x: 'workW' | 'timeS'; title: strin
   { id: 'vo2-time', key: 'vo2MlMin', x: 'timeS', title: 'VO₂ against time', xTitle: 'Time (s)', yTitle: 'VO₂ (mL/min)' },
 ];
 
+const lastTime = (a: TestAnalysis) => a.series.timeS[a.series.timeS.length - 1] ?? 0;
+
 export function overlayCharts(day1: TestAnalysis, day2: TestAnalysis) {
   return SPECS.map((spec) => ({
     id: spec.id,
     label: `${spec.title}, both days`,
     data: [trace(day1, 1, spec.key, spec.x), trace(day2, 2, spec.key, spec.x), vt1Mark(day1, 1, spec.key, spec.x), vt1Mark(day2, 2, spec.key, spec.x)].filter((t) => t !== null),
-    layout: { title: { text: spec.title }, xaxis: { title: { text: spec.xTitle } }, yaxis: { title: { text: spec.yTitle } }, legend: { orientation: 'h', y: -0.25 } },
+    layout: { title: { text: spec.title }, xaxis: spec.x === 'timeS' ? clockAxis(Math.max(lastTime(day1), lastTime(day2))) : { title: { text: spec.xTitle } }, yaxis: { title: { text: spec.yTitle } }, legend: { orientation: 'h', y: -0.25 } },
   }));
 }

@@ -4,6 +4,7 @@
  * 95% interval, and the threshold as it now stands (automatic or reviewer's).
  * Nothing here computes an estimate; ratios such as VE/VO2 are the plotted quantities.
  */
+import { clockAxis } from './clock-axis';
 import type { MethodOutcome, ProcessedSeries, ThresholdId } from '../../../core/model/analysis';
 import type { DayOutcome, ThresholdState } from '../../../core/case/recompute';
 import { vslopeView } from '../../../core/report/vslope-view';
@@ -109,7 +110,7 @@ export function equivalentsChart(day: DayOutcome) {
     data,
     layout: {
       title: { text: 'Ventilatory equivalents against time' },
-      xaxis: { title: { text: 'Time (s)' } },
+      xaxis: clockAxis(s.timeS[s.timeS.length - 1] ?? 0),
       yaxis: { title: { text: 'VE/VO₂, VE/VCO₂ (L/L, no unit)' } },
       yaxis2: markerY2,
       legend: { orientation: 'h', y: -0.22 },
@@ -128,7 +129,7 @@ export function endTidalChart(day: DayOutcome) {
     data,
     layout: {
       title: { text: 'End-tidal pressures against time' },
-      xaxis: { title: { text: 'Time (s)' } },
+      xaxis: clockAxis(s.timeS[s.timeS.length - 1] ?? 0),
       yaxis: { title: { text: 'PetO₂, PetCO₂ (mmHg)' } },
       legend: { orientation: 'h', y: -0.22 },
       ...markLines(day, 'time'),

@@ -16,7 +16,7 @@ import { columnMapOf, type CaseFile, type DayNumber } from '../../../core/case/c
 import { withColumnMaps } from '../../../core/case/new-case';
 import { caseFromText, caseToText } from '../../../core/case/case-text';
 import { recomputeCase, recomputeValues, recordResults, type CaseOutcome, type CaseValues, type RawBytes } from '../../../core/case/recompute';
-import { recordOverride, recordWithdrawal } from '../../../core/case/review';
+import { recordOverride, recordWithdrawal, recordSignOff } from '../../../core/case/review';
 import { activeOverrides } from '../../../core/case/overrides';
 import { recordFollowUp, recordFollowUpCorrection } from '../../../core/case/follow-ups';
 import { reviewerEntries } from '../../../core/case/opening';
@@ -222,6 +222,8 @@ function handle(id: number, message: EngineRequest): void {
       return applyChange(id, (s) => recordFollowUp(s.caseFile, stamp(message.reviewer, message.at), message.report, message.reason), undefined, true);
     case 'follow-up-correction':
       return applyChange(id, (s) => recordFollowUpCorrection(s.caseFile, stamp(message.reviewer, message.at), message.seq, message.report, message.reason), undefined, true);
+    case 'sign-off':
+      return applyChange(id, (s) => recordSignOff(s.caseFile, stamp(message.reviewer, message.at), message.statement, 'Signed off on the Sign-off screen.'));
     case 'redo': {
       const item = open?.redo[open.redo.length - 1];
       if (!item) return post({ id, type: 'error', error: { code: 'nothing-to-redo', file: 'reviewer log', line: null, column: null, message: 'There is no undone threshold change to redo.' } });

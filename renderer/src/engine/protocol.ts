@@ -87,7 +87,9 @@ export type EngineRequest =
   | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string }
   // Follow-up reports (core/case/follow-ups.ts): the report is checked by core in the worker.
   | { readonly type: 'follow-up'; readonly report: unknown; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
-  | { readonly type: 'follow-up-correction'; readonly seq: number; readonly report: unknown | null; readonly reason: string; readonly reviewer: Reviewer; readonly at: string };
+  | { readonly type: 'follow-up-correction'; readonly seq: number; readonly report: unknown | null; readonly reason: string; readonly reviewer: Reviewer; readonly at: string }
+  /** A sign-off entry in the reviewer log (core/case/review.ts `recordSignOff`). */
+  | { readonly type: 'sign-off'; readonly statement: string; readonly reviewer: Reviewer; readonly at: string };
 
 /** A reply as the page sees it (views whole). */
 export type EngineReply<C = unknown> =

@@ -11,7 +11,8 @@ import { Chart } from '../charts/Chart';
 import { overlayCharts } from '../charts/overlay-charts';
 import { verdictStyle } from '../charts/palette';
 import { Caution } from '../ui/notices';
-import { fmt, prose, signed } from '../ui/format';
+import { clock, fmt, prose, signed } from '../ui/format';
+import { ReviewerMark, thresholdOfMetric } from '../ui/reviewer-mark';
 
 const MATCHED: readonly { key: MatchedVariable; label: string; unit: string; digits: number }[] = [
   { key: 'vo2MlMin', label: 'VO₂', unit: 'mL/min', digits: 0 },
@@ -20,6 +21,9 @@ const MATCHED: readonly { key: MatchedVariable; label: string; unit: string; dig
   { key: 'rer', label: 'RER', unit: '', digits: 2 },
   { key: 'veVco2', label: 'VE/VCO₂', unit: '', digits: 1 },
 ];
+
+/** A change of time as ±m:ss. */
+const signedClock = (s: number | null) => (s === null || !Number.isFinite(s) ? '—' : `${s > 0 ? '+' : s < 0 ? '−' : '±'}${clock(Math.abs(s))}`);
 
 const KIND_LABEL = { step: 'common step', vt1_day1: 'day-1 VT1 workload', vt1_day2: 'day-2 VT1 workload' } as const;
 
@@ -71,12 +75,19 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
                 <tr key={m.id} data-metric={m.id}>
                   <th scope="row">
                     {m.label}
-                    {m.unit && <span className="unit"> ({m.unit})</span>}
+                    {m.unit && m.unit !== 's' && <span className="unit"> ({m.unit})</span>}
+                    {m.unit === 's' && <span className="unit"> (m:ss)</span>}
                     {m.effortCheck && <span className="tag">effort check</span>}
                   </th>
-                  <td>{fmt(m.day1, d)}</td>
-                  <td>{fmt(m.day2, d)}</td>
-                  <td>{signed(m.delta, d, m.unit)}</td>
+                  <td>
+                    {m.unit === 's' ? clock(m.day1) : fmt(m.day1, d)}
+                    <ReviewerMark day={view.day1} threshold={thresholdOfMetric(m.id)} />
+                  </td>
+                  <td>
+                    {m.unit === 's' ? clock(m.day2) : fmt(m.day2, d)}
+                    <ReviewerMark day={view.day2} threshold={thresholdOfMetric(m.id)} />
+                  </td>
+                  <td>{m.unit === 's' ? signedClock(m.delta) : signed(m.delta, d, m.unit)}</td>
                   <td>{signed(m.deltaPct, 1, '%')}</td>
                   <td>{m.band ? `±${fmt(m.band.halfWidthPct, 1)}%` : '—'}</td>
                   <td className="verdict" data-verdict={m.verdict} title={m.reason}>

@@ -18,7 +18,7 @@ interface Props {
   readonly chooseRef: RefObject<HTMLInputElement | null>;
   readonly question: MappingQuestion | null;
   readonly onStart: (title: string, day1: FilePayload, day2: FilePayload, clinical: { day1: ClinicalInputs; day2: ClinicalInputs }) => Promise<void>;
-  readonly onOpen: (caseId: string) => Promise<void>;
+  readonly onOpen: (caseId: string) => Promise<unknown>;
   readonly onAnswerMapping: (layoutKey: string, mappingJson: string) => Promise<void>;
   readonly onError: (error: LocatedError) => void;
 }

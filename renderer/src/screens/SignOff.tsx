@@ -9,6 +9,7 @@ import type { EngineView, Reviewer } from '../engine/protocol';
 import { Caution } from '../ui/notices';
 import { clock, fmt, when } from '../ui/format';
 import { describeFollowUpAction } from '../../../core/followup/describe';
+import { SignOffEntry } from './SignOffEntry';
 
 export interface ExportState {
   readonly signers: readonly SignerInfo[];
@@ -30,6 +31,8 @@ interface Props {
   readonly onPreview: () => void;
   /** A blob: URL of the unsigned preview PDF, once built. */
   readonly previewUrl: string | null;
+  /** Records a sign-off entry in the reviewer log. */
+  readonly onSignOff: (reviewer: Reviewer, statement: string) => Promise<void>;
 }
 
 function describe(action: EngineView['log'][number]['action']): string {
@@ -48,7 +51,7 @@ function describe(action: EngineView['log'][number]['action']): string {
   }
 }
 
-export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl }: Props) {
+export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl, onSignOff }: Props) {
   const signer = state.signers.find((s) => s.id === state.signerId) ?? null;
   return (
     <div className="signoff">
@@ -106,6 +109,8 @@ export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onV
           </button>
           {previewUrl && <iframe className="preview-frame" title="Report preview (unsigned)" src={previewUrl} data-testid="preview-frame" />}
         </section>
+        <div>
+        <SignOffEntry log={view.log} reviewer={reviewer} onRecord={onSignOff} />
         <section className="panel export" aria-label="Export and verify">
           <h2>Sign and export</h2>
           <label className="field">
@@ -157,6 +162,7 @@ export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onV
             </div>
           )}
         </section>
+        </div>
       </div>
     </div>
   );

@@ -30,12 +30,23 @@ export function signed(value: number | null | undefined, digits = 0, unit = ''):
   return `${value > 0 ? '+' : value < 0 ? '−' : '±'}${fmt(Math.abs(value), digits, unit)}`;
 }
 
-/** Seconds as m:ss, with the seconds figure beside it. */
+/** Seconds as m:ss, as the report writes them (core/report/format.ts `minSec`): 372 → '6:12'. */
 export function clock(timeS: number | null | undefined): string {
   if (timeS === null || timeS === undefined || !Number.isFinite(timeS)) return '—';
-  const m = Math.floor(timeS / 60);
-  const s = Math.round(timeS - m * 60);
-  return `${m}:${String(s).padStart(2, '0')} (${Math.round(timeS)} s)`;
+  const whole = Math.round(timeS);
+  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+}
+
+/**
+ * A time the reviewer typed: m:ss (or h:mm:ss), or plain seconds. '6:12' → 372, '372' → 372,
+ * '6:12.5' → 372.5; null when it is neither.
+ */
+export function parseClock(text: string): number | null {
+  const t = text.trim().replace(',', '.');
+  if (/^[0-9]+(\.[0-9]+)?$/.test(t)) return Number(t);
+  const m = /^(?:([0-9]+):)?([0-9]+):([0-5][0-9](?:\.[0-9]+)?)$/.exec(t);
+  if (!m) return null;
+  return Number(m[1] ?? 0) * 3600 + Number(m[2]) * 60 + Number(m[3]);
 }
 
 /** An ISO 8601 date-time in the workbench's locale. */

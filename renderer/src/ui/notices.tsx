@@ -10,8 +10,13 @@ export function Caution() {
   );
 }
 
-/** "In day2.csv, line 14, column 3: …" — the place first, then the sentence. */
+/**
+ * The place first, then the sentence: "In day2.csv, line 14, column 3: …" for a file;
+ * for anything else the subject alone, "Reviewer: …", "New case: …".
+ */
 export function placeOf(error: LocatedError): string {
+  const isFile = error.line !== null || /\.[A-Za-z0-9]{1,5}$/.test(error.file);
+  if (!isFile) return error.file.charAt(0).toUpperCase() + error.file.slice(1);
   const parts = [`In ${error.file}`];
   if (error.line !== null) parts.push(`line ${error.line}`);
   if (error.column !== null) parts.push(`column ${error.column}`);

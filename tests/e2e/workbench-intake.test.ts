@@ -1,0 +1,103 @@
+/**
+ * End to end in browser mode: opening files at intake. References outside the page: core
+ * run directly in Node on the same .xlsx and CSV (the page must show exactly its VT1), the
+ * case folders on disk (a failed try leaves none), and the demo pair's own case (loading it
+ * again reopens that case rather than copying the files a second time).
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { readBreathFile } from '../../core/import/read-table';
+import { DEFAULT_SETTINGS } from '../../core/model/settings';
+import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
+import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
+import { numberIn, ROOT, SCREENSHOTS, startWorkbench, type Workbench } from './harness';
+
+const XLSX = join(ROOT, 'sample-tests', 'layouts', 'workbook', 'qh0417-day1.xlsx');
+const DAY2 = join(DEMO_FOLDER, DEMO_PAIR.day2);
+
+let bench: Workbench;
+let page: Page;
+
+const caseFolders = () => {
+  try {
+    return readdirSync(join(bench.dataDir, 'cases')).filter((n) => n.startsWith('case-'));
+  } catch {
+    return [];
+  }
+};
+
+/** Chooses a file for a day through the page's file chooser (a click on the drop area). */
+async function choose(day: 1 | 2, file: string | { name: string; mimeType: string; buffer: Buffer }) {
+  const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.locator(`.drop.day${day}`).click()]);
+  await chooser.setFiles(file);
+  await page.waitForFunction((d) => !document.querySelector(`.drop.day${d} .drop-name`)?.textContent?.startsWith('Drop a file'), day);
+}
+
+beforeAll(async () => {
+  bench = await startWorkbench();
+  page = await bench.newPage();
+  await page.goto(bench.bridge.url);
+});
+
+afterAll(async () => {
+  await bench?.close();
+});
+
+describe('browser mode, intake', () => {
+  it('a file that cannot be read names the real cause and leaves no case behind', async () => {
+    await choose(1, { name: 'broken.xlsx', mimeType: 'application/octet-stream', buffer: Buffer.from('PK\u0003\u0004 this is not a workbook') });
+    await choose(2, DAY2);
+    await page.click('text=Start case');
+    await page.waitForSelector('.error-notice', { timeout: 120_000 });
+    const message = (await page.locator('.error-notice').textContent())!;
+    expect(message).toContain('broken.xlsx');
+    expect(message).toContain('cannot be opened');
+    // The browser build reads workbooks itself: no Node-only API shows through.
+    expect(message).not.toContain('Buffer');
+    expect(caseFolders()).toEqual([]);
+    await page.reload();
+    expect(await page.locator('.recent li').count()).toBe(0);
+  });
+
+  it('opens an .xlsx chosen through the file chooser, with the VT1 core finds in Node', async () => {
+    // As `twofold analyze` reads it: the one importer (async for a workbook), then the analysis.
+    const imported = await readBreathFile(new Uint8Array(readFileSync(XLSX)), { sourceName: 'qh0417-day1.xlsx', settings: DEFAULT_SETTINGS });
+    if (!imported.ok) throw new Error(imported.error.message);
+    const reference = analyzeTest(imported.value.table, DEFAULT_SETTINGS, noClinicalInputs());
+
+    await choose(1, XLSX);
+    await choose(2, DAY2);
+    await page.fill('.intake input[placeholder^="e.g. subject"]', 'Workbook day 1, CSV day 2');
+    await page.click('text=Start case');
+    await page.waitForSelector('[data-testid="thresholds-day1"], [data-testid="mapping-step"], .error-notice', { timeout: 120_000 });
+    if (await page.locator('[data-testid="mapping-step"]').count()) {
+      await page.click('text=Use these columns and remember them for this layout');
+      await page.waitForSelector('[data-testid="thresholds-day1"], .error-notice', { timeout: 120_000 });
+    }
+    expect(await page.locator('.error-notice').count()).toBe(0);
+    expect(await page.locator('.day-tab').first().textContent()).toContain('qh0417-day1.xlsx');
+    const vt1 = numberIn(await page.locator('[data-testid="row-vt1"] > :nth-child(4)').textContent());
+    expect(vt1).toBe(Math.round(reference.vt1.at!.vo2MlMin));
+    expect(caseFolders().length).toBe(1);
+  });
+
+  it('loading the demo pair twice reopens its case instead of adding another', async () => {
+    await page.click('button[data-command="case.demo"]');
+    await page.waitForFunction(() => document.querySelector('[data-testid="case-title"]')?.textContent?.startsWith('Demo pair'), undefined, { timeout: 120_000 });
+    await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });
+    expect(caseFolders().length).toBe(2);
+    await page.click('button[data-command="case.demo"]');
+    await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });
+    expect(caseFolders().length).toBe(2);
+    await page.locator('nav.screens button', { hasText: 'Intake' }).click();
+    await page.waitForSelector('.recent li');
+    expect(await page.locator('.recent li').count()).toBe(2);
+    await page.screenshot({ path: join(SCREENSHOTS, '7b-intake-after-xlsx-and-demo.png'), fullPage: true });
+  });
+
+  it('made no request outside 127.0.0.1', () => {
+    expect(bench.outside).toEqual([]);
+  });
+});
