@@ -421,7 +421,7 @@ export function App({ host }: { host: HostClient }) {
             onChooseReport={() => void runCommand('report.verify', ctx)}
             onPreview={() => void preview()}
             previewUrl={previewUrl}
-            onSignOff={(who, statement) => act({ type: 'sign-off', statement, reviewer: who, at: new Date().toISOString() })}
+            onSignOff={async (who, statement) => { await act({ type: 'sign-off', statement, reviewer: who, at: new Date().toISOString() }); }}
           />
         )}
       </main>
