@@ -103,7 +103,7 @@ export const DEFAULT_SETTINGS: Settings = {
     rpeMin: 17,
     lactateMinMmolL: 8,
   },
-  compare: { intervalHMin: 20, intervalHMax: 52, workloadStepW: 10, bandKind: 'mdc95' },
+  compare: { intervalHMin: 18, intervalHMax: 72, workloadStepW: 10, bandKind: 'mdc95' },
   report: { paper: 'a4' },
 };
 

@@ -14,7 +14,9 @@ import type { CaseFile } from '../case/case-file';
 import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/recompute';
 import { sha256Hex } from '../case/sha256';
 import type { Comparison } from '../compare/compare-tests';
-import { bandKindLabel } from '../compare/bands';
+import { bandStatement } from '../compare/bands';
+import { verdictWords } from '../compare/change-interval';
+import { pageOne } from '../compare/page-one';
 import { CAUTIONS } from '../compare/wording';
 import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
@@ -126,8 +128,14 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
     ['Effort, day 1', day1.analysis.effort.verdict],
     ['Effort, day 2', day2.analysis.effort.verdict],
   ]);
-  L.subheading('Summary');
-  L.paragraph(comparison.summary);
+  const page = pageOne(comparison);
+  L.subheading('Finding');
+  for (const sentence of page.sentences) L.paragraph(sentence);
+  L.paragraph(`${page.bandLine} ${page.bandStatement}`, { size: 8, color: MUTED });
+  if (page.primary.rows.length > 0) {
+    L.table(page.primary.header.map((header, i) => ({ header, width: [0.24, 0.1, 0.1, 0.1, 0.16, 0.16, 0.14][i], align: i > 0 && i < 6 ? ('right' as const) : undefined })), page.primary.rows.map((r) => [...r]));
+    L.table(page.secondary.header.map((header, i) => ({ header, width: [0.3, 0.12, 0.1, 0.1, 0.08, 0.16, 0.14][i], align: i > 1 && i < 6 ? ('right' as const) : undefined })), page.secondary.rows.map((r) => [...r]));
+  }
   for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${w.message}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
 }
@@ -139,7 +147,7 @@ function rampText(day: DayOutcome): string {
 
 function comparisonSection(L: Layout, c: Comparison): void {
   L.heading('Day 2 against day 1');
-  L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${c.band.description}`, { size: 8, color: MUTED });
+  L.paragraph(bandStatement(c.band), { size: 8, color: MUTED });
   const sources: string[] = [];
   const sourceNo = (s: string) => {
     const i = sources.indexOf(s);
@@ -157,8 +165,8 @@ function comparisonSection(L: Layout, c: Comparison): void {
       fixed(m.day2, d),
       signed(m.delta, d),
       signed(m.deltaPct, 1),
-      m.band ? `±${m.band.halfWidthPct.toFixed(1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
-      verdictText(m.verdict, m.adverseBeyondBand),
+      m.band ? `${signed(m.band.lowPct, 1)}/${signed(m.band.highPct, 1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
+      verdictWords(m.verdict),
     ];
   });
   L.table(
@@ -169,27 +177,14 @@ function comparisonSection(L: Layout, c: Comparison): void {
       { header: 'Day 2', width: 0.09, align: 'right' },
       { header: 'Δ', width: 0.09, align: 'right' },
       { header: 'Δ %', width: 0.08, align: 'right' },
-      { header: 'Band ± %', width: 0.12, align: 'right' },
-      { header: 'Verdict', width: 0.18 },
+      { header: 'Reproduced %', width: 0.14, align: 'right' },
+      { header: 'Call', width: 0.16 },
     ],
     rows,
   );
   L.paragraph(sources.map((s, i) => `[${i + 1}] ${s}`).join('   '), { size: 7, color: MUTED });
   const notes = c.metrics.filter((m) => m.verdict === 'not_comparable').map((m) => `${m.label}: ${m.reason}`);
   if (notes.length > 0) L.paragraph(`Not compared. ${notes.join(' ')}`, { size: 7.5, color: MUTED });
-}
-
-function verdictText(verdict: string, adverse: boolean): string {
-  switch (verdict) {
-    case 'within':
-      return 'within band';
-    case 'decline':
-      return adverse ? 'beyond band, adverse' : 'beyond band, lower';
-    case 'rise':
-      return adverse ? 'beyond band, adverse' : 'beyond band, higher';
-    default:
-      return 'not comparable';
-  }
 }
 
 function matchedSection(L: Layout, c: Comparison): void {

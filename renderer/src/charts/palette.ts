@@ -19,8 +19,9 @@ export const DAY_COLOUR = { 1: OKABE_ITO.blue, 2: OKABE_ITO.orange } as const;
 export const THRESHOLD_COLOUR = { vt1: OKABE_ITO.bluishGreen, vt2: OKABE_ITO.reddishPurple } as const;
 
 export const VERDICT_STYLE = {
-  within: { colour: OKABE_ITO.bluishGreen, words: 'Within band' },
-  decline: { colour: OKABE_ITO.vermillion, words: 'Decline beyond band' },
-  rise: { colour: OKABE_ITO.skyBlue, words: 'Rise beyond band' },
+  held: { colour: OKABE_ITO.bluishGreen, words: 'Reproduced' },
+  fell: { colour: OKABE_ITO.vermillion, words: 'Lower on day 2' },
+  rose: { colour: OKABE_ITO.skyBlue, words: 'Higher on day 2' },
+  open: { colour: OKABE_ITO.yellow, words: 'Undetermined' },
   not_comparable: { colour: OKABE_ITO.grey, words: 'Not comparable' },
 } as const;
