@@ -73,11 +73,11 @@ export const CONTROLS_24H_BAND: BandTable = {
     'Lien et al., Physiol Rep 2019; Keller et al., J Transl Med 2024; Hodges et al., Clin Physiol Funct Imaging 2018; Nelson et al., J Transl Med 2019 (controls reproduced; verified against the abstracts). CVs: working values (memory); peak VO2 and secondary metrics from Decato et al. 2018',
   entries: {
     vt1_vo2: { cvPct: 6, source: `${WORKING}; controls' VO2 at GET unchanged at 24 h (Lien et al. 2019)` },
-    vt1_work: { cvPct: 6, source: `${WORKING}; controls' power at GET unchanged at 24 h (Lien et al. 2019)` },
+    vt1_work: { cvPct: 8, source: `${WORKING}; controls' power at GET unchanged at 24 h (Lien et al. 2019)` },
     vt1_vo2_kg: { cvPct: 6, source: `${WORKING} (body mass assumed unchanged)` },
     peak_vo2: { cvPct: 4.9, source: `${DECATO}: peak VO2 (30-day value, used for 24 h)` },
     peak_vo2_kg: { cvPct: 4.9, source: `${DECATO}: peak VO2 (30-day value, used for 24 h)` },
-    peak_work: { cvPct: 4, source: WORKING },
+    peak_work: { cvPct: 6, source: WORKING },
   },
 };
 

@@ -3,7 +3,7 @@
  * blocked in the workbench):
  *
  * - the same file for both days (equal SHA-256 of the raw bytes, when the shell gives them);
- * - the same breath series for both days: at least half of the averaged VO2 values equal to
+ * - the same breath series for both days: at least half of the averaged VO2 and of the VCO2 values equal to
  *   1e-9 relative once both are sorted (two real tests never share averaged values; a copy of
  *   one file under another name, or with edited metadata, does);
  * - day 2 starting before (or at the same time as) day 1, unless the user confirms the order
@@ -61,8 +61,8 @@ export function pairRefusals(day1: TestAnalysis, day2: TestAnalysis, inputs: Ref
   const n2 = day2.sourceName;
   if (inputs.day1Sha256 && inputs.day2Sha256 && inputs.day1Sha256 === inputs.day2Sha256) {
     out.push({ code: 'same-file', message: `The same file was given for both days: ${n1} and ${n2} have the same SHA-256 (${inputs.day1Sha256.slice(0, 16)}…). Load day 1 and day 2 from their own files.` });
-  } else if (sameSeries(day1.series.vo2MlMin, day2.series.vo2MlMin)) {
-    out.push({ code: 'same-series', message: `${n1} and ${n2} hold the same breath series (their averaged VO2 values are identical): one test was loaded for both days.` });
+  } else if (sameSeries(day1.series.vo2MlMin, day2.series.vo2MlMin) && sameSeries(day1.series.vco2MlMin, day2.series.vco2MlMin)) {
+    out.push({ code: 'same-series', message: `${n1} and ${n2} hold the same breath series (their averaged VO2 and VCO2 values are identical): one test was loaded for both days.` });
   }
   for (const [slot, test] of [[1, day1], [2, day2]] as const) {
     const stated = statedDay(test);
