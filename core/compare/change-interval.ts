@@ -6,16 +6,19 @@
  *   r = ln(day 2 / day 1), m = √(s1² + s2²)
  *   change interval   r ± 1.96 · m                       (how well this person's change is known)
  *   band              c ± 1.96 · σ                       (a reproduced test, from biology alone)
- *   limits            c ± 1.96 · √(σ² + m²)              (biology and measurement together)
+ *   limits            c ± z · √(σ² + m²)                 (biology and measurement together)
  *
- * Calls: `fell` when r lies below the lower limit, `rose` above the upper limit (a stable
- * person lands there in about 2.5 % of pairs on each side when the intervals are calibrated);
+ * Calls: `fell` when r lies below the lower limit, `rose` above the upper limit. For a
+ * secondary metric the limit uses z = 1.96 (a stable person lands beyond it in about 2.5 % of
+ * pairs on each side when the intervals are calibrated); for the four primary outcomes it uses
+ * z = 2.241, the one-sided 1.25 % point (Bonferroni over four outcomes), so that a stable
+ * person is called lower on any primary outcome in at most about 5 % of pairs;
  * `held` when the whole change interval lies inside the band; otherwise `open` (the interval
  * straddles a band edge, or measurement is too uncertain to place the change). Report words:
  * reproduced / lower on day 2 / higher on day 2 / undetermined.
  *
  * Example: VO2 at VT1 1200 → 950 mL/min (r = −0.234, −20.8 %), s1 = s2 = 0.03, CV 6 %:
- * σ = 0.0824, m = 0.0424, lower limit exp(−1.96 · 0.0927) − 1 = −16.6 % → fell.
+ * σ = 0.0824, m = 0.0424, lower limit exp(−2.2414 · 0.0927) − 1 = −18.8 % (primary) → fell.
  */
 import { Z95 } from './bands';
 import type { AppliedBand, ChangeInterval, Verdict } from './types';
@@ -29,13 +32,16 @@ export interface ChangeCall {
   readonly interval: ChangeInterval;
 }
 
-export function changeCall(day1: number, day2: number, day1Sd: number | null, day2Sd: number | null, band: AppliedBand, measurement: string): ChangeCall | null {
+/** One-sided 1.25 % normal quantile (5 % / 4 primary outcomes, Bonferroni): Φ⁻¹(0.9875). */
+export const Z_PRIMARY = 2.2414;
+
+export function changeCall(day1: number, day2: number, day1Sd: number | null, day2Sd: number | null, band: AppliedBand, measurement: string, zCall: number = Z95): ChangeCall | null {
   if (!(day1 > 0) || !(day2 > 0)) return null;
   const r = Math.log(day2 / day1);
   const m = Math.hypot(day1Sd ?? 0, day2Sd ?? 0);
   const c = Math.log(1 + band.centrePct / 100);
   const sigma = Math.SQRT2 * Math.log(1 + band.cvPct / 100);
-  const reach = Z95 * Math.hypot(sigma, m);
+  const reach = zCall * Math.hypot(sigma, m);
   const bandLow = Math.log(1 + band.lowPct / 100);
   const bandHigh = Math.log(1 + band.highPct / 100);
   const verdict: ChangeCall['verdict'] =

@@ -20,7 +20,7 @@ import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { compareTests, type Comparison } from '../../core/compare/compare-tests';
 import { normalRandom, seededRandom } from '../../core/math/random';
 import type { BreathTable } from '../../core/model/breath-table';
-import { DEFAULT_SETTINGS } from '../../core/model/settings';
+import { DEFAULT_SETTINGS, type Settings } from '../../core/model/settings';
 import { defaultCycleParams, generateTest, type TestParams } from '../../sample-tests/generator';
 
 export type PairKind = 'null' | 'decline';
@@ -72,13 +72,19 @@ function pairParams(seed: number, kind: PairKind): [TestParams, TestParams] {
   return [d1, d2];
 }
 
-export function runPairs(kind: PairKind, count: number, firstSeed: number, family: Family = FAMILY_A): PairResult[] {
+/** Settings with fewer bootstrap replicates (the tests' budget on a shared machine); null = the defaults (200). */
+export function settingsWithReplicates(replicates: number | null): Settings {
+  if (replicates === null) return DEFAULT_SETTINGS;
+  return { ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap: { ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates } } };
+}
+
+export function runPairs(kind: PairKind, count: number, firstSeed: number, family: Family = FAMILY_A, settings: Settings = DEFAULT_SETTINGS): PairResult[] {
   const out: PairResult[] = [];
   for (let i = 0; i < count; i++) {
     const seed = firstSeed + i;
     const [p1, p2] = pairParams(seed, kind);
-    const a1 = analyzeTest(family(p1, 2 * seed), DEFAULT_SETTINGS, noClinicalInputs());
-    const a2 = analyzeTest(family(p2, 2 * seed + 1), DEFAULT_SETTINGS, noClinicalInputs());
+    const a1 = analyzeTest(family(p1, 2 * seed), settings, noClinicalInputs());
+    const a2 = analyzeTest(family(p2, 2 * seed + 1), settings, noClinicalInputs());
     out.push({ kind, seed, comparison: compareTests(a1, a2, DEFAULT_SETTINGS) });
   }
   return out;
@@ -92,6 +98,8 @@ export interface PairFigures {
   readonly vt1FellPct: number;
   /** Share with "higher on day 2" on any primary outcome, %. */
   readonly anyPrimaryRosePct: number;
+  /** Share with "lower on day 2" on peak VO2 or peak workload, %. */
+  readonly peakFellPct: number;
   /** Per primary outcome: share of each call, %. */
   readonly calls: Readonly<Record<string, Readonly<Record<string, number>>>>;
 }
@@ -112,6 +120,7 @@ export function figures(results: readonly PairResult[]): PairFigures {
     anyPrimaryFellPct: share((c) => PRIMARY.some((id) => verdict(c, id) === 'fell')),
     vt1FellPct: share((c) => verdict(c, 'vt1_vo2') === 'fell' || verdict(c, 'vt1_work') === 'fell'),
     anyPrimaryRosePct: share((c) => PRIMARY.some((id) => verdict(c, id) === 'rose')),
+    peakFellPct: share((c) => verdict(c, 'peak_vo2') === 'fell' || verdict(c, 'peak_work') === 'fell'),
     calls,
   };
 }
