@@ -74,13 +74,12 @@ export async function loadAnalysis(path: string, displayName: string, settings: 
 }
 
 /**
- * Settings for analysing the tests of a batch: the breakpoint bootstrap is switched off, since
- * the batch results carry no confidence intervals and the thresholds themselves (the consensus
- * of the methods) do not depend on it (tests/cli/compare.test.ts checks this). It is nearly all
- * of an analysis's time (docs/performance.md).
+ * Settings for analysing the tests of a batch: the same as a single pair's. The day-2 calls read
+ * each threshold's interval (core/compare/measurement.ts), so the breakpoint bootstrap stays on
+ * even though it is most of an analysis's time (docs/performance.md).
  */
 export function batchAnalysisSettings(settings: Settings): Settings {
-  return { ...settings, thresholds: { ...settings.thresholds, bootstrap: { ...settings.thresholds.bootstrap, replicates: 0 } } };
+  return settings;
 }
 
 /** Settings from --settings (merged over the defaults), or the defaults. */

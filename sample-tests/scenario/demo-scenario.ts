@@ -5,8 +5,8 @@
  * Quillmoor Hill Exercise Laboratory, in the fictional town of Ambersett, at 180 m
  * (barometric pressure 745 mmHg). Patient codes QH-0417, QH-0522 and QH-0638.
  *
- *  - QH-0417, cycle ramp 15 W/min: day 2 reaches VT1 earlier, at a VO2 about 22 % lower
- *    (1300 → 1010 mL/min) and the peak about 12 % lower (2250 → 1980 mL/min), near the
+ *  - QH-0417, cycle ramp 15 W/min: day 2 reaches VT1 earlier, at a VO2 about 24 % lower
+ *    (1300 → 985 mL/min) and the peak about 15 % lower (2250 → 1920 mL/min), near the
  *    published mean two-day declines (Keller et al., J Transl Med 2014: VO2 at VT −15.8 %,
  *    peak VO2 −13.8 %). The VO2–work relation is the same on both days (ΔVO2/ΔWR 10
  *    mL/min/W), so the workload at VT1 falls further than VO2; VO2 kinetics a little slower
@@ -14,7 +14,7 @@
  *    1.10, RPE ≥ 17).
  *  - QH-0522, cycle ramp 20 W/min: day 2 reproduces day 1 within a few per cent.
  *  - QH-0638, treadmill walk with speed-and-grade steps: day 2 declines (VT1 VO2 down about
- *    22 %, peak VO2 down about 12 %).
+ *    24 %, peak VO2 down about 14 %).
  */
 import { defaultCycleParams, defaultTreadmillParams, type TestParams } from '../generator/params';
 
@@ -55,7 +55,7 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
   {
     id: 'qh0417',
     outcome: 'decline',
-    summary: 'cycle ramp; day 2 reaches VT1 earlier (VO2 about 22 % lower) and peaks about 12 % lower',
+    summary: 'cycle ramp; day 2 reaches VT1 earlier (VO2 about 24 % lower) and peaks about 15 % lower',
     day1: {
       name: 'qh0417-day1',
       seed: 41701,
@@ -93,9 +93,9 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
         barometricMmhg: LAB_BAROMETRIC_MMHG,
         vo2TauS: 50,
         cycleGainMlMinW: 10,
-        vo2PeakMlMin: 1980,
+        vo2PeakMlMin: 1920,
         plateauS: 0,
-        vt1Vo2MlMin: 1010,
+        vt1Vo2MlMin: 985,
         vt2Vo2MlMin: 1630,
         hrRestBpm: 80,
         hrPeakFractionOfPredicted: 0.93,
@@ -159,7 +159,7 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
   {
     id: 'qh0638',
     outcome: 'decline',
-    summary: 'treadmill walk; day 2 reaches VT1 at a lower VO2 (about 22 %) and an earlier speed-grade stage',
+    summary: 'treadmill walk; day 2 reaches VT1 at a lower VO2 (about 24 %) and an earlier speed-grade stage',
     day1: {
       name: 'qh0638-day1',
       seed: 63801,
@@ -191,9 +191,9 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
         testStart: '2026-05-21T10:40:00+02:00',
         barometricMmhg: LAB_BAROMETRIC_MMHG,
         vo2TauS: 45,
-        vo2PeakMlMin: 1670,
+        vo2PeakMlMin: 1625,
         plateauS: 0,
-        vt1Vo2MlMin: 815,
+        vt1Vo2MlMin: 800,
         vt2Vo2MlMin: 1370,
         hrRestBpm: 78,
         hrPeakFractionOfPredicted: 0.93,
