@@ -22,6 +22,7 @@ import { normalRandom, seededRandom } from '../../core/math/random';
 import type { BreathTable } from '../../core/model/breath-table';
 import { DEFAULT_SETTINGS, type Settings } from '../../core/model/settings';
 import { defaultCycleParams, generateTest, type TestParams } from '../../sample-tests/generator';
+import { generateKineticTest, kineticCase, type KineticParams } from '../../sample-tests/kinetic-family';
 
 export type PairKind = 'null' | 'decline';
 
@@ -123,4 +124,42 @@ export function figures(results: readonly PairResult[]): PairFigures {
     peakFellPct: share((c) => verdict(c, 'peak_vo2') === 'fell' || verdict(c, 'peak_work') === 'fell'),
     calls,
   };
+}
+
+/**
+ * Family B (sample-tests/kinetic-family: VO2 kinetics with VCO2 lagging, smooth softplus
+ * transitions, drift): one subject per seed from its 'main' grid (cycle or treadmill), the
+ * same biological variation and declines as above applied to its VT1, VT2 and peak metabolic
+ * rates, the protocol unchanged. A day-2 parameter set the model cannot simulate (a threshold
+ * no longer crossed) is skipped and counted, never hidden.
+ */
+export function runPairsB(kind: PairKind, count: number, firstSeed: number, settings: Settings = DEFAULT_SETTINGS): { results: PairResult[]; skipped: number } {
+  const out: PairResult[] = [];
+  let skipped = 0;
+  for (let seed = firstSeed; out.length < count; seed++) {
+    const base = kineticCase('main', seed).params;
+    const r = seededRandom(seed * 7877 + 11);
+    const z = normalRandom(r);
+    const day = (vt1Factor: number, peakFactor: number): KineticParams => {
+      const b1 = Math.exp(z() * Math.log(1 + BIO_CV.vt1));
+      const bp = Math.exp(z() * Math.log(1 + BIO_CV.peak));
+      const peak = Math.round(base.vo2PeakMlMin * peakFactor * bp);
+      return { ...base, vo2PeakMlMin: peak, vt1Vo2MlMin: Math.round(base.vt1Vo2MlMin * vt1Factor * b1), vt2Vo2MlMin: Math.min(Math.round(base.vt2Vo2MlMin * peakFactor * bp), peak - 50) };
+    };
+    const p1 = day(1, 1);
+    const p2 = kind === 'null' ? day(1, 1) : day(1 + KELLER_2014.vt1Vo2Pct / 100, 1 + KELLER_2014.peakVo2Pct / 100);
+    const stamp = (table: BreathTable, n: 1 | 2): BreathTable => ({
+      ...table,
+      sourceName: `pairB-${seed}-day${n}`,
+      metadata: { ...table.metadata, subjectId: `PB-${seed}`, testStart: n === 1 ? '2026-05-04T09:00:00Z' : '2026-05-05T09:10:00Z', extra: { ...table.metadata.extra, day: String(n) } },
+    });
+    try {
+      const a1 = analyzeTest(stamp(generateKineticTest(p1, 2 * seed).table, 1), settings, noClinicalInputs());
+      const a2 = analyzeTest(stamp(generateKineticTest(p2, 2 * seed + 1).table, 2), settings, noClinicalInputs());
+      out.push({ kind, seed, comparison: compareTests(a1, a2, settings) });
+    } catch {
+      skipped++;
+    }
+  }
+  return { results: out, skipped };
 }
