@@ -129,9 +129,9 @@ export const SETTING_SOURCES: Readonly<Record<string, string>> = {
   'effort.hrPctMin': 'common practice; Howley, Bassett & Welch 1995',
   'effort.rpeMin': 'Borg, Med Sci Sports Exerc 1982;14:377–81; threshold 17 common practice',
   'effort.lactateMinMmolL': 'common practice (no single source)',
-  'compare.intervalHMin': 'common practice for two-day testing (about 24 h apart)',
-  'compare.intervalHMax': 'common practice for two-day testing (about 24 h apart)',
+  'compare.intervalHMin': 'common practice for two-day testing (about 24 h apart); 18–72 h stated on page 1 when outside',
+  'compare.intervalHMax': 'common practice for two-day testing (about 24 h apart); 18–72 h stated on page 1 when outside',
   'compare.workloadStepW': 'common practice',
-  'compare.bandKind': 'minimal detectable change MDC95 (Weir, J Strength Cond Res 2005; Hopkins, Sports Med 2000;30:1–15)',
+  'compare.bandKind': 'kept so older case files validate; no decision rule (calls read the change interval: core/compare/change-interval.ts; Hopkins, Sports Med 2000;30:1–15; Weir, J Strength Cond Res 2005)',
   'report.paper': 'user choice',
 };
