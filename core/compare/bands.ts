@@ -97,8 +97,9 @@ export function bandStatement(table: BandTable): string {
   return `${table.description}. Population: ${table.population}. Retest interval: ${table.retestInterval}. Statistic: ${table.statistic}. Source: ${table.source}.`;
 }
 
+/** Percent from a log value, rounded to 1e-9 % so every JavaScript engine records the same number. */
 function pct(logValue: number): number {
-  return 100 * (Math.exp(logValue) - 1);
+  return Math.round(1e9 * 100 * (Math.exp(logValue) - 1)) / 1e9;
 }
 
 /** The band of one CV and mean change. Example: CV 10.4 %, mean 0 → −24.0 % / +31.6 %. */

@@ -23,9 +23,19 @@
 import { Z95 } from './bands';
 import type { AppliedBand, ChangeInterval, Verdict } from './types';
 
-function pct(logValue: number): number {
-  return 100 * (Math.exp(logValue) - 1);
+/**
+ * Percent from a log ratio, rounded to 1e-9 %: exp and log may differ in the last bit between
+ * JavaScript engines (the workbench's and the CLI's), and the case file records these numbers.
+ */
+export function tidyPct(logValue: number): number {
+  return Math.round(1e9 * 100 * (Math.exp(logValue) - 1)) / 1e9;
 }
+
+function tidy(value: number): number {
+  return Math.round(1e12 * value) / 1e12;
+}
+
+const pct = tidyPct;
 
 export interface ChangeCall {
   readonly verdict: Exclude<Verdict, 'not_comparable'>;
@@ -38,10 +48,10 @@ export const Z_PRIMARY = 2.2414;
 export function changeCall(day1: number, day2: number, day1Sd: number | null, day2Sd: number | null, band: AppliedBand, measurement: string, zCall: number = Z95): ChangeCall | null {
   if (!(day1 > 0) || !(day2 > 0)) return null;
   const r = Math.log(day2 / day1);
-  const m = Math.hypot(day1Sd ?? 0, day2Sd ?? 0);
+  const m = Math.sqrt((day1Sd ?? 0) ** 2 + (day2Sd ?? 0) ** 2);
   const c = Math.log(1 + band.centrePct / 100);
   const sigma = Math.SQRT2 * Math.log(1 + band.cvPct / 100);
-  const reach = zCall * Math.hypot(sigma, m);
+  const reach = zCall * Math.sqrt(sigma * sigma + m * m);
   const bandLow = Math.log(1 + band.lowPct / 100);
   const bandHigh = Math.log(1 + band.highPct / 100);
   const verdict: ChangeCall['verdict'] =
@@ -52,8 +62,8 @@ export function changeCall(day1: number, day2: number, day1Sd: number | null, da
       changePct: pct(r),
       lowPct: pct(r - Z95 * m),
       highPct: pct(r + Z95 * m),
-      day1Sd,
-      day2Sd,
+      day1Sd: day1Sd === null ? null : tidy(day1Sd),
+      day2Sd: day2Sd === null ? null : tidy(day2Sd),
       limitLowPct: pct(c - reach),
       limitHighPct: pct(c + reach),
       measurement,

@@ -118,7 +118,7 @@ export function measurementSd(test: TestAnalysis, id: MetricId): MeasurementSd {
     case 'peak_o2_pulse': {
       const a = peakSd(test, 'vo2MlMin');
       const b = peakSd(test, 'hrBpm');
-      return { sd: a !== null && b !== null ? Math.hypot(a, b) : null, how: 'the scatter of VO2 and HR over the peak averaging window' };
+      return { sd: a !== null && b !== null ? Math.sqrt(a * a + b * b) : null, how: 'the scatter of VO2 and HR over the peak averaging window' };
     }
     case 'peak_work':
       return { sd: 0, how: 'the load set by the ergometer (no measurement uncertainty)' };

@@ -3,8 +3,8 @@
  * blocked in the workbench):
  *
  * - the same file for both days (equal SHA-256 of the raw bytes, when the shell gives them);
- * - the same breath series for both days: at least half of the averaged VO2 and of the VCO2 values equal to
- *   1e-9 relative once both are sorted (two real tests never share averaged values; a copy of
+ * - the same breath series for both days: at least half of the averaged VO2 and of the VCO2
+ *   values of one day found, exactly, among the other day's (two real tests never share averaged values; a copy of
  *   one file under another name, or with edited metadata, does);
  * - day 2 starting before (or at the same time as) day 1, unless the user confirms the order
  *   (`allowOrder`: the CLI's --allow-order, the workbench's swap or confirm);
@@ -32,21 +32,10 @@ const SAME_SHARE = 0.5;
 
 function sameSeries(a: readonly number[], b: readonly number[]): boolean {
   if (a.length === 0 || b.length === 0) return false;
-  const x = [...a].sort((p, q) => p - q);
-  const y = [...b].sort((p, q) => p - q);
-  let i = 0;
-  let j = 0;
+  const seen = new Set(a);
   let equal = 0;
-  while (i < x.length && j < y.length) {
-    const tol = 1e-9 * Math.max(1, Math.abs(x[i]));
-    if (Math.abs(x[i] - y[j]) <= tol) {
-      equal++;
-      i++;
-      j++;
-    } else if (x[i] < y[j]) i++;
-    else j++;
-  }
-  return equal >= SAME_SHARE * Math.max(x.length, y.length);
+  for (const v of b) if (seen.has(v)) equal++;
+  return equal >= SAME_SHARE * Math.max(a.length, b.length);
 }
 
 function statedDay(test: TestAnalysis): string | null {

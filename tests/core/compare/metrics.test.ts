@@ -53,9 +53,10 @@ describe('compareMetrics', () => {
     const d2 = { ...wide(1200), vt1: { ...wide(1200).vt1, ci95Vo2MlMin: [900, 1500] as const } };
     const row = find(compareMetrics(d1, d2), 'vt1_vo2');
     // s1 = ln(1900/1100)/3.92 = 0.1394, s2 = ln(1500/900)/3.92 = 0.1303, m = 0.1908;
-    // limit = −1.96·√(0.0824² + 0.1908²) = −0.4074 → −33.5 %; r = ln 0.8 = −0.223 → not lower
+    // primary limit = −2.2414·√(0.0824² + 0.1908²) = −2.2414 · 0.2078 = −0.4658 → −37.2 %;
+    // r = ln 0.8 = −0.223 → not lower
     expect(row.verdict).toBe('open');
-    expect(row.interval!.limitLowPct).toBeCloseTo(-33.5, 0);
+    expect(row.interval!.limitLowPct).toBeCloseTo(-37.2, 0);
   });
 
   it('peak metrics are not comparable when either test was not maximal; threshold metrics still are', () => {
