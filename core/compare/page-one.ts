@@ -18,8 +18,10 @@ export interface PageOneTable {
 export interface PageOne {
   /** One neutral sentence per primary finding (or the refusals, when the pair was refused). */
   readonly sentences: readonly string[];
-  /** "Band: population, retest interval …" and the full statement with statistic and source. */
+  /** "Band: population; retest interval …" and the full statement with statistic and source. */
   readonly bandLine: string;
+  /** "Statistic: …. Source: …." of the band. */
+  readonly bandBasis: string;
   readonly bandStatement: string;
   readonly primary: PageOneTable;
   readonly secondary: PageOneTable;
@@ -65,7 +67,8 @@ export function pageOne(c: Comparison): PageOne {
   const sentences = c.refusals.length > 0 ? c.refusals.map((r) => `Not compared: ${r.message}`) : c.findings.map((f) => f.sentence);
   return {
     sentences,
-    bandLine: `Band: ${c.band.population}; retest interval ${c.band.retestInterval}.`,
+    bandLine: `Band: ${c.band.population}; retest interval ${c.band.retestInterval} (${c.band.description}).`,
+    bandBasis: `Statistic: ${c.band.statistic}. Source: ${c.band.source}.`,
     bandStatement: bandStatement(c.band),
     primary: {
       header: ['Primary outcome', 'Day 1', 'Day 2', 'Change %', 'Change interval %', 'Reproduced range %', 'Call'],

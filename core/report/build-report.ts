@@ -131,13 +131,13 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
   const page = pageOne(comparison);
   L.subheading('Finding');
   for (const sentence of page.sentences) L.paragraph(sentence);
-  L.paragraph(`${page.bandLine} ${page.bandStatement}`, { size: 8, color: MUTED });
-  if (page.primary.rows.length > 0) {
-    L.table(page.primary.header.map((header, i) => ({ header, width: [0.24, 0.1, 0.1, 0.1, 0.16, 0.16, 0.14][i], align: i > 0 && i < 6 ? ('right' as const) : undefined })), page.primary.rows.map((r) => [...r]));
-    L.table(page.secondary.header.map((header, i) => ({ header, width: [0.3, 0.12, 0.1, 0.1, 0.08, 0.16, 0.14][i], align: i > 1 && i < 6 ? ('right' as const) : undefined })), page.secondary.rows.map((r) => [...r]));
-  }
+  L.paragraph(`${page.bandLine} ${page.bandBasis}`, { size: 8, color: MUTED });
+  const table = (t: typeof page.primary, widths: readonly number[], firstNumeric: number) =>
+    L.table(t.header.map((header, i) => ({ header, width: widths[i], align: i >= firstNumeric && i < t.header.length - 1 ? ('right' as const) : undefined })), t.rows.map((r) => [...r]));
+  if (page.primary.rows.length > 0) table(page.primary, [0.24, 0.1, 0.1, 0.1, 0.16, 0.16, 0.14], 1);
   for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${w.message}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
+  if (page.secondary.rows.length > 0) table(page.secondary, [0.3, 0.12, 0.1, 0.1, 0.08, 0.16, 0.14], 2);
 }
 
 function rampText(day: DayOutcome): string {
