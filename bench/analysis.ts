@@ -12,7 +12,7 @@ import { median, quantile } from '../core/math/stats';
 import { defaultCycleParams, generateTest, type TestParams } from '../sample-tests/generator';
 
 /** A long, fast-breathing 12 W/min ramp: a fit man breathing ~16/min at rest gives ~1,500 breaths. */
-function longTestParams(): TestParams {
+export function longTestParams(): TestParams {
   const base = defaultCycleParams();
   if (base.protocol.kind !== 'cycle-ramp') throw new Error('the default protocol is expected to be a cycle ramp');
   return {

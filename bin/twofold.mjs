@@ -1,7 +1,8 @@
 #!/usr/bin/env node
-// Entry point of the `twofold` command: runs the TypeScript command line through tsx.
-import { register } from 'tsx/esm/api';
+// Entry point of the `twofold` command: runs the compiled command line (dist/cli/), built
+// from the TypeScript sources on the first run and again whenever a source changed
+// (scripts/cli-build.mjs).
+import { currentCliBuild } from '../scripts/cli-build.mjs';
 
-register();
-const { main } = await import('../cli/main.ts');
+const { main } = await import(await currentCliBuild());
 process.exitCode = await main(process.argv.slice(2));

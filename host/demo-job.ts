@@ -8,7 +8,7 @@
  */
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
-import { writeFileSync, mkdirSync } from 'node:fs';
+import { existsSync, writeFileSync, mkdirSync } from 'node:fs';
 import { newCase } from '../core/case/new-case';
 import { recordOverride, recordSignOff, type Reviewer } from '../core/case/review';
 import { noClinicalInputs } from '../core/analyze/analyze-test';
@@ -17,7 +17,17 @@ import type { Result } from '../core/model/errors';
 import { demoCertificate } from './demo-certificate';
 import { readRaw, recordCase, runReportJob, type ReportJobResult } from './report-job';
 
-export const DEMO_FOLDER = join(dirname(fileURLToPath(import.meta.url)), '..', 'sample-tests', 'demo');
+/** sample-tests/demo in the nearest folder above this module that has one (the sources, or the built command line in dist/). */
+function demoFolder(): string {
+  const start = dirname(fileURLToPath(import.meta.url));
+  for (let dir = start; ; dir = dirname(dir)) {
+    const candidate = join(dir, 'sample-tests', 'demo');
+    if (existsSync(candidate)) return candidate;
+    if (dirname(dir) === dir) return join(start, '..', 'sample-tests', 'demo');
+  }
+}
+
+export const DEMO_FOLDER = demoFolder();
 export const DEMO_PAIR = { day1: 'qh0417-day1.csv', day2: 'qh0417-day2.csv' } as const;
 export const DEMO_REVIEWER = 'A. Demo, exercise physiologist (demonstration)';
 

@@ -7,7 +7,6 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
-import { settingsFromJson } from '../../core/analyze/settings-input';
 import { summaryJson } from '../../core/analyze/summary-json';
 import { readBreathFile } from '../../core/import/read-table';
 import type { BreathTable, TestMetadata } from '../../core/model/breath-table';
@@ -112,6 +111,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (values.settings !== undefined) {
     const bytes = readBytes(resolve(io.cwd, values.settings), values.settings);
     if (!(bytes instanceof Uint8Array)) return badInput(io, bytes);
+    // The settings validator (zod) loads only when a settings file is given.
+    const { settingsFromJson } = await import('../../core/analyze/settings-input');
     const parsed = settingsFromJson(new TextDecoder().decode(bytes), values.settings);
     if (!parsed.ok) return badInput(io, parsed.error);
     settings = parsed.value;

@@ -174,6 +174,18 @@ function tsxApiUrl(): string {
   return pathToFileURL(resolve(dirname(packageJson), exportsField['./esm/api'].import.default)).href;
 }
 
+/**
+ * A batch worker running this module. From the built command line (dist/cli/, JavaScript)
+ * the worker loads the same compiled chunk straight away; run from the TypeScript sources
+ * (tests, tsx) it registers tsx first.
+ */
+function batchWorker(data: Record<string, unknown>): Worker {
+  const entry = import.meta.url;
+  if (!entry.endsWith('.ts')) return new Worker(new URL(entry), { workerData: data });
+  const bootstrap = `const { workerData } = require('node:worker_threads'); import(workerData.tsxApi).then((api) => { api.register(); return import(workerData.entry); });`;
+  return new Worker(bootstrap, { eval: true, workerData: { ...data, tsxApi: tsxApiUrl(), entry } });
+}
+
 /** Run every pair, on worker threads when there are enough pairs to pay for starting them. */
 async function runPairs(pairs: readonly ResolvedPair[], settings: Settings, band: BandTable, workers: number, onDone: (done: number) => void): Promise<PairResult[]> {
   const results: PairResult[] = new Array(pairs.length);
@@ -185,15 +197,11 @@ async function runPairs(pairs: readonly ResolvedPair[], settings: Settings, band
     }
     return results;
   }
-  const tsxApi = tsxApiUrl();
-  const entry = import.meta.url;
-  // The worker registers tsx itself, so it can load this TypeScript module as its entry.
-  const bootstrap = `const { workerData } = require('node:worker_threads'); import(workerData.tsxApi).then((api) => { api.register(); return import(workerData.entry); });`;
   let next = 0;
   await Promise.all(
     Array.from({ length: Math.min(workers, pairs.length) }, () =>
       new Promise<void>((settle) => {
-        const worker = new Worker(bootstrap, { eval: true, workerData: { role: WORKER_ROLE, tsxApi, entry, settings, band } });
+        const worker = batchWorker({ role: WORKER_ROLE, settings, band });
         const feed = () => {
           if (next >= pairs.length) {
             void worker.terminate().then(() => settle());

@@ -35,7 +35,7 @@ export const settingsSchema = z.strictObject({
   thresholds: z.strictObject({
     minPointsPerSegment: z.number().int().min(2),
     disagreementPct: positive,
-    bootstrap: z.strictObject({ replicates: z.number().int().min(0), seed: z.number().int() }),
+    bootstrap: z.strictObject({ replicates: z.number().int().min(0), seed: z.number().int(), checkEvery: z.number().int().min(0).optional(), stableWithinPct: z.number().nonnegative().optional() }),
   }),
   peaks: z.strictObject({ windowS: positive }),
   effort: z.strictObject({

@@ -6,7 +6,7 @@
  * `YYYY-MM-DDTHH:MM:SS.sss`. A file that is not a readable workbook is a located error.
  * Reading is asynchronous because exceljs is.
  */
-import ExcelJS from 'exceljs';
+import type ExcelJS from 'exceljs';
 import { fail, locatedError, ok, type Result } from '../model/errors';
 
 const EXCEL_EPOCH_MS = Date.UTC(1899, 11, 30);
@@ -53,7 +53,9 @@ function cellText(value: unknown): string {
 }
 
 export async function workbookRows(bytes: Uint8Array, file: string, sheetName: string | null): Promise<Result<WorkbookRows>> {
-  const workbook = new ExcelJS.Workbook();
+  // exceljs loads only when a workbook is read: a CSV never pays for it.
+  const { default: excel } = await import('exceljs');
+  const workbook = new excel.Workbook();
   try {
     await workbook.xlsx.load(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength) as unknown as ExcelJS.Buffer);
   } catch (error) {

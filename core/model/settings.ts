@@ -50,7 +50,19 @@ export interface Settings {
     readonly minPointsPerSegment: number;
     /** Methods disagree when their VO2 estimates span more than this share of the consensus. */
     readonly disagreementPct: number;
-    readonly bootstrap: { readonly replicates: number; readonly seed: number };
+    readonly bootstrap: {
+      /** The most replicates drawn. */
+      readonly replicates: number;
+      readonly seed: number;
+      /**
+       * Early stop (core/thresholds/uncertainty.ts): every `checkEvery` replicates the interval
+       * is formed again, and drawing stops once both of its ends moved by less than
+       * `stableWithinPct` % of its width since the previous check. Absent or 0: all replicates
+       * (case files written before the rule existed recompute exactly as they were made).
+       */
+      readonly checkEvery?: number;
+      readonly stableWithinPct?: number;
+    };
   };
   readonly peaks: {
     /** Peak values are the highest rolling mean over this window. */
@@ -91,7 +103,7 @@ export const DEFAULT_SETTINGS: Settings = {
   thresholds: {
     minPointsPerSegment: 8,
     disagreementPct: 10,
-    bootstrap: { replicates: 200, seed: 20260101 },
+    bootstrap: { replicates: 200, seed: 20260101, checkEvery: 50, stableWithinPct: 5 },
   },
   peaks: { windowS: 30 },
   effort: {
@@ -120,7 +132,7 @@ export const SETTING_SOURCES: Readonly<Record<string, string>> = {
   'clean.phases': 'detected from the load; user override',
   'thresholds.minPointsPerSegment': 'common practice (no single source)',
   'thresholds.disagreementPct': 'common practice (no single source)',
-  'thresholds.bootstrap': 'residual bootstrap of the breakpoint fit, seeded for reproducibility',
+  'thresholds.bootstrap': 'residual bootstrap of the breakpoint fit, seeded for reproducibility; early stop when the interval is stable is our choice',
   'peaks.windowS': 'common practice (30 s rolling mean)',
   'effort.rerMin': 'Balady et al., Circulation 2010;122:191–225; ATS/ACCP, Am J Respir Crit Care Med 2003;167:211–77',
   'effort.plateauMlMin': 'Taylor, Buskirk & Henschel, J Appl Physiol 1955;8:73–80; Howley, Bassett & Welch, Med Sci Sports Exerc 1995;27:1292–301',

@@ -114,29 +114,7 @@ export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, al
   return { x, y, mx, my, sx, sy, sxx, sxy, syy };
 }
 
-/**
- * The same x with new y values (same length, same order), reusing `scratch` for the y prefix
- * sums: the bootstrap refits one x many times and should not allocate for each replicate.
- */
-export function replaceY(p: PreparedPoints, yIn: ArrayLike<number>, scratch: YScratch): PreparedPoints {
-  const n = p.x.length;
-  const { y, sy, sxy, syy } = scratch;
-  let my = 0;
-  for (let i = 0; i < n; i++) {
-    y[i] = yIn[i];
-    my += y[i];
-  }
-  my = n > 0 ? my / n : 0;
-  for (let i = 0; i < n; i++) {
-    const cx = p.x[i] - p.mx;
-    const cy = y[i] - my;
-    sy[i + 1] = sy[i] + cy;
-    sxy[i + 1] = sxy[i] + cx * cy;
-    syy[i + 1] = syy[i] + cy * cy;
-  }
-  return { x: p.x, y, mx: p.mx, my, sx: p.sx, sy, sxx: p.sxx, sxy, syy };
-}
-
+/** Reusable y arrays of one set of points, so the bootstrap allocates nothing per replicate. */
 export interface YScratch {
   readonly y: Float64Array;
   readonly sy: Float64Array;

@@ -21,6 +21,7 @@
  * interval shows how far noise moves the consensus; a bias the methods share is not in it.
  */
 import type { MethodOutcome } from '../model/analysis';
+import type { Settings } from '../model/settings';
 import { seededRandom, type Random } from '../math/random';
 import { median, quantile, sampleSd } from '../math/stats';
 import type { DetectorInput } from './detector';
@@ -28,7 +29,7 @@ import { minPerSide } from './edge-floor';
 import { fitSample, type MethodSample } from './hinge-method';
 import { HINGE_METHODS } from './methods';
 import { timeAtValue, type MonotoneCurve } from './read-off';
-import { hingeFit, hingeValue, replaceY, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
+import { hingeFit, hingeValue, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
 import { vslopeSample } from './vslope-hinge';
 
 export interface ThresholdCi {
@@ -43,6 +44,8 @@ interface Refit {
   readonly scratch: YScratch;
   readonly fitted: Float64Array;
   readonly residuals: Float64Array;
+  /** x − mean x of the base points, for the replicate's prefix sums. */
+  readonly centredX: Float64Array;
   readonly block: number;
   readonly estimate: (p: PreparedPoints) => number | null;
 }
@@ -81,12 +84,15 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
     fitted[i] = hingeValue(fit, p.x[i]);
     residuals[i] = p.y[i] - fitted[i];
   }
+  const centredX = new Float64Array(n);
+  for (let i = 0; i < n; i++) centredX[i] = p.x[i] - p.mx;
   const s = sample;
   return {
     base: p,
     scratch: yScratch(n),
     fitted,
     residuals,
+    centredX,
     block: blockLength(residuals),
     estimate: (q) => {
       const knot = estimateKnot(q);
@@ -97,14 +103,55 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
   };
 }
 
-function resample(r: Refit, random: Random, out: Float64Array): void {
-  const n = r.residuals.length;
+/**
+ * One replicate of a method's points: fitted values plus residuals drawn in moving blocks,
+ * written straight into the refit's scratch arrays, with the y prefix sums accumulated in the
+ * same pass. The sums are centred on the original points' mean (the fits only take
+ * differences of the sums, so any fixed centre gives the same fit; this one needs no second
+ * pass over the replicate).
+ */
+function resampleInto(r: Refit, random: Random): PreparedPoints {
+  const { base, scratch, fitted, residuals, centredX } = r;
+  const { y, sy, sxy, syy } = scratch;
+  const n = residuals.length;
   const L = r.block;
+  const centre = base.my;
   let i = 0;
   while (i < n) {
-    const start = Math.floor(random() * (n - L + 1));
-    for (let k = 0; k < L && i < n; k++, i++) out[i] = r.fitted[i] + r.residuals[start + k];
+    const shift = Math.floor(random() * (n - L + 1)) - i;
+    const end = Math.min(n, i + L);
+    for (; i < end; i++) {
+      const v = fitted[i] + residuals[i + shift];
+      const cy = v - centre;
+      y[i] = v;
+      sy[i + 1] = sy[i] + cy;
+      sxy[i + 1] = sxy[i] + centredX[i] * cy;
+      syy[i + 1] = syy[i] + cy * cy;
+    }
   }
+  return { x: base.x, y, mx: base.mx, my: centre, sx: base.sx, sy, sxx: base.sxx, sxy, syy };
+}
+
+/** Early-stop rule of the settings; `checkEvery` 0 draws every replicate. */
+interface StopRule {
+  readonly checkEvery: number;
+  readonly stableWithinPct: number;
+}
+
+/** The percentile interval of the combined replicates so far; null with fewer than 2. */
+function percentileEnds(replicates: readonly (readonly number[])[], combine: (values: readonly number[]) => number): readonly [number, number] | null {
+  const estimates: number[] = [];
+  for (const r of replicates) {
+    const values = r.filter(Number.isFinite);
+    if (values.length > 0) estimates.push(combine(values));
+  }
+  return estimates.length < 2 ? null : [quantile(estimates, 0.025), quantile(estimates, 0.975)];
+}
+
+/** True when neither end moved by more than the tolerance, a share of the newer interval's width. */
+export function intervalIsStable(before: readonly [number, number], after: readonly [number, number], stableWithinPct: number): boolean {
+  const tolerance = (stableWithinPct / 100) * (after[1] - after[0]);
+  return Math.abs(after[0] - before[0]) <= tolerance && Math.abs(after[1] - before[1]) <= tolerance;
 }
 
 /** Each found method's estimate, refitted in every bootstrap replicate (NaN where a refit failed). */
@@ -117,9 +164,23 @@ export interface MethodReplicates {
 /**
  * Bootstrap replicates of every found method that can be refitted. All methods are resampled
  * within the same replicate, so a combination (the consensus) can be formed replicate by
- * replicate. Null when no method can be refitted or no replicates are asked for.
+ * replicate. Null when no method can be refitted or no replicates are asked for (then nothing
+ * of the bootstrap is set up).
+ *
+ * Early stop (settings `checkEvery`, `stableWithinPct`; our choice, not a published rule):
+ * after every `checkEvery` replicates the percentile interval of `combine` (the consensus'
+ * median) is formed again; from the second check on, drawing stops when both of its ends
+ * moved by no more than `stableWithinPct` % of its width since the previous check, and in any
+ * case at `replicates`. The same seed and settings always stop at the same replicate.
  */
-export function methodReplicates(outcomes: readonly MethodOutcome[], input: DetectorInput, seedOffset: number): MethodReplicates | null {
+export function methodReplicates(
+  outcomes: readonly MethodOutcome[],
+  input: DetectorInput,
+  seedOffset: number,
+  combine: (values: readonly number[]) => number = median,
+): MethodReplicates | null {
+  const { replicates, seed } = input.settings.thresholds.bootstrap;
+  if (replicates < 2) return null;
   const methods: string[] = [];
   const refits: Refit[] = [];
   for (const o of outcomes) {
@@ -129,20 +190,24 @@ export function methodReplicates(outcomes: readonly MethodOutcome[], input: Dete
     methods.push(o.method);
     refits.push(r);
   }
-  const { replicates, seed } = input.settings.thresholds.bootstrap;
-  if (refits.length === 0 || replicates < 2) return null;
+  if (refits.length === 0) return null;
+  const rule = stopRule(input.settings.thresholds.bootstrap);
   const random = seededRandom((seed + seedOffset) >>> 0);
-  const buffers = refits.map((r) => new Float64Array(r.base.x.length));
   const out: number[][] = [];
+  let previous: readonly [number, number] | null = null;
   for (let b = 0; b < replicates; b++) {
-    out.push(
-      refits.map((r, k) => {
-        resample(r, random, buffers[k]);
-        return r.estimate(replaceY(r.base, buffers[k], r.scratch)) ?? Number.NaN;
-      }),
-    );
+    out.push(refits.map((r) => r.estimate(resampleInto(r, random)) ?? Number.NaN));
+    if (rule.checkEvery > 0 && out.length % rule.checkEvery === 0 && out.length < replicates) {
+      const ends = percentileEnds(out, combine);
+      if (previous && ends && intervalIsStable(previous, ends, rule.stableWithinPct)) break;
+      previous = ends;
+    }
   }
   return { methods, replicates: out };
+}
+
+function stopRule(bootstrap: Settings['thresholds']['bootstrap']): StopRule {
+  return { checkEvery: bootstrap.checkEvery ?? 0, stableWithinPct: bootstrap.stableWithinPct ?? 0 };
 }
 
 /**
@@ -154,15 +219,11 @@ export function combinationInterval(
   combine: (values: readonly number[]) => number,
   vo2: MonotoneCurve,
 ): ThresholdCi | null {
-  const estimates: number[] = [];
-  for (const r of reps.replicates) {
-    const values = r.filter(Number.isFinite);
-    if (values.length > 0) estimates.push(combine(values));
-  }
-  if (estimates.length < 2) return null;
-  const lo = quantile(estimates, 0.025);
-  const hi = quantile(estimates, 0.975);
-  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates.length };
+  const estimates = reps.replicates.filter((r) => r.some(Number.isFinite)).length;
+  const ends = percentileEnds(reps.replicates, combine);
+  if (!ends) return null;
+  const [lo, hi] = ends;
+  return { ci95Vo2MlMin: [lo, hi], ci95TimeS: [timeAtValue(vo2, lo), timeAtValue(vo2, hi)], replicates: estimates };
 }
 
 /** Fewest found methods for which the between-method spread is taken robustly (scaled MAD). */

@@ -34,6 +34,10 @@ function longPair() {
 
 const pair = longPair();
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+/** The 95th percentile, nearest rank: the smallest value with at least 95 % of the values at or below it. */
+const p95 = (values: number[]) => [...values].sort((a, b) => a - b)[Math.ceil(0.95 * values.length) - 1];
+/** Overrides timed (issue 14: the 95th percentile over at least 30). */
+const N = 30;
 
 /** The one case in the data folder as saved on disk, once its log has `entries` entries (autosave follows the values). */
 async function savedCase(entries: number): Promise<LoadedCase> {
@@ -83,8 +87,8 @@ describe('a 1,500-breath pair', () => {
     await page.locator('.day-tab', { hasText: 'Day 2' }).click();
 
     const ramp = day2.truth.phases;
-    for (let k = 0; k < 5; k++) {
-      const t = Math.round(ramp.incrementalStartS + 300 + 60 * k);
+    for (let k = 0; k < N; k++) {
+      const t = Math.round(ramp.incrementalStartS + 300 + 10 * k);
       await page.fill('[data-testid="override-value"]', String(t));
       await page.fill('[data-testid="override-reason"]', `timing run ${k + 1}`);
       await page.click('[data-testid="override-apply"]');
@@ -103,51 +107,56 @@ describe('a 1,500-breath pair', () => {
     }
     const figures = {
       breaths: day2.table.breaths.length,
+      overrides: timings.length,
       workerMs: median(timings.map((x) => x.worker)),
       replyMs: median(timings.map((x) => x.reply)),
       valuesMs: median(timings.map((x) => x.values)),
+      valuesP95Ms: p95(timings.map((x) => x.values)),
+      valuesMaxMs: Math.max(...timings.map((x) => x.values)),
       chartsMs: median(timings.map((x) => x.charts)),
       recordMs: median(timings.map((x) => x.record)),
     };
     mkdirSync(join(ROOT, '.test-results'), { recursive: true });
     writeFileSync(join(ROOT, '.test-results', 'workbench-timing.json'), `${JSON.stringify({ figures, timings }, null, 2)}\n`);
-    console.log(`override → values on screen, ${figures.breaths} breaths (median of 5): worker ${figures.workerMs} ms, values ${figures.valuesMs} ms, charts ${figures.chartsMs} ms; record after the values ${figures.recordMs} ms`);
-    // The target is 50 ms from action to values on screen (docs/workbench.md gives the measured
-    // figures and where the time goes). On this shared two-core machine the figure moves with
-    // the load (beside the other suites on both cores it has more than doubled), so the test
-    // holds a regression bound of three times the target on the median; the target itself is
-    // measured on a quiet machine and written in docs/workbench.md. The worker's share (the
-    // values, without the digest and case text) measured 4–8 ms, 30–44 ms with them: a bound
-    // of 20 ms keeps the digest (about 19 ms alone in Node, 20–30 ms here) off that path.
-    expect(figures.valuesMs).toBeLessThan(150);
+    const load = (await import('node:os')).loadavg()[0].toFixed(1);
+    console.log(
+      `override → values on screen, ${figures.breaths} breaths, ${figures.overrides} overrides: p95 ${figures.valuesP95Ms.toFixed(1)} ms (target ≤ 50), median ${figures.valuesMs.toFixed(1)} ms, max ${figures.valuesMaxMs.toFixed(1)} ms; ` +
+        `worker ${figures.workerMs} ms, charts ${figures.chartsMs} ms; record after the values ${figures.recordMs} ms; load average ${load}`,
+    );
+    // The target (issue 14): from action to values on screen at most 50 ms in 95 % of
+    // overrides. docs/workbench.md gives the measured figures and where the time goes. The
+    // worker's share (the values, without the digest and case text) measured 4–8 ms, 30–44 ms
+    // with them: a bound of 20 ms keeps the digest off that path.
+    expect(figures.overrides).toBeGreaterThanOrEqual(30);
+    expect(figures.valuesP95Ms).toBeLessThanOrEqual(50);
     expect(figures.workerMs).toBeLessThan(20);
     expect(figures.replyMs).toBeLessThanOrEqual(figures.valuesMs);
 
-    // Autosave followed every change: the saved case is the newest, with the fifth time.
+    // Autosave followed every change: the saved case is the newest, with the last time.
     await savedNote();
-    const saved = await savedCase(5);
-    const last = saved.caseFile.log[4].action;
-    expect(last.kind === 'set-threshold' && last.after.timeS).toBe(Math.round(ramp.incrementalStartS + 300 + 60 * 4));
+    const saved = await savedCase(N);
+    const last = saved.caseFile.log[N - 1].action;
+    expect(last.kind === 'set-threshold' && last.after.timeS).toBe(Math.round(ramp.incrementalStartS + 300 + 10 * (N - 1)));
     expectRecordReproduced(saved);
-  }, 150_000);
+  }, 400_000);
 
   it('undo withdraws the newest override, redo puts it back, withdraw needs a reason', async () => {
     const vt1Text = () => page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent();
-    expect(await vt1Text()).toContain('reviewer (entry 5)');
+    expect(await vt1Text()).toContain(`reviewer (entry ${N})`);
     await page.click('button[data-command="review.undo"]');
-    // Undo withdraws entry 5; entry 4 is in force again.
-    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 4)'));
+    // Undo withdraws entry N; entry N − 1 is in force again.
+    await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), N - 1);
     await page.keyboard.press('Control+Shift+Z');
-    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 7)'));
+    await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), N + 2);
     const withdrawButton = page.locator('[data-testid="override-vt1"] button', { hasText: 'Withdraw' });
     expect(await withdrawButton.isDisabled()).toBe(true);
     await page.fill('[data-testid="override-vt1"] input', 'back to the automatic estimate for comparison');
     await withdrawButton.click();
-    await page.waitForFunction(() => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes('reviewer (entry 4)'));
+    await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), N - 1);
     await page.locator('nav.screens button', { hasText: 'Sign-off' }).click();
-    // 5 overrides, the undo (6), the redo (7), the withdrawal (8): the log only grows.
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(8);
-    await savedCase(8);
+    // N overrides, the undo (N + 1), the redo (N + 2), the withdrawal (N + 3): the log only grows.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(N + 3);
+    await savedCase(N + 3);
   });
 
   it('an override and an undo in quick succession: both logged, the saved case is the newer', async () => {
@@ -170,19 +179,19 @@ describe('a 1,500-breath pair', () => {
       (document.querySelector('[data-testid="override-apply"]') as HTMLButtonElement).click();
       (document.querySelector('button[data-command="review.undo"]') as HTMLButtonElement).click();
     }, t);
-    const saved = await savedCase(10);
-    const [set, undo] = saved.caseFile.log.slice(8).map((e) => e.action);
+    const saved = await savedCase(N + 5);
+    const [set, undo] = saved.caseFile.log.slice(N + 3).map((e) => e.action);
     expect(set.kind === 'set-threshold' && set.after.timeS).toBe(t);
-    expect(undo.kind === 'withdraw' && undo.withdraws).toBe(9);
-    expect(saved.caseFile.log[9].reason).toBe('undo');
-    // The screen shows the undo's view: entry 4 in force again, the undone override redoable.
+    expect(undo.kind === 'withdraw' && undo.withdraws).toBe(N + 4);
+    expect(saved.caseFile.log[N + 4].reason).toBe('undo');
+    // The screen shows the undo's view: entry N − 1 in force again, the undone override redoable.
     await page.waitForFunction(() => !(document.querySelector('button[data-command="review.redo"]') as HTMLButtonElement | null)?.disabled);
-    expect(await page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent()).toContain('reviewer (entry 4)');
+    expect(await page.locator('[data-testid="row-vt1"] > :nth-child(2)').textContent()).toContain(`reviewer (entry ${N - 1})`);
     await savedNote();
     // Nothing older lands afterwards.
     await new Promise((resolve) => setTimeout(resolve, 500));
     const after = loadCase(saved.path);
-    expect(after.ok && after.value.caseFile.log.length).toBe(10);
+    expect(after.ok && after.value.caseFile.log.length).toBe(N + 5);
     expectRecordReproduced(saved);
     await page.screenshot({ path: join(SCREENSHOTS, '9-quick-change-saved.png'), fullPage: true });
   });

@@ -23,7 +23,9 @@ import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
 import type { ImportResult } from '../../../core/import/types';
 import { workbenchEngine, layoutKeyOf, mappingQuestion, needsMapping, type WorkbenchEngine } from './core-engine';
-import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer } from './protocol';
+import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer, WireDay, WireReply, WireView } from './protocol';
+import type { ProcessedSeries } from '../../../core/model/analysis';
+import type { DayOutcome } from '../../../core/case/recompute';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -58,8 +60,23 @@ function bytesOf(base64: string): Uint8Array {
   return bytes;
 }
 
+/** The series each day's last posted view carried: the page holds them, so they are not sent again. */
+const sentSeries: { day1: ProcessedSeries | null; day2: ProcessedSeries | null } = { day1: null, day2: null };
+
+function wireDay(key: 'day1' | 'day2', day: DayOutcome): WireDay {
+  const series = day.analysis.series;
+  if (series === sentSeries[key]) return { ...day, analysis: { ...day.analysis, series: null } };
+  sentSeries[key] = series;
+  return day;
+}
+
+function wireView(view: EngineView<Comparison>): WireView<Comparison> {
+  return { ...view, day1: wireDay('day1', view.day1), day2: wireDay('day2', view.day2) };
+}
+
 function post(reply: EngineReply<Comparison>): void {
-  self.postMessage(reply);
+  const wire: WireReply<Comparison> = reply.type === 'view' || reply.type === 'record-failed' ? { ...reply, view: wireView(reply.view) } : reply;
+  self.postMessage(wire);
 }
 
 function notesOf(result: ImportResult): DayImportNotes {

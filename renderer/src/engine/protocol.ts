@@ -9,7 +9,7 @@
  */
 import type { FilePayload } from '../../../host/workbench/api';
 import type { LocatedError } from '../../../core/model/errors';
-import type { ThresholdId } from '../../../core/model/analysis';
+import type { ProcessedSeries, TestAnalysis, ThresholdId } from '../../../core/model/analysis';
 import type { AuditEntry, DayNumber } from '../../../core/case/case-file';
 import type { DayOutcome } from '../../../core/case/recompute';
 
@@ -53,6 +53,19 @@ export interface EngineView<C = unknown> {
   readonly updateMs: number;
 }
 
+/**
+ * A view as the worker sends it: only what changed. A day's processed series (most of a
+ * view's bytes) that is the same as in the previous view sent is left out (null), and the
+ * page's client puts back its copy (client.ts); an override changes values, not the series.
+ */
+export interface WireDay extends Omit<DayOutcome, 'analysis'> {
+  readonly analysis: Omit<TestAnalysis, 'series'> & { readonly series: ProcessedSeries | null };
+}
+export interface WireView<C = unknown> extends Omit<EngineView<C>, 'day1' | 'day2'> {
+  readonly day1: WireDay;
+  readonly day2: WireDay;
+}
+
 /** A case state's recorded form: what autosave writes, posted after the view of the same revision. */
 export interface CaseRecord {
   /** The shell's name for the case, as given when it was opened. */
@@ -73,6 +86,7 @@ export type EngineRequest =
   | { readonly type: 'undo'; readonly reviewer: Reviewer; readonly at: string }
   | { readonly type: 'redo'; readonly reviewer: Reviewer; readonly at: string };
 
+/** A reply as the page sees it (views whole). */
 export type EngineReply<C = unknown> =
   | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
   | { readonly id: number; readonly type: 'needs-mapping'; readonly question: MappingQuestion }
@@ -85,3 +99,9 @@ export type EngineReply<C = unknown> =
    * kept, and the case is back at `view` (the previous revision, already recorded).
    */
   | { readonly id: number; readonly type: 'record-failed'; readonly error: LocatedError; readonly view: EngineView<C> };
+
+/** A reply as the worker posts it: views carry only what changed (WireView). */
+export type WireReply<C = unknown> =
+  | Exclude<EngineReply<C>, { type: 'view' | 'record-failed' }>
+  | { readonly id: number; readonly type: 'view'; readonly view: WireView<C> }
+  | { readonly id: number; readonly type: 'record-failed'; readonly error: LocatedError; readonly view: WireView<C> };

@@ -6,7 +6,8 @@ import { median } from '../../../core/math/stats';
 import type { DetectorInput } from '../../../core/thresholds/detector';
 import { VT1_METHODS } from '../../../core/thresholds/methods';
 import { vo2Curve } from '../../../core/thresholds/read-off';
-import { blockLength, combinationInterval, methodAwareInterval, methodReplicates, methodSpread } from '../../../core/thresholds/uncertainty';
+import { blockLength, combinationInterval, intervalIsStable, methodAwareInterval, methodReplicates, methodSpread } from '../../../core/thresholds/uncertainty';
+import { hingeFit, preparePoints } from '../../../core/thresholds/segments';
 import { monotoneCurve } from '../../../core/thresholds/read-off';
 import { INC_START_S, TRUE_VT1_VO2, TRUE_VT2_VO2, syntheticSeries, timeAtVo2 } from './synthetic-series';
 
@@ -85,3 +86,67 @@ describe('the between-method spread and the reported interval (worked by hand)',
   });
 });
 
+
+describe('the bootstrap does only the work asked of it (issue 14)', () => {
+  const noisy = () => {
+    const series = syntheticSeries({ noise: 0.02, seed: 4 });
+    return { series, input: { series, fromS: INC_START_S, toS: timeAtVo2(TRUE_VT2_VO2), settings: DEFAULT_SETTINGS } as DetectorInput };
+  };
+  const withBootstrap = (bootstrap: Settings['thresholds']['bootstrap']): Settings => ({ ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap } });
+
+  it('with the bootstrap off, reads nothing but the settings (no refit, no block length)', () => {
+    const { input } = noisy();
+    const outcomes = VT1_METHODS.filter((m) => m.method.startsWith('vslope')).map((m) => m.detect(input));
+    expect(outcomes.some((o) => o.found)).toBe(true);
+    const settings = withBootstrap({ ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates: 0 });
+    // Any read of the series (which every refit needs) throws.
+    const guarded = new Proxy({ ...input, settings }, {
+      get(target, key) {
+        if (key !== 'settings') throw new Error(`bootstrap off, yet it read input.${String(key)}`);
+        return Reflect.get(target, key);
+      },
+    });
+    expect(methodReplicates(outcomes, guarded, 1)).toBeNull();
+  });
+
+  it('draws every replicate without the early stop, and stops at a check (a multiple of 50) with it', () => {
+    const { input } = noisy();
+    const outcomes = VT1_METHODS.filter((m) => m.method.startsWith('vslope')).map((m) => m.detect(input));
+    const all = methodReplicates(outcomes, { ...input, settings: withBootstrap({ replicates: 200, seed: 20260101 }) }, 1)!;
+    expect(all.replicates).toHaveLength(200);
+    const early = methodReplicates(outcomes, { ...input, settings: withBootstrap({ replicates: 200, seed: 20260101, checkEvery: 50, stableWithinPct: 100 }) }, 1)!;
+    // With a tolerance of the whole width the second check (100 replicates) always stops it.
+    expect(early.replicates).toHaveLength(100);
+    // The early replicates are the first ones of the full run: same seed, same draws.
+    expect(early.replicates).toEqual(all.replicates.slice(0, 100));
+  });
+
+  it('stops only when both ends moved by at most the tolerance (share of the newer width)', () => {
+    // Width 100: tolerance 5 % = 5 mL/min.
+    expect(intervalIsStable([1000, 1100], [1004, 1100], 5)).toBe(true);
+    expect(intervalIsStable([1000, 1100], [1000, 1106], 5)).toBe(false);
+    expect(intervalIsStable([1000, 1100], [1006, 1106], 5)).toBe(false);
+  });
+
+  it('fits the same knot whatever fixed value the y sums are centred on (the one-pass resample relies on it)', () => {
+    const x = Array.from({ length: 80 }, (_, i) => 500 + 20 * i + (i % 3));
+    const y = x.map((v, i) => 0.9 * v + 0.5 * Math.max(0, v - 1300) + ((i * 37) % 11) - 5);
+    const p = preparePoints(x, y, true);
+    const shift = 123.4;
+    const sy = new Float64Array(p.sy.length);
+    const sxy = new Float64Array(p.sy.length);
+    const syy = new Float64Array(p.sy.length);
+    for (let i = 0; i < x.length; i++) {
+      const cy = p.y[i] - (p.my + shift);
+      sy[i + 1] = sy[i] + cy;
+      sxy[i + 1] = sxy[i] + (p.x[i] - p.mx) * cy;
+      syy[i + 1] = syy[i] + cy * cy;
+    }
+    const q = { ...p, my: p.my + shift, sy, sxy, syy };
+    const a = hingeFit(p, 5)!;
+    const b = hingeFit(q, 5)!;
+    expect(b.knot).toBeCloseTo(a.knot, 6);
+    expect(b.intercept).toBeCloseTo(a.intercept, 6);
+    expect(b.rss).toBeCloseTo(a.rss, 4);
+  });
+});

@@ -1,0 +1,131 @@
+// The `twofold` command's compiled JavaScript: cli/main.ts and everything it imports from
+// cli/, core/ and host/, bundled by esbuild into dist/cli/ (one chunk per command, so a
+// command loads only its own code; npm packages other than vega and vega-lite stay outside
+// the bundle and load only when a command imports them).
+//
+// `.npmrc` sets ignore-scripts, so no install step can build it: bin/twofold.mjs calls
+// `currentCliBuild()` at every start, which stats the files the last build was made from
+// (recorded in dist/cli/build.json) and rebuilds only when one changed or the build is
+// missing. Each build goes to a fresh folder and build.json is replaced by rename, so
+// processes that start at the same moment never see half a build.
+//
+// `node scripts/cli-build.mjs` (npm run build:cli) builds it by hand.
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, join, relative, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+const OUT = join(ROOT, 'dist', 'cli');
+const RECORD = join(OUT, 'build.json');
+/** Older build folders are removed once they are this old (a running process may still load chunks from one). */
+const KEEP_OLD_BUILDS_MS = 60 * 60 * 1000;
+
+function stamp(path) {
+  try {
+    const s = statSync(path);
+    return [s.mtimeMs, s.size];
+  } catch {
+    return null;
+  }
+}
+
+function readRecord() {
+  try {
+    return JSON.parse(readFileSync(RECORD, 'utf8'));
+  } catch {
+    return null;
+  }
+}
+
+/** True when the recorded build exists and every file it was made from is unchanged (time and size). */
+function isCurrent(record) {
+  if (!record || typeof record.entry !== 'string' || !record.inputs) return false;
+  if (!existsSync(join(OUT, record.entry))) return false;
+  for (const [path, before] of Object.entries(record.inputs)) {
+    const now = stamp(join(ROOT, path));
+    if (!now || now[0] !== before[0] || now[1] !== before[1]) return false;
+  }
+  return true;
+}
+
+function removeOldBuilds(keep) {
+  let entries;
+  try {
+    entries = readdirSync(OUT, { withFileTypes: true });
+  } catch {
+    return;
+  }
+  for (const e of entries) {
+    if (!e.isDirectory() || e.name === keep) continue;
+    const full = join(OUT, e.name);
+    const s = stamp(full);
+    if (s && Date.now() - s[0] > KEEP_OLD_BUILDS_MS) rmSync(full, { recursive: true, force: true });
+  }
+}
+
+/**
+ * npm packages bundled into the build: vega and vega-lite are some hundred small ES modules
+ * whose loading (resolve, read, parse each) took about twice as long as one bundled file, on
+ * every report. Every other package stays outside (its own files, loaded when imported).
+ */
+const BUNDLED_PACKAGES = new Set(['vega', 'vega-lite']);
+
+function externalPackages() {
+  const manifest = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
+  const names = Object.keys({ ...manifest.dependencies, ...manifest.devDependencies }).filter((n) => !BUNDLED_PACKAGES.has(n));
+  return names.flatMap((n) => [n, `${n}/*`]);
+}
+
+/** Bundle the command line now; returns the entry file's path. */
+export async function buildCli() {
+  const { build } = await import('esbuild');
+  const folder = `b${Date.now().toString(36)}-${process.pid}`;
+  const outdir = join(OUT, folder);
+  const result = await build({
+    absWorkingDir: ROOT,
+    entryPoints: { main: 'cli/main.ts' },
+    outdir,
+    bundle: true,
+    splitting: true,
+    format: 'esm',
+    platform: 'node',
+    target: 'node20',
+    external: externalPackages(),
+    sourcemap: true,
+    outExtension: { '.js': '.mjs' },
+    chunkNames: 'chunks/[name]-[hash]',
+    metafile: true,
+    logLevel: 'warning',
+  });
+  const inputs = {};
+  for (const path of Object.keys(result.metafile.inputs)) {
+    if (path.includes('node_modules')) continue; // the bundled packages are covered by package-lock.json below
+
+    const s = stamp(join(ROOT, path));
+    if (s) inputs[relative(ROOT, join(ROOT, path))] = s;
+  }
+  // The build's own recipe and the packages it bundles count as inputs too.
+  for (const path of ['scripts/cli-build.mjs', 'package.json', 'package-lock.json']) {
+    const s = stamp(join(ROOT, path));
+    if (s) inputs[path] = s;
+  }
+  mkdirSync(OUT, { recursive: true });
+  const record = { entry: join(folder, 'main.mjs'), builtAt: new Date().toISOString(), inputs };
+  const tmp = `${RECORD}.${process.pid}.tmp`;
+  writeFileSync(tmp, `${JSON.stringify(record)}\n`);
+  renameSync(tmp, RECORD);
+  removeOldBuilds(folder);
+  return join(OUT, record.entry);
+}
+
+/** The current build's entry file URL, building first when it is missing or stale. */
+export async function currentCliBuild() {
+  const record = readRecord();
+  const entry = isCurrent(record) ? join(OUT, record.entry) : await buildCli();
+  return pathToFileURL(entry).href;
+}
+
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  const entry = await buildCli();
+  console.log(`built ${relative(ROOT, entry)}`);
+}
