@@ -66,7 +66,7 @@ export const VSLOPE_STYLE = {
   identity: { colour: OKABE_ITO.grey, dash: DOTTED },
 } as const;
 
-export type VerdictKind = 'within' | 'decline' | 'rise' | 'not_comparable';
+export type VerdictKind = 'held' | 'fell' | 'rose' | 'open' | 'not_comparable';
 
 export interface VerdictStyle {
   readonly colour: string;
@@ -75,15 +75,20 @@ export interface VerdictStyle {
   readonly harm: 'adverse' | 'favourable' | 'neutral' | 'none';
 }
 
-/** A verdict's colour and words by harm: `adverse` says whether the change goes the harmful way. */
+/**
+ * A call's colour and words by harm, not by direction (core/compare: held, fell, rose, open):
+ * `adverse` says whether the change lies beyond the band in the metric's harmful direction.
+ */
 export function verdictStyle(verdict: VerdictKind, adverse: boolean): VerdictStyle {
   switch (verdict) {
-    case 'within':
-      return { colour: SLATE, words: 'within band', harm: 'neutral' };
-    case 'decline':
-      return adverse ? { colour: OKABE_ITO.vermillion, words: 'lower, beyond band (adverse)', harm: 'adverse' } : { colour: OKABE_ITO.blue, words: 'lower, beyond band (favourable)', harm: 'favourable' };
-    case 'rise':
-      return adverse ? { colour: OKABE_ITO.vermillion, words: 'higher, beyond band (adverse)', harm: 'adverse' } : { colour: OKABE_ITO.blue, words: 'higher, beyond band (favourable)', harm: 'favourable' };
+    case 'held':
+      return { colour: SLATE, words: 'reproduced', harm: 'neutral' };
+    case 'fell':
+      return adverse ? { colour: OKABE_ITO.vermillion, words: 'lower on day 2 (adverse)', harm: 'adverse' } : { colour: OKABE_ITO.blue, words: 'lower on day 2 (favourable)', harm: 'favourable' };
+    case 'rose':
+      return adverse ? { colour: OKABE_ITO.vermillion, words: 'higher on day 2 (adverse)', harm: 'adverse' } : { colour: OKABE_ITO.blue, words: 'higher on day 2 (favourable)', harm: 'favourable' };
+    case 'open':
+      return { colour: OKABE_ITO.yellow, words: 'undetermined', harm: 'none' };
     default:
       return { colour: OKABE_ITO.grey, words: 'not comparable', harm: 'none' };
   }

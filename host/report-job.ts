@@ -11,7 +11,7 @@ import type { CaseFile } from '../core/case/case-file';
 import { caseToText } from '../core/case/case-text';
 import { recomputeCase, type CaseOutcome, type RawBytes } from '../core/case/recompute';
 import type { Comparison } from '../core/compare/compare-tests';
-import { ok, type Result } from '../core/model/errors';
+import { fail, locatedError, ok, type Result } from '../core/model/errors';
 import { buildReport, type SignatureKind } from '../core/report/build-report';
 import { signReport } from '../core/report/sign';
 import { writeFileAtomic } from './atomic-write';
@@ -57,6 +57,9 @@ export async function runReportJob(job: ReportJob): Promise<Result<ReportJobResu
   const recorded = recordCase(job.caseFile, job.raw);
   if (!recorded.ok) return recorded;
   const { caseFile, outcome } = recorded.value;
+  // A refused pair (same file or series for both days, day order, day metadata) gets no report.
+  const refusal = outcome.comparison.refusals[0];
+  if (refusal) return fail(locatedError(`pair-${refusal.code}`, outcome.comparison.day2Source, null, null, `No report: ${refusal.message}`));
   const generatedAt = job.now.toISOString().replace(/\.\d{3}Z$/, 'Z');
   const pdf = await buildReport({
     caseFile,

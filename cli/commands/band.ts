@@ -65,7 +65,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       skipped++;
       io.err(`${io.interactive ? '\n' : ''}skipped pair ${pair.pairId}: the two tests carry different subject ids, so they are not a repeat test\n`);
     } else {
-      for (const row of compareMetrics(day1.value, day2.value, settings.value.compare.bandKind)) {
+      for (const row of compareMetrics(day1.value, day2.value)) {
         if (row.verdict !== 'not_comparable' && row.day1 !== null && row.day2 !== null) collected.get(row.id)!.push({ day1: row.day1, day2: row.day2 });
       }
     }

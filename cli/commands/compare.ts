@@ -8,8 +8,11 @@
  * compareTests); every number comes from core. A batch runs the pairs on worker threads (one
  * per core by default), keeps manifest order in the results, and never stops for one bad pair:
  * the pair is reported with its place and skipped. Exit 0 when the run completed (skipped pairs
- * are counted), 2 for bad input (`FILE:LINE:COLUMN: message`), 1 otherwise.
+ * are counted), 2 for bad input (`FILE:LINE:COLUMN: message`) and for a refused pair (same
+ * file or series for both days, day 2 before day 1 without --allow-order, `# day:` metadata
+ * contradicting the slot; core/compare/refusals.ts), 1 otherwise.
  */
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { readFile, writeFile } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
@@ -20,7 +23,10 @@ import { isMainThread, parentPort, Worker, workerData } from 'node:worker_thread
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { settingsFromJson } from '../../core/analyze/settings-input';
 import { parseBandFile } from '../../core/compare/band-file';
-import { bandKindLabel, DEFAULT_BAND_TABLE } from '../../core/compare/bands';
+import { bandPreset, bandStatement, DEFAULT_BAND_TABLE } from '../../core/compare/bands';
+import { verdictWords } from '../../core/compare/change-interval';
+import { pageOne } from '../../core/compare/page-one';
+import { CAUTIONS } from '../../core/compare/wording';
 import { compareTests, comparisonJson, type Comparison } from '../../core/compare/compare-tests';
 import { parseManifest, type ManifestEntry } from '../../core/compare/manifest';
 import { resultsHeader, resultsRow } from '../../core/compare/results-csv';
@@ -34,12 +40,15 @@ import { parseFlags } from '../args';
 import { EXIT_BAD_INPUT, EXIT_OK, EXIT_OTHER, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage:
-  twofold compare DAY1 DAY2 [--json] [--band FILE] [--settings FILE]
-  twofold compare --manifest FILE --out results.csv [--band FILE] [--settings FILE] [--workers N]
+  twofold compare DAY1 DAY2 [--json] [--band PRESET|FILE] [--settings FILE] [--allow-order]
+  twofold compare --manifest FILE --out results.csv [--band PRESET|FILE] [--settings FILE] [--workers N]
 
   --json         print the comparison as one JSON object
-  --band FILE    a band file (twofold-band JSON: stated by the lab or written by 'twofold band')
-  --settings FILE  a JSON partial of the settings (band kind, interval window, workload step, ...)
+  --band PRESET|FILE  controls-24h (default: 24-h retests of sedentary or healthy control groups),
+                 healthy-30d (Decato et al. 2018: healthy adults within 30 days), or a band file
+                 (twofold-band JSON: stated by the lab or written by 'twofold band')
+  --allow-order  confirm that day 2 may start before day 1 (otherwise refused, exit 2)
+  --settings FILE  a JSON partial of the settings (interval window, workload step, ...)
   --manifest FILE  a CSV of pairs: pair_id,day1_file,day2_file (paths relative to the manifest)
   --out FILE     where the batch writes its results CSV
   --workers N    worker threads for a batch (default: one per core)
@@ -68,13 +77,12 @@ export async function loadAnalysis(path: string, displayName: string, settings: 
 }
 
 /**
- * Settings for analysing the tests of a batch: the breakpoint bootstrap is switched off, since
- * the batch results carry no confidence intervals and the thresholds themselves (the consensus
- * of the methods) do not depend on it (tests/cli/compare.test.ts checks this). It is nearly all
- * of an analysis's time (docs/performance.md).
+ * Settings for analysing the tests of a batch: the same as a single pair's. The day-2 calls read
+ * each threshold's interval (core/compare/measurement.ts), so the breakpoint bootstrap stays on
+ * even though it is most of an analysis's time (docs/performance.md).
  */
 export function batchAnalysisSettings(settings: Settings): Settings {
-  return { ...settings, thresholds: { ...settings.thresholds, bootstrap: { ...settings.thresholds.bootstrap, replicates: 0 } } };
+  return settings;
 }
 
 /** Settings from --settings (merged over the defaults), or the defaults. */
@@ -82,6 +90,10 @@ export async function loadSettings(path: string | undefined, io: CliIo): Promise
   if (path === undefined) return ok(DEFAULT_SETTINGS);
   const text = await readText(resolve(io.cwd, path), path);
   return text.ok ? settingsFromJson(text.value, path) : text;
+}
+
+async function fileSha256(path: string): Promise<string> {
+  return createHash('sha256').update(await readFile(path)).digest('hex');
 }
 
 async function readText(path: string, displayName: string): Promise<Result<string>> {
@@ -94,6 +106,7 @@ async function readText(path: string, displayName: string): Promise<Result<strin
 
 async function loadBand(path: string | undefined, io: CliIo): Promise<Result<BandTable>> {
   if (path === undefined) return ok(DEFAULT_BAND_TABLE);
+  if (!/[./\\]/.test(path)) return bandPreset(path);
   const text = await readText(resolve(io.cwd, path), path);
   return text.ok ? parseBandFile(text.value, path) : text;
 }
@@ -248,17 +261,18 @@ export function comparisonText(c: Comparison): string {
   lines.push(`Day 2 against day 1`, `  day 1: ${c.day1Source}`, `  day 2: ${c.day2Source}`);
   lines.push(`  interval: ${c.pairing.intervalH === null ? 'unknown' : `${c.pairing.intervalH.toFixed(1)} h`}`);
   for (const w of c.pairing.warnings) lines.push(`  ${w.severity === 'hard' ? '!! ' : 'warning: '}${w.message}`);
-  lines.push(`  band: ${bandKindLabel(c.bandKind)}`, `  band source: ${c.band.description}`, '');
-  const header = ['metric', 'day 1', 'day 2', 'change', 'change %', 'band', 'verdict'];
-  const table = c.metrics.map((m) => {
-    const d = digitsFor(m);
-    const verdict = m.verdict === 'not_comparable' ? `not comparable: ${m.reason}` : m.adverseBeyondBand ? `${m.verdict} (adverse direction)` : m.verdict;
-    const signed = (v: number | null, digits: number) => (v !== null && Number(v.toFixed(digits)) > 0 ? '+' : '') + fmt(v, digits);
-    return [m.unit ? `${m.label} (${m.unit})` : m.label, fmt(m.day1, d), fmt(m.day2, d), signed(m.delta, d), m.deltaPct === null ? '–' : `${signed(m.deltaPct, 1)}%`, m.band ? `±${m.band.halfWidthPct.toFixed(1)}%` : '–', verdict];
-  });
-  const widths = header.map((h, i) => Math.max(h.length, ...table.map((r) => (i === 6 ? 0 : r[i].length))));
-  const render = (cells: string[]) => cells.map((cell, i) => (i === cells.length - 1 ? cell : i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join('  ');
-  lines.push(render(header), ...table.map(render), '');
+  const page = pageOne(c);
+  lines.push(`  ${bandStatement(c.band)}`, '');
+  for (const s of page.sentences) lines.push(s);
+  lines.push('');
+  const render = (t: { header: readonly string[]; rows: readonly (readonly string[])[] }) => {
+    const widths = t.header.map((h, i) => Math.max(h.length, ...t.rows.map((r) => (i === t.header.length - 1 ? 0 : r[i].length))));
+    const one = (cells: readonly string[]) => cells.map((cell, i) => (i === cells.length - 1 ? cell : i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join('  ');
+    return [one(t.header), ...t.rows.map(one)];
+  };
+  if (page.primary.rows.length > 0) lines.push(...render(page.primary), '', ...render(page.secondary), '');
+  const notes = c.metrics.filter((m) => m.verdict === 'not_comparable' || m.verdict === 'open').map((m) => `  ${m.label}: ${verdictWords(m.verdict)}: ${m.reason}`);
+  if (c.refusals.length === 0 && notes.length > 0) lines.push('Notes:', ...notes, '');
   if (c.matched.available) {
     lines.push(`Matched workloads (incremental phase, ${c.matched.rangeW[0].toFixed(0)}–${c.matched.rangeW[1].toFixed(0)} W):`);
     lines.push(['work', 'VO2 d1', 'VO2 d2', 'HR d1', 'HR d2', 'VE d1', 'VE d2', 'RER d1', 'RER d2', 'VE/VCO2 d1', 'VE/VCO2 d2'].map((h) => h.padStart(11)).join(''));
@@ -275,7 +289,7 @@ export function comparisonText(c: Comparison): string {
   } else {
     lines.push(`Matched workloads: ${c.matched.reason}`, '');
   }
-  lines.push('Summary:', c.summary, '');
+  lines.push('Summary:', c.summary, '', `Cautions: ${CAUTIONS}`, '');
   return lines.join('\n');
 }
 
@@ -301,7 +315,7 @@ async function runBatch(manifestPath: string, outPath: string, settings: Setting
     return EXIT_OTHER;
   }
   const seconds = (performance.now() - started) / 1000;
-  io.err(`Compared ${total - skipped.length} of ${total} pairs in ${seconds.toFixed(1)} s; skipped ${skipped.length}${skipped.length ? ' (listed above)' : ''}. Band: ${bandKindLabel(settings.compare.bandKind)}; ${band.description}. Results: ${outPath}\n`);
+  io.err(`Compared ${total - skipped.length} of ${total} pairs in ${seconds.toFixed(1)} s; skipped ${skipped.length}${skipped.length ? ' (listed above)' : ''}. ${bandStatement(band)} Results: ${outPath}\n`);
   return EXIT_OK;
 }
 
@@ -313,6 +327,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     manifest: { type: 'string' },
     out: { type: 'string' },
     workers: { type: 'string' },
+    'allow-order': { type: 'boolean' },
     help: { type: 'boolean', short: 'h' },
   });
   if (values.help) {
@@ -352,7 +367,12 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     io.err(`${formatLocated(day2.error)}\n`);
     return EXIT_BAD_INPUT;
   }
-  const comparison = compareTests(day1.value, day2.value, settings.value, band.value);
+  const [sha1, sha2] = await Promise.all([fileSha256(resolve(io.cwd, file1)), fileSha256(resolve(io.cwd, file2))]);
+  const comparison = compareTests(day1.value, day2.value, settings.value, band.value, { day1Sha256: sha1, day2Sha256: sha2, allowOrder: values['allow-order'] === true });
+  if (comparison.refusals.length > 0) {
+    for (const r of comparison.refusals) io.err(`twofold compare: refused (${r.code}): ${r.message}\n`);
+    return EXIT_BAD_INPUT;
+  }
   io.out(values.json ? `${JSON.stringify(comparisonJson(comparison), null, 2)}\n` : comparisonText(comparison));
   return EXIT_OK;
 }

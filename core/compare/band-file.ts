@@ -4,7 +4,10 @@
  *   { "format": "twofold-band", "version": 1,
  *     "origin": "lab-stated" | "lab-derived",
  *     "description": "what this band is",
+ *     "population": "who was retested", "retest_interval": "24 h",
+ *     "statistic": "what the numbers are", "source": "where the table comes from",
  *     "metrics": { "<metric id>": { "cv_pct": 6.5, "source": "where it comes from",
+ *                                    "mean_change_pct": 1.5,   (optional; the band centres on it)
  *                                    "stats": { ...repeat-test statistics, optional } } } }
  *
  * A lab states its own band by writing such a file; `twofold band` writes one derived from
@@ -78,10 +81,23 @@ export function parseBandFile(text: string, file: string): Result<BandTable> {
     }
     const source = typeof entry?.source === 'string' && entry.source.trim() !== '' ? entry.source : null;
     if (source === null) return at(id, 'band-source', `"${id}" needs a "source" saying where its CV comes from.`);
-    entries[id] = { cvPct: cv, source };
+    const mean = entry?.mean_change_pct;
+    if (mean !== undefined && (typeof mean !== 'number' || !Number.isFinite(mean) || mean <= -100)) {
+      return at(id, 'band-mean-change', `"${id}": "mean_change_pct" must be a number above −100 (the population's mean day-2 change in percent).`);
+    }
+    entries[id] = { cvPct: cv, source, ...(typeof mean === 'number' ? { meanChangePct: mean } : {}) };
   }
   const label = origin === 'lab-derived' ? "band derived from the lab's repeat tests" : 'band stated by the lab';
-  return ok({ origin, description: `${label}: ${description} (${file})`, entries });
+  const field = (key: string, fallback: string) => (typeof obj[key] === 'string' && (obj[key] as string).trim() !== '' ? (obj[key] as string) : fallback);
+  return ok({
+    origin,
+    description: `${label}: ${description} (${file})`,
+    population: field('population', 'not stated in the band file'),
+    retestInterval: field('retest_interval', 'not stated in the band file'),
+    statistic: field('statistic', 'within-subject coefficient of variation; limits 1.96 × √2 × ln(1 + CV) on the log scale'),
+    source: field('source', origin === 'lab-derived' ? `the lab's repeat tests (${file})` : `stated by the lab (${file})`),
+    entries,
+  });
 }
 
 function round(value: number | null, digits = 4): number | null {
@@ -91,11 +107,16 @@ function round(value: number | null, digits = 4): number | null {
 }
 
 /** The band file for statistics derived from repeat tests, as a JSON text. */
-export function writeDerivedBandFile(stats: Readonly<Partial<Record<MetricId, RepeatStats>>>, description: string): string {
+export function writeDerivedBandFile(
+  stats: Readonly<Partial<Record<MetricId, RepeatStats>>>,
+  description: string,
+  context: { readonly population?: string; readonly retestInterval?: string } = {},
+): string {
   const metrics: Record<string, unknown> = {};
   for (const [id, s] of Object.entries(stats) as [MetricId, RepeatStats][]) {
     metrics[id] = {
       cv_pct: round(s.cvPct),
+      mean_change_pct: s.meanDay1 !== 0 ? round((100 * s.meanChange) / s.meanDay1, 2) : 0,
       source: `lab repeat tests, ${s.n} pairs; CV ${s.cvMethod} (Hopkins 2000)`,
       stats: {
         n: s.n,
@@ -115,5 +136,15 @@ export function writeDerivedBandFile(stats: Readonly<Partial<Record<MetricId, Re
       },
     };
   }
-  return `${JSON.stringify({ format: BAND_FORMAT, version: BAND_FORMAT_VERSION, origin: 'lab-derived', description, metrics }, null, 2)}\n`;
+  const header = {
+    format: BAND_FORMAT,
+    version: BAND_FORMAT_VERSION,
+    origin: 'lab-derived',
+    description,
+    population: context.population ?? "the lab's own repeat-tested subjects (state who they were)",
+    retest_interval: context.retestInterval ?? 'as in the manifest pairs (state it)',
+    statistic: 'within-subject CV (log-transformed where every value is positive; Hopkins 2000) and mean day-2 change; limits 1.96 × √2 × ln(1 + CV) on the log scale',
+    source: `the lab's repeat tests: ${description}`,
+  };
+  return `${JSON.stringify({ ...header, metrics }, null, 2)}\n`;
 }

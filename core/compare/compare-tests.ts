@@ -4,14 +4,20 @@
  * and band always give the same comparison.
  *
  * Example: compareTests(day1, day2, DEFAULT_SETTINGS) compares against Twofold's default band
- * table (docs/comparison.md) with the band kind of settings.compare.bandKind.
+ * (24-h retests of control groups, docs/comparison.md). `refusals` lists the mistakes that make
+ * the comparison meaningless (refusals.ts); a shell must not present a verdict when it is not
+ * empty. settings.compare.bandKind is no longer a decision rule (the call reads the change
+ * interval, change-interval.ts); it is kept only so older case files still validate.
  */
 import type { TestAnalysis } from '../model/analysis';
-import type { BandKind, Settings } from '../model/settings';
-import { bandKindLabel, DEFAULT_BAND_TABLE } from './bands';
+import type { Settings } from '../model/settings';
+import { bandStatement, DEFAULT_BAND_TABLE } from './bands';
+import { verdictWords } from './change-interval';
+import { findings, isPrimary, type Finding } from './findings';
 import { matchedWorkloads, type MatchedWorkloads } from './matched';
 import { compareMetrics } from './metrics';
 import { pairTests } from './pairing';
+import { pairRefusals, type PairRefusal, type RefusalInputs } from './refusals';
 import type { BandTable, MetricRow, Pairing } from './types';
 import { summarize } from './wording';
 
@@ -20,20 +26,23 @@ export interface Comparison {
   readonly day2Source: string;
   readonly pairing: Pairing;
   readonly metrics: readonly MetricRow[];
+  /** One finding per threshold shift and one for the peak, from the primary outcomes. */
+  readonly findings: readonly Finding[];
+  readonly refusals: readonly PairRefusal[];
   readonly matched: MatchedWorkloads;
-  readonly bandKind: BandKind;
   readonly band: BandTable;
   readonly summary: string;
   readonly settings: Settings;
 }
 
-export function compareTests(day1: TestAnalysis, day2: TestAnalysis, settings: Settings, band: BandTable = DEFAULT_BAND_TABLE): Comparison {
-  const kind = settings.compare.bandKind;
+export function compareTests(day1: TestAnalysis, day2: TestAnalysis, settings: Settings, band: BandTable = DEFAULT_BAND_TABLE, inputs: RefusalInputs = {}): Comparison {
   const pairing = pairTests(day1, day2, settings);
-  const metrics = compareMetrics(day1, day2, kind, band);
+  const refusals = pairRefusals(day1, day2, inputs);
+  const metrics = compareMetrics(day1, day2, band);
+  const found = findings(metrics);
   const matched = matchedWorkloads(day1, day2, settings);
-  const summary = summarize(day1, day2, pairing, metrics, kind, band);
-  return { day1Source: day1.sourceName, day2Source: day2.sourceName, pairing, metrics, matched, bandKind: kind, band, summary, settings };
+  const summary = summarize(day1, day2, pairing, found, band, refusals);
+  return { day1Source: day1.sourceName, day2Source: day2.sourceName, pairing, metrics, findings: found, refusals, matched, band, summary, settings };
 }
 
 function num(value: number | null, digits = 3): number | null {
@@ -52,7 +61,9 @@ export function comparisonJson(c: Comparison): Record<string, unknown> {
       hard_mismatch: c.pairing.hardMismatch,
       warnings: c.pairing.warnings.map((w) => ({ code: w.code, severity: w.severity, message: w.message })),
     },
-    band: { kind: c.bandKind, kind_label: bandKindLabel(c.bandKind), origin: c.band.origin, description: c.band.description },
+    refusals: c.refusals.map((r) => ({ code: r.code, message: r.message })),
+    band: { origin: c.band.origin, description: c.band.description, population: c.band.population, retest_interval: c.band.retestInterval, statistic: c.band.statistic, source: c.band.source, statement: bandStatement(c.band) },
+    findings: c.findings.map((f) => ({ id: f.id, verdict: f.verdict, words: verdictWords(f.verdict), sentence: f.sentence })),
     metrics: c.metrics.map((m) => ({
       id: m.id,
       label: m.label,
@@ -61,12 +72,19 @@ export function comparisonJson(c: Comparison): Record<string, unknown> {
       day2: num(m.day2),
       delta: num(m.delta),
       delta_pct: num(m.deltaPct, 2),
-      band_pct: m.band ? num(m.band.halfWidthPct, 2) : null,
+      primary: isPrimary(m.id),
+      band_low_pct: m.band ? num(m.band.lowPct, 2) : null,
+      band_high_pct: m.band ? num(m.band.highPct, 2) : null,
+      band_centre_pct: m.band ? num(m.band.centrePct, 2) : null,
       band_cv_pct: m.band ? num(m.band.cvPct, 2) : null,
+      change_interval_pct: m.interval ? [num(m.interval.lowPct, 2), num(m.interval.highPct, 2)] : null,
+      limits_pct: m.interval ? [num(m.interval.limitLowPct, 2), num(m.interval.limitHighPct, 2)] : null,
+      measurement_sd_log: m.interval ? { day1: num(m.interval.day1Sd, 4), day2: num(m.interval.day2Sd, 4), from: m.interval.measurement } : null,
       band_source: m.band ? `${m.band.origin}: ${m.band.source}` : null,
       adverse_direction: m.adverse,
       effort_check: m.effortCheck,
       verdict: m.verdict,
+      verdict_words: verdictWords(m.verdict),
       adverse_beyond_band: m.adverseBeyondBand,
       reason: m.reason,
     })),

@@ -1,24 +1,21 @@
 /**
- * Day 2 against day 1, metric by metric: both values, absolute and percent change, the band
- * that applies, and a verdict with its reason.
+ * Day 2 against day 1, metric by metric: both values, absolute and percent change, the band,
+ * the change interval and the call (change-interval.ts) with its reason in words.
  *
- * Verdicts: `within` when |Δ%| ≤ the band's half-width; otherwise `decline` (day 2 lower) or
- * `rise` (day 2 higher). `not_comparable` when a value is missing on either day, a threshold
- * was not found on one day, or a peak metric comes from a test that was not a maximal effort
- * (effort.verdict !== 'maximal'): a lower peak then may reflect effort, not capacity (common
- * practice). The percent change is of day 1: Δ% = 100 · (day 2 − day 1) / day 1.
- * Whether a change counts against the subject is carried separately (`adverse`,
- * `adverseBeyondBand`), so a rise of the VE/VCO2 slope is worded as the adverse change it is.
+ * `not_comparable` when a value is missing on either day, a threshold was not found on one
+ * day, or a peak metric comes from a test that was not a maximal effort (effort.verdict !==
+ * 'maximal'): a lower peak then may reflect effort, not capacity (common practice).
+ * Δ% = 100 · (day 2 − day 1) / day 1. Whether a change counts against the subject is carried
+ * separately (`adverse`, `adverseBeyondBand`), so a rise of the VE/VCO2 slope is worded as
+ * the adverse change it is.
  */
 import type { TestAnalysis } from '../model/analysis';
-import type { BandKind } from '../model/settings';
 import { bandFor, DEFAULT_BAND_TABLE } from './bands';
+import { changeCall, verdictWords, Z_PRIMARY } from './change-interval';
+import { isPrimary } from './findings';
+import { measurementSd } from './measurement';
 import { METRICS, type MetricDefinition } from './metric-catalog';
-import type { BandTable, MetricRow, Verdict } from './types';
-
-function fmt(value: number): string {
-  return Math.abs(value) >= 100 ? value.toFixed(0) : Math.abs(value) >= 10 ? value.toFixed(1) : value.toFixed(2);
-}
+import type { BandTable, MetricRow } from './types';
 
 function missingReason(def: MetricDefinition, test: TestAnalysis, day: string): string {
   if (def.threshold) {
@@ -29,12 +26,12 @@ function missingReason(def: MetricDefinition, test: TestAnalysis, day: string): 
   return `${def.label} not available on ${day} (not recorded or not computable)`;
 }
 
-export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: TestAnalysis, kind: BandKind, table: BandTable): MetricRow {
+export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: TestAnalysis, table: BandTable): MetricRow {
   const v1 = def.read(day1);
   const v2 = def.read(day2);
   const ok1 = v1 !== null && Number.isFinite(v1);
   const ok2 = v2 !== null && Number.isFinite(v2);
-  const band = bandFor(def.id, kind, table);
+  const band = bandFor(def.id, table);
   const delta = ok1 && ok2 ? v2 - v1 : null;
   const deltaPct = ok1 && ok2 && v1 !== 0 ? (100 * (v2 - v1)) / Math.abs(v1) : null;
   const base = {
@@ -49,7 +46,7 @@ export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: T
     deltaPct,
     band,
   };
-  const notComparable = (reason: string): MetricRow => ({ ...base, verdict: 'not_comparable', adverseBeyondBand: false, reason: def.effortCheck ? `${reason}; peak RER is an effort check, not an outcome` : reason });
+  const notComparable = (reason: string): MetricRow => ({ ...base, interval: null, verdict: 'not_comparable', adverseBeyondBand: false, reason: def.effortCheck ? `${reason}; peak RER is an effort check, not an outcome` : reason });
 
   const missing = [!ok1 ? missingReason(def, day1, 'day 1') : null, !ok2 ? missingReason(def, day2, 'day 2') : null].filter((r): r is string => r !== null);
   if (missing.length > 0) return notComparable(missing.join('; '));
@@ -58,19 +55,28 @@ export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: T
     if (notMax.length > 0) return notComparable(`peak metric compared only between two maximal efforts (${notMax.join(', ')})`);
   }
   if (deltaPct === null) return notComparable('day 1 value is zero, so no percent change exists');
-  if (band === null) return notComparable('no band for this metric');
+  const m1 = measurementSd(day1, def.id);
+  const m2 = measurementSd(day2, def.id);
+  const call = changeCall(v1 as number, v2 as number, m1.sd, m2.sd, band, m1.how, isPrimary(def.id) ? Z_PRIMARY : undefined);
+  if (call === null) return notComparable('a value is not positive, so no change ratio exists');
 
-  const within = Math.abs(deltaPct) <= band.halfWidthPct;
-  const verdict: Verdict = within ? 'within' : deltaPct < 0 ? 'decline' : 'rise';
-  const adverseBeyondBand = !def.effortCheck && ((verdict === 'decline' && def.adverse === 'lower') || (verdict === 'rise' && def.adverse === 'higher'));
-  const sign = deltaPct > 0 ? '+' : '';
-  const where = within ? 'within' : 'beyond';
-  let reason = `change ${sign}${fmt(deltaPct)}% lies ${where} the band ±${fmt(band.halfWidthPct)}% (${band.kind})`;
-  if (!within) reason += adverseBeyondBand ? '; this is the adverse direction for this metric' : '; this is not the adverse direction for this metric';
+  const { verdict, interval: iv } = call;
+  const adverseBeyondBand = !def.effortCheck && ((verdict === 'fell' && def.adverse === 'lower') || (verdict === 'rose' && def.adverse === 'higher'));
+  const missingSd = [m1.sd === null ? 'day 1' : null, m2.sd === null ? 'day 2' : null].filter(Boolean);
+  let reason = `change ${signedPct(iv.changePct)} (measurement interval ${signedPct(iv.lowPct)} to ${signedPct(iv.highPct)}, from ${m1.how}); a reproduced test lies within ${signedPct(band.lowPct)} to ${signedPct(band.highPct)}`;
+  if (band.centrePct !== 0) reason += ` (centred on the band's mean day-2 change ${signedPct(band.centrePct)})`;
+  if (missingSd.length > 0) reason += `; no measurement interval on ${missingSd.join(' and ')}, so the band alone applies there`;
+  reason += `; ${verdictWords(verdict)}`;
+  if (verdict === 'fell' || verdict === 'rose') reason += ` (beyond the limit ${signedPct(verdict === 'fell' ? iv.limitLowPct : iv.limitHighPct)} that biology and both days' measurement allow together)`;
+  else if (verdict === 'open') reason += ' (the interval reaches past a band edge, but the change is not beyond the combined limit)';
   if (def.effortCheck) reason += '; peak RER is an effort check, not an outcome';
-  return { ...base, verdict, adverseBeyondBand, reason };
+  return { ...base, interval: iv, verdict, adverseBeyondBand, reason };
 }
 
-export function compareMetrics(day1: TestAnalysis, day2: TestAnalysis, kind: BandKind, table: BandTable = DEFAULT_BAND_TABLE): MetricRow[] {
-  return METRICS.map((def) => compareMetric(def, day1, day2, kind, table));
+function signedPct(value: number): string {
+  return `${value > 0 ? '+' : value < 0 ? '−' : ''}${Math.abs(value).toFixed(1)} %`;
+}
+
+export function compareMetrics(day1: TestAnalysis, day2: TestAnalysis, table: BandTable = DEFAULT_BAND_TABLE): MetricRow[] {
+  return METRICS.map((def) => compareMetric(def, day1, day2, table));
 }

@@ -3,12 +3,13 @@
  * and the interval between the starts, and turns every mismatch into a warning. A different
  * subject id is a hard mismatch; everything else is soft (the comparison runs and says so).
  *
- * Interval window: settings.compare.intervalHMin–intervalHMax (about 20–52 h; two-day testing
- * is about 24 h apart, common practice). Ramp rates count as different when they differ by more
+ * Interval window: settings.compare.intervalHMin–intervalHMax (18–72 h; two-day testing is
+ * about 24 h apart, common practice); an interval outside it is stated on page 1 of the report. Ramp rates count as different when they differ by more
  * than 1 W/min and more than 5% of day 1's rate: the rate is estimated from the averaged load,
  * so smaller differences are estimation noise (Twofold's tolerance, common practice).
- * Times: metadata.testStart as ISO 8601; both days are read the same way, so a missing zone
- * offset cancels out.
+ * Times: metadata.testStart as ISO 8601. A start time without a zone offset is read as UTC and
+ * the pairing says so; when both days lack a zone the offset cancels out of the interval.
+ * Day order, a day-2 start before day 1, is a refusal (refusals.ts), not a warning.
  */
 import type { TestAnalysis } from '../model/analysis';
 import type { Settings } from '../model/settings';
@@ -21,6 +22,18 @@ function normalise(text: string | null): string | null {
   if (text === null) return null;
   const t = text.trim().toLowerCase().replace(/\s+/g, ' ');
   return t === '' ? null : t;
+}
+
+/** True when an ISO 8601 date-time carries Z or a ±hh:mm offset. */
+export function hasZone(iso: string): boolean {
+  return /(Z|[+-]\d{2}:?\d{2})$/i.test(iso.trim()) || !/T\d/.test(iso);
+}
+
+/** Milliseconds of a start time; a date-time without a zone is read as UTC. */
+export function startMs(iso: string | null): number {
+  if (iso === null) return Number.NaN;
+  const v = iso.trim();
+  return Date.parse(hasZone(v) ? v : `${v}Z`);
 }
 
 export function pairTests(day1: TestAnalysis, day2: TestAnalysis, settings: Settings): Pairing {
@@ -68,13 +81,15 @@ export function pairTests(day1: TestAnalysis, day2: TestAnalysis, settings: Sett
   }
 
   let intervalH: number | null = null;
-  const t1 = m1.testStart !== null ? Date.parse(m1.testStart) : Number.NaN;
-  const t2 = m2.testStart !== null ? Date.parse(m2.testStart) : Number.NaN;
+  const noZone = [m1.testStart !== null && !hasZone(m1.testStart) ? 'day 1' : null, m2.testStart !== null && !hasZone(m2.testStart) ? 'day 2' : null].filter(Boolean);
+  if (noZone.length > 0) soft('start-without-zone', `The start time of ${noZone.join(' and ')} has no time-zone offset; Twofold reads it as UTC.`);
+  const t1 = startMs(m1.testStart);
+  const t2 = startMs(m2.testStart);
   if (Number.isFinite(t1) && Number.isFinite(t2)) {
     intervalH = (t2 - t1) / 3_600_000;
     const { intervalHMin, intervalHMax } = settings.compare;
     if (intervalH <= 0) {
-      soft('day2-not-after-day1', `Day 2 starts ${Math.abs(intervalH).toFixed(1)} h before day 1 (or at the same time): check that the files are in day order.`);
+      soft('day2-not-after-day1', `Day 2 starts ${Math.abs(intervalH).toFixed(1)} h before day 1 (or at the same time); the days were confirmed in this order.`);
     } else if (intervalH < intervalHMin || intervalH > intervalHMax) {
       soft('interval-outside', `The tests are ${intervalH.toFixed(1)} h apart, outside the expected ${intervalHMin}–${intervalHMax} h for two-day testing.`);
     }

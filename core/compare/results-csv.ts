@@ -1,8 +1,11 @@
 /**
  * The batch results table (CSV, our own layout): one row per manifest pair, compared or
  * skipped with its located error, so no pair is ever dropped silently. Columns: pair_id,
- * status (compared | skipped), error, interval_h, hard_mismatch, warnings, band_kind,
- * band_origin, then for each metric `<id>_day1`, `<id>_day2`, `<id>_delta_pct`, `<id>_verdict`.
+ * status (compared | skipped | refused), error, interval_h, hard_mismatch, warnings, band,
+ * band_origin, then for each metric `<id>_day1`, `<id>_day2`, `<id>_delta_pct`, `<id>_verdict`
+ * (held = reproduced, fell = lower on day 2, rose = higher on day 2, open = undetermined).
+ * A refused pair (refusals.ts: same file, same series, day order, day metadata) carries the
+ * refusal as its error and no values.
  * Comma delimiter, dot decimals, RFC 4180 quoting, LF line ends.
  */
 import { formatLocated, type LocatedError } from '../model/errors';
@@ -21,7 +24,7 @@ function cell(value: string | number | boolean | null): string {
 
 export function resultsHeader(): string {
   const metricCols = METRIC_IDS.flatMap((id) => [`${id}_day1`, `${id}_day2`, `${id}_delta_pct`, `${id}_verdict`]);
-  return ['pair_id', 'status', 'error', 'interval_h', 'hard_mismatch', 'warnings', 'band_kind', 'band_origin', ...metricCols].join(',');
+  return ['pair_id', 'status', 'error', 'interval_h', 'hard_mismatch', 'warnings', 'band', 'band_origin', ...metricCols].join(',');
 }
 
 export function resultsRow(outcome: BatchOutcome): string {
@@ -30,6 +33,10 @@ export function resultsRow(outcome: BatchOutcome): string {
     return [cell(outcome.pairId), 'skipped', cell(formatLocated(outcome.error)), ...blanks].join(',');
   }
   const c = outcome.comparison;
+  if (c.refusals.length > 0) {
+    const blanks = new Array(5 + METRIC_IDS.length * 4).fill('');
+    return [cell(outcome.pairId), 'refused', cell(c.refusals.map((r) => `${r.code}: ${r.message}`).join(' | ')), ...blanks].join(',');
+  }
   const byId = new Map(c.metrics.map((m) => [m.id, m]));
   const metricCells = METRIC_IDS.flatMap((id) => {
     const m = byId.get(id);
@@ -42,7 +49,7 @@ export function resultsRow(outcome: BatchOutcome): string {
     cell(c.pairing.intervalH),
     cell(c.pairing.hardMismatch),
     cell(c.pairing.warnings.map((w) => w.message).join(' | ')),
-    c.bandKind,
+    cell(c.band.description),
     c.band.origin,
     ...metricCells,
   ].join(',');

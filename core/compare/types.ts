@@ -2,7 +2,6 @@
  * Types shared by the day-2-against-day-1 comparison modules. Units live in the names;
  * percentages are percent of day 1 (or of the grand mean for a band).
  */
-import type { BandKind } from '../model/settings';
 
 /** Which way a change counts against the subject: a lower VO2, a higher VE/VCO2 slope. */
 export type AdverseDirection = 'lower' | 'higher';
@@ -28,10 +27,15 @@ export type MetricId =
   | 'oues'
   | 'duration';
 
-export type Verdict = 'within' | 'decline' | 'rise' | 'not_comparable';
+/**
+ * The call on one metric's day-2 change, read from its change interval against the band
+ * (core/compare/change-interval.ts). Report wording: held → "reproduced", fell → "lower on
+ * day 2", rose → "higher on day 2", open → "undetermined", not_comparable → "not comparable".
+ */
+export type Verdict = 'held' | 'fell' | 'rose' | 'open' | 'not_comparable';
 
 /** Where a band came from; the report always states it. */
-export type BandOrigin = 'default' | 'lab-stated' | 'lab-derived';
+export type BandOrigin = 'default' | 'published' | 'lab-stated' | 'lab-derived';
 
 /** One metric's band: the within-subject coefficient of variation and where it comes from. */
 export interface BandEntry {
@@ -39,21 +43,33 @@ export interface BandEntry {
   readonly cvPct: number;
   /** The citation, "common practice", or a note of how the lab derived it. */
   readonly source: string;
+  /** Mean day-2 change of the band's population, % (a practice effect); the band centres on it. 0 when not stated. */
+  readonly meanChangePct?: number;
 }
 
 export interface BandTable {
   readonly origin: BandOrigin;
   /** One line naming the table: the default table, or the lab's file and what it holds. */
   readonly description: string;
+  /** Who was retested (e.g. "sedentary or healthy control groups of two-day studies"). */
+  readonly population: string;
+  /** How far apart the two tests were (e.g. "24 h"). */
+  readonly retestInterval: string;
+  /** What the entries are (e.g. "within-subject CV on the log scale; limits 1.96 × √2 × ln(1 + CV)"). */
+  readonly statistic: string;
+  /** The citation(s) behind the table as a whole. */
+  readonly source: string;
   readonly entries: Readonly<Partial<Record<MetricId, BandEntry>>>;
 }
 
-/** The band applied to one metric, after the band kind has been chosen. */
+/** The band applied to one metric: a reproduced test's range of day-2 change from biology alone. */
 export interface AppliedBand {
-  readonly kind: BandKind;
-  /** Half-width of the band, % of day 1: the CV (typical) or 1.96·√2·CV (mdc95). */
-  readonly halfWidthPct: number;
   readonly cvPct: number;
+  /** The band's centre (the population's mean day-2 change), %. */
+  readonly centrePct: number;
+  /** Lower and upper edge, % change: exp(ln(1 + centre) ∓ 1.96·√2·ln(1 + CV)) − 1 (asymmetric). */
+  readonly lowPct: number;
+  readonly highPct: number;
   readonly origin: BandOrigin;
   readonly source: string;
 }
@@ -88,8 +104,30 @@ export interface MetricRow {
   /** 100 · (day 2 − day 1) / day 1. */
   readonly deltaPct: number | null;
   readonly band: AppliedBand | null;
+  /** The change interval and the limits the call was read from; null when not comparable. */
+  readonly interval: ChangeInterval | null;
   readonly verdict: Verdict;
   /** True when the change lies beyond the band in the metric's adverse direction. */
   readonly adverseBeyondBand: boolean;
   readonly reason: string;
+}
+
+/**
+ * One metric's change on the log-ratio scale, with both sources of uncertainty.
+ * r = ln(day 2 / day 1); m = √(s1² + s2²), s = each day's measurement SD of ln(value);
+ * σ = √2 · ln(1 + CV), the biological SD of a stable person's log change.
+ */
+export interface ChangeInterval {
+  readonly changePct: number;
+  /** 95 % measurement interval of the change, % (r ± 1.96·m). */
+  readonly lowPct: number;
+  readonly highPct: number;
+  /** Each day's measurement SD of ln(value); null when the analysis gives no interval. */
+  readonly day1Sd: number | null;
+  readonly day2Sd: number | null;
+  /** Limits beyond which the change is called lower/higher: centre ∓ 1.96·√(σ² + m²), %. */
+  readonly limitLowPct: number;
+  readonly limitHighPct: number;
+  /** Where the measurement SD came from, in words. */
+  readonly measurement: string;
 }

@@ -1,26 +1,17 @@
 /**
- * A short, neutral summary of the comparison, generated from the numbers only: the pairing
- * problems (a different subject first and in capitals), whether both tests were maximal, the
- * changes beyond the band in each metric's adverse direction and in the other direction, what
- * could not be compared, the band kind and source, and the cautions. It states measured
- * changes and never names a condition or a cause (Twofold does not diagnose).
+ * A short, neutral summary of the comparison, generated from the numbers only: a different
+ * subject first and in capitals, any refusal, one sentence per primary finding (findings.ts),
+ * the effort of both tests, and the band's population, retest interval and source. It states
+ * measured changes and never names a condition or a cause (Twofold does not diagnose). The
+ * cautions are kept apart (CAUTIONS), in their own box, not repeated inside the summary.
  */
 import type { TestAnalysis } from '../model/analysis';
-import type { BandKind } from '../model/settings';
-import { bandKindLabel } from './bands';
-import type { BandTable, MetricRow, Pairing } from './types';
+import type { Finding } from './findings';
+import type { PairRefusal } from './refusals';
+import type { BandTable, Pairing } from './types';
 
 export const CAUTIONS =
   'Twofold supports licensed clinicians and does not diagnose. Two-day maximal testing can provoke prolonged symptom flares; screening, consent and supervision are the lab\'s responsibility. Follow local regulations and licensed practice.';
-
-function pct(value: number): string {
-  return `${Math.abs(value).toFixed(1)}%`;
-}
-
-function change(row: MetricRow): string {
-  const dir = (row.deltaPct ?? 0) < 0 ? 'lower' : 'higher';
-  return `${row.label} ${pct(row.deltaPct ?? 0)} ${dir} on day 2 (band ±${row.band ? row.band.halfWidthPct.toFixed(1) : '?'}%)`;
-}
 
 function effortSentence(day1: TestAnalysis, day2: TestAnalysis): string {
   const e1 = day1.effort.verdict;
@@ -29,27 +20,18 @@ function effortSentence(day1: TestAnalysis, day2: TestAnalysis): string {
   return `Effort: day 1 ${e1}, day 2 ${e2}; peak values are compared only between two maximal efforts.`;
 }
 
-export function summarize(day1: TestAnalysis, day2: TestAnalysis, pairing: Pairing, rows: readonly MetricRow[], kind: BandKind, table: BandTable): string {
+/** The band in one sentence: population, retest interval and source. */
+export function bandSentence(table: BandTable): string {
+  return `Band: ${table.population}, retested ${table.retestInterval} apart (${table.description}).`;
+}
+
+export function summarize(day1: TestAnalysis, day2: TestAnalysis, pairing: Pairing, found: readonly Finding[], table: BandTable, refusals: readonly PairRefusal[] = []): string {
   const parts: string[] = [];
   for (const w of pairing.warnings.filter((w) => w.severity === 'hard')) parts.push(w.message);
-  const soft = pairing.warnings.filter((w) => w.severity === 'soft');
-  if (soft.length > 0) parts.push(`Pairing warnings: ${soft.map((w) => w.message).join(' ')}`);
-  if (pairing.intervalH !== null) parts.push(`The tests were ${pairing.intervalH.toFixed(1)} h apart.`);
+  for (const r of refusals) parts.push(`NOT COMPARED: ${r.message}`);
+  if (refusals.length === 0) for (const f of found) parts.push(f.sentence);
   parts.push(effortSentence(day1, day2));
-
-  const outcome = rows.filter((r) => !r.effortCheck);
-  const adverse = outcome.filter((r) => r.adverseBeyondBand);
-  const other = outcome.filter((r) => (r.verdict === 'decline' || r.verdict === 'rise') && !r.adverseBeyondBand);
-  const within = outcome.filter((r) => r.verdict === 'within');
-  const notComparable = rows.filter((r) => r.verdict === 'not_comparable');
-
-  parts.push(adverse.length > 0 ? `Beyond the band in the adverse direction: ${adverse.map(change).join('; ')}.` : 'No metric changed beyond its band in the adverse direction.');
-  if (other.length > 0) parts.push(`Beyond the band in the other direction: ${other.map(change).join('; ')}.`);
-  parts.push(`${within.length} of ${outcome.length} metrics lie within their band.`);
-  const rer = rows.find((r) => r.effortCheck);
-  if (rer && rer.day1 !== null && rer.day2 !== null) parts.push(`Peak RER (an effort check, not an outcome): day 1 ${rer.day1.toFixed(2)}, day 2 ${rer.day2.toFixed(2)}.`);
-  if (notComparable.length > 0) parts.push(`Not compared: ${notComparable.map((r) => `${r.label} (${r.reason})`).join('; ')}.`);
-  parts.push(`Band: ${bandKindLabel(kind)}; source: ${table.description}.`);
-  parts.push(CAUTIONS);
+  if (pairing.intervalH !== null) parts.push(`The tests were ${pairing.intervalH.toFixed(1)} h apart.`);
+  parts.push(bandSentence(table));
   return parts.join(' ');
 }

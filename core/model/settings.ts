@@ -140,7 +140,7 @@ export const DEFAULT_SETTINGS: Settings = {
     hrWithinBpm: 10,
     rule: 'rer-plus-one',
   },
-  compare: { intervalHMin: 20, intervalHMax: 52, workloadStepW: 10, bandKind: 'mdc95' },
+  compare: { intervalHMin: 18, intervalHMax: 72, workloadStepW: 10, bandKind: 'mdc95' },
   report: { paper: 'a4' },
 };
 
@@ -169,9 +169,9 @@ export const SETTING_SOURCES: Readonly<Record<string, string>> = {
   'effort.hrCriterion': 'common practice (85 % of predicted, or within 10 bpm; Howley, Bassett & Welch 1995); off under beta-blockade, which blunts the HR response (common practice)',
   'effort.hrWithinBpm': 'common practice; Howley, Bassett & Welch 1995',
   'effort.rule': "RER plus one other criterion: common practice; RER alone: Balady et al., Circulation 2010 call peak RER the best non-invasive indicator of effort (memory)",
-  'compare.intervalHMin': 'common practice for two-day testing (about 24 h apart)',
-  'compare.intervalHMax': 'common practice for two-day testing (about 24 h apart)',
+  'compare.intervalHMin': 'common practice for two-day testing (about 24 h apart); 18–72 h stated on page 1 when outside',
+  'compare.intervalHMax': 'common practice for two-day testing (about 24 h apart); 18–72 h stated on page 1 when outside',
   'compare.workloadStepW': 'common practice',
-  'compare.bandKind': 'minimal detectable change MDC95 (Weir, J Strength Cond Res 2005; Hopkins, Sports Med 2000;30:1–15)',
+  'compare.bandKind': 'kept so older case files validate; no decision rule (calls read the change interval: core/compare/change-interval.ts; Hopkins, Sports Med 2000;30:1–15; Weir, J Strength Cond Res 2005)',
   'report.paper': 'user choice',
 };

@@ -14,8 +14,10 @@ import type { CaseFile } from '../case/case-file';
 import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/recompute';
 import { sha256Hex } from '../case/sha256';
 import type { Comparison } from '../compare/compare-tests';
-import { bandKindLabel } from '../compare/bands';
 import { metricDefinition } from '../compare/metric-catalog';
+import { bandStatement } from '../compare/bands';
+import { verdictWords } from '../compare/change-interval';
+import { pageOne } from '../compare/page-one';
 import { CAUTIONS } from '../compare/wording';
 import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
@@ -139,12 +141,18 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
     ['Effort, day 1', day1.analysis.effort.verdict],
     ['Effort, day 2', day2.analysis.effort.verdict],
   ]);
-  L.subheading('Summary');
-  L.paragraph(L.f.prose(comparison.summary));
+  const page = pageOne(comparison);
+  L.subheading('Finding');
+  for (const sentence of page.sentences) L.paragraph(L.f.prose(sentence));
   const recovery = followUpSummaryLine(input.caseFile);
   if (recovery) L.paragraph(L.f.prose(recovery));
+  L.paragraph(L.f.prose(`${page.bandLine} ${page.bandBasis}`), { size: 8, color: MUTED });
+  const table = (t: typeof page.primary, widths: readonly number[], firstNumeric: number) =>
+    L.table(t.header.map((header, i) => ({ header, width: widths[i], align: i >= firstNumeric && i < t.header.length - 1 ? ('right' as const) : undefined })), t.rows.map((r) => [...r]));
+  if (page.primary.rows.length > 0) table(page.primary, [0.24, 0.1, 0.1, 0.1, 0.16, 0.16, 0.14], 1);
   for (const w of comparison.pairing.warnings) L.paragraph(`${w.severity === 'hard' ? 'Pairing problem' : 'Pairing note'}: ${L.f.prose(w.message)}`, { color: WARN });
   L.notice('Cautions', CAUTIONS, ACCENT);
+  if (page.secondary.rows.length > 0) table(page.secondary, [0.3, 0.12, 0.1, 0.1, 0.08, 0.16, 0.14], 2);
 }
 
 function rampText(L: Layout, day: DayOutcome): string {
@@ -154,7 +162,7 @@ function rampText(L: Layout, day: DayOutcome): string {
 
 function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Comparison>): void {
   L.heading('Day 2 against day 1');
-  L.paragraph(`Band: ${bandKindLabel(c.bandKind)}. ${L.f.prose(c.band.description)}`, { size: 8, color: MUTED });
+  L.paragraph(L.f.prose(bandStatement(c.band)), { size: 8, color: MUTED });
   const sources: string[] = [];
   const sourceNo = (s: string) => {
     const i = sources.indexOf(s);
@@ -173,8 +181,8 @@ function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Compar
       time?.day2 ?? L.f.fixed(m.day2, d),
       time?.delta ?? L.f.signed(m.delta, d),
       L.f.signed(m.deltaPct, 1),
-      m.band ? `±${L.f.fixed(m.band.halfWidthPct, 1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
-      verdictText(m.verdict, m.adverseBeyondBand),
+      m.band ? `${L.f.signed(m.band.lowPct, 1)}/${L.f.signed(m.band.highPct, 1)} [${sourceNo(`${m.band.origin}: ${m.band.source}`)}]` : MISSING,
+      verdictWords(m.verdict),
     ];
   });
   L.table(
@@ -185,8 +193,8 @@ function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Compar
       { header: 'Day 2', width: 0.09, align: 'right' },
       { header: 'Δ', width: 0.09, align: 'right' },
       { header: 'Δ %', width: 0.08, align: 'right' },
-      { header: 'Band ± %', width: 0.12, align: 'right' },
-      { header: 'Verdict', width: 0.18 },
+      { header: 'Reproduced %', width: 0.14, align: 'right' },
+      { header: 'Call', width: 0.16 },
     ],
     rows,
   );
@@ -200,19 +208,6 @@ function comparisonSection(L: Layout, c: Comparison, outcome: CaseOutcome<Compar
 /** Decimals the comparison table prints a metric with, by its unit (`twofold verify` reads them back). */
 export function metricDigits(unit: string): number {
   return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
-}
-
-function verdictText(verdict: string, adverse: boolean): string {
-  switch (verdict) {
-    case 'within':
-      return 'within band';
-    case 'decline':
-      return adverse ? 'beyond band, adverse' : 'beyond band, lower';
-    case 'rise':
-      return adverse ? 'beyond band, adverse' : 'beyond band, higher';
-    default:
-      return 'not comparable';
-  }
 }
 
 const READING_WORDS: Readonly<Record<string, string>> = { 'local-fit': 'local fit', 'window-mean': 'window mean', none: 'not read' };

@@ -5,13 +5,16 @@
  * Quillmoor Hill Exercise Laboratory, in the fictional town of Ambersett, at 180 m
  * (barometric pressure 745 mmHg). Patient codes QH-0417, QH-0522 and QH-0638.
  *
- *  - QH-0417, cycle ramp 15 W/min: day 2 reaches VT1 at a clearly lower VO2 and workload.
- *    The day-2 physiology is a scenario assumption of impaired O2 delivery: slower VO2
- *    kinetics (τ 70 s against 40 s) and a lower ΔVO2/ΔWR (9 against 10 mL/min/W); no VO2
- *    plateau on day 2. Both days maximal (peak RER ≥ 1.10, RPE ≥ 17).
+ *  - QH-0417, cycle ramp 15 W/min: day 2 reaches VT1 earlier, at a VO2 about 24 % lower
+ *    (1300 → 985 mL/min) and the peak about 15 % lower (2250 → 1920 mL/min), near the
+ *    published mean two-day declines (Keller et al., J Transl Med 2014: VO2 at VT −15.8 %,
+ *    peak VO2 −13.8 %). The VO2–work relation is the same on both days (ΔVO2/ΔWR 10
+ *    mL/min/W), so the workload at VT1 falls further than VO2; VO2 kinetics a little slower
+ *    on day 2 (τ 50 s against 40 s); no VO2 plateau on day 2. Both days maximal (peak RER ≥
+ *    1.10, RPE ≥ 17).
  *  - QH-0522, cycle ramp 20 W/min: day 2 reproduces day 1 within a few per cent.
  *  - QH-0638, treadmill walk with speed-and-grade steps: day 2 declines (VT1 VO2 down about
- *    a third, peak VO2 down about 10 %).
+ *    24 %, peak VO2 down about 14 %).
  */
 import { defaultCycleParams, defaultTreadmillParams, type TestParams } from '../generator/params';
 
@@ -52,7 +55,7 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
   {
     id: 'qh0417',
     outcome: 'decline',
-    summary: 'cycle ramp; day 2 reaches VT1 at a much lower VO2 and workload',
+    summary: 'cycle ramp; day 2 reaches VT1 earlier (VO2 about 24 % lower) and peaks about 15 % lower',
     day1: {
       name: 'qh0417-day1',
       seed: 41701,
@@ -88,12 +91,12 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
         protocolLabel: 'cycle ramp 15 W/min after 3 min unloaded',
         testStart: '2026-03-10T09:25:00+01:00',
         barometricMmhg: LAB_BAROMETRIC_MMHG,
-        vo2TauS: 70,
-        cycleGainMlMinW: 9,
-        vo2PeakMlMin: 1970,
+        vo2TauS: 50,
+        cycleGainMlMinW: 10,
+        vo2PeakMlMin: 1920,
         plateauS: 0,
-        vt1Vo2MlMin: 830,
-        vt2Vo2MlMin: 1520,
+        vt1Vo2MlMin: 985,
+        vt2Vo2MlMin: 1630,
         hrRestBpm: 80,
         hrPeakFractionOfPredicted: 0.93,
         outlierBreaths: 3,
@@ -156,7 +159,7 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
   {
     id: 'qh0638',
     outcome: 'decline',
-    summary: 'treadmill walk; day 2 reaches VT1 at a much lower VO2 and speed-grade stage',
+    summary: 'treadmill walk; day 2 reaches VT1 at a lower VO2 (about 24 %) and an earlier speed-grade stage',
     day1: {
       name: 'qh0638-day1',
       seed: 63801,
@@ -187,11 +190,11 @@ export const DEMO_PAIRS: readonly DemoPair[] = [
         subject: qh0638,
         testStart: '2026-05-21T10:40:00+02:00',
         barometricMmhg: LAB_BAROMETRIC_MMHG,
-        vo2TauS: 55,
-        vo2PeakMlMin: 1660,
+        vo2TauS: 45,
+        vo2PeakMlMin: 1625,
         plateauS: 0,
-        vt1Vo2MlMin: 690,
-        vt2Vo2MlMin: 1330,
+        vt1Vo2MlMin: 800,
+        vt2Vo2MlMin: 1370,
         hrRestBpm: 78,
         hrPeakFractionOfPredicted: 0.93,
         outlierBreaths: 2,

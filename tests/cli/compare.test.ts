@@ -1,6 +1,6 @@
 // `twofold compare` end to end through the real importer and analyzeTest, on pairs written
 // by the test-data generator (a stated model with known VT1; sample-tests/generator). The
-// bands are Twofold's defaults (Decato et al. 2018 CVs; MDC95 = 2.77 × CV, Weir 2005).
+// band is Twofold's default (24-h controls; VT1 VO2 CV 6 % → −14.9 / +17.5 % on the log scale).
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { tmpdir } from 'node:os';
@@ -26,45 +26,64 @@ beforeAll(() => {
 });
 
 describe('twofold compare DAY1 DAY2', () => {
-  it('--json: a true VT1 VO2 drop of 40% (1100 → 660 mL/min) is a decline beyond the mdc95 band ±28.8%', async () => {
+  it('--json: a true VT1 VO2 drop of 40% (1100 → 660 mL/min) is lower on day 2', async () => {
     const t = captureIo(dir);
     expect(await main(['compare', declining.day1, declining.day2, '--json'], t.io)).toBe(0);
     const j = JSON.parse(t.out());
     const vt1 = j.metrics.find((m: any) => m.id === 'vt1_vo2');
     expect(Math.abs(vt1.day1 / declining.trueVt1Day1MlMin - 1)).toBeLessThan(0.2); // detector near truth
     expect(Math.abs(vt1.day2 / declining.trueVt1Day2MlMin - 1)).toBeLessThan(0.2);
-    expect(vt1.verdict).toBe('decline');
-    expect(vt1.band_pct).toBeCloseTo(28.83, 2); // 10.4 × 2.77186
+    expect(vt1.verdict).toBe('fell');
+    expect(vt1.band_low_pct).toBeCloseTo(-14.91, 2); // exp(−1.96·√2·ln 1.06) − 1
     expect(j.pairing.interval_h).toBe(24.5); // 09:00 → 09:30 next day
-    expect(j.band.kind).toBe('mdc95');
-    expect(j.summary).toMatch(/VO2 at VT1 [\d.]+% lower on day 2/);
+    expect(j.band.retest_interval).toBe('24 h');
+    expect(j.summary).toMatch(/^VT1 came earlier on day 2: VO2 −[\d.]+ %/);
   });
 
-  it('a reproducing pair (same model, new noise): VT1 VO2 and peak VO2 within the band', async () => {
+  it('a reproducing pair (same model, new noise): never lower or higher on a primary outcome; peak VO2 reproduced', async () => {
     const t = captureIo(dir);
     expect(await main(['compare', reproducing.day1, reproducing.day2, '--json'], t.io)).toBe(0);
     const j = JSON.parse(t.out());
     const vt1 = j.metrics.find((m: any) => m.id === 'vt1_vo2');
     expect(Math.abs(vt1.day1 / reproducing.trueVt1Day1MlMin - 1)).toBeLessThan(0.2); // detector near truth
     expect(Math.abs(vt1.day2 / reproducing.trueVt1Day2MlMin - 1)).toBeLessThan(0.2);
-    for (const id of ['vt1_vo2', 'peak_vo2', 'vt1_work']) expect(j.metrics.find((m: any) => m.id === id).verdict, id).toBe('within');
+    for (const id of ['vt1_vo2', 'peak_vo2', 'vt1_work', 'peak_work']) expect(['held', 'open'], id).toContain(j.metrics.find((m: any) => m.id === id).verdict);
+    expect(j.metrics.find((m: any) => m.id === 'peak_vo2').verdict).toBe('held');
   });
 
-  it('prints a readable table with the band kind, the summary and the cautions', async () => {
+  it('prints the finding, the primary and secondary tables, the band statement and the cautions', async () => {
     const t = captureIo(dir);
     expect(await main(['compare', declining.day1, declining.day2], t.io)).toBe(0);
     expect(t.out()).toContain('VO2 at VT1 (mL/min)');
-    expect(t.out()).toContain('band: minimal detectable change');
+    expect(t.out()).toContain('Retest interval: 24 h');
+    expect(t.out()).toMatch(/Primary outcome .*Change interval %.*Reproduced range %.*Call/);
+    expect(t.out()).toContain('Secondary metric');
     expect(t.out()).toContain('Matched workloads (incremental phase');
     expect(t.out()).toContain('does not diagnose');
   });
 
-  it('--settings bandKind typical narrows the band to ± the CV (10.4%)', async () => {
+  it('--band healthy-30d uses Decato et al. 2018 (CV 10.4 % → −24.0 / +31.6 %); bandKind typical is no decision rule', async () => {
+    const t = captureIo(dir);
+    expect(await main(['compare', reproducing.day1, reproducing.day2, '--json', '--band', 'healthy-30d'], t.io)).toBe(0);
+    const row = JSON.parse(t.out()).metrics.find((m: any) => m.id === 'vt1_vo2');
+    expect(row.band_cv_pct).toBe(10.4);
+    expect(row.band_low_pct).toBeCloseTo(-23.99, 1);
     const settings = join(dir, 'typical.json');
     writeFileSync(settings, JSON.stringify({ compare: { bandKind: 'typical' } }));
-    const t = captureIo(dir);
-    expect(await main(['compare', reproducing.day1, reproducing.day2, '--json', '--settings', settings], t.io)).toBe(0);
-    expect(JSON.parse(t.out()).metrics.find((m: any) => m.id === 'vt1_vo2').band_pct).toBe(10.4);
+    const a = captureIo(dir);
+    const b = captureIo(dir);
+    expect(await main(['compare', declining.day1, declining.day2, '--json', '--settings', settings], a.io)).toBe(0);
+    expect(await main(['compare', declining.day1, declining.day2, '--json'], b.io)).toBe(0);
+    expect(JSON.parse(a.out()).metrics).toEqual(JSON.parse(b.out()).metrics);
+  });
+
+  it('refuses the same file for both days, and day 2 before day 1 unless --allow-order (exit 2)', async () => {
+    const same = captureIo(dir);
+    expect(await main(['compare', declining.day1, declining.day1], same.io)).toBe(2);
+    expect(same.err()).toMatch(/refused \(same-file\): .*same SHA-256/);
+    const swapped = captureIo(dir);
+    expect(await main(['compare', declining.day2, declining.day1], swapped.io)).toBe(2);
+    expect(swapped.err()).toMatch(/refused \(day-order\): Day 2 .* starts 24.5 h before day 1/);
   });
 
   it('exit 2 with FILE:LINE:COLUMN for a missing file, a bad band file and a garbled breath file', async () => {
@@ -106,7 +125,8 @@ describe('twofold compare --manifest', () => {
     expect(rows.length).toBe(4);
     expect(rows.map((r) => r.split(',').slice(0, 2).join(','))).toEqual(['pair_id,status', 'A,compared', 'BROKEN,skipped', 'B,compared']);
     const header = rows[0].split(',');
-    expect(rows[3].split(',')[header.indexOf('vt1_vo2_verdict')]).toBe('decline'); // truth −40%
+    // truth −40 %: lower on day 2, or undetermined where the two VT1 intervals are wide; never reproduced or higher
+    expect(['fell', 'open']).toContain(rows[3].split(',')[header.indexOf('vt1_vo2_verdict')]);
   });
 
   it('runs on worker threads with results in manifest order', async () => {
@@ -126,7 +146,7 @@ describe('twofold compare --manifest', () => {
     expect(t.err()).toContain('skipped pair MISSING: none.csv:0:0: Cannot open this breath file');
   });
 
-  it('the batch (no bootstrap) gives the same results row as a full analysis with the bootstrap', async () => {
+  it('the batch analyses with the bootstrap, so its row equals a single full comparison', async () => {
     const settings = DEFAULT_SETTINGS;
     const read = async (p: string, s: typeof settings) => {
       const r = await loadAnalysis(p, p, s);
@@ -135,7 +155,7 @@ describe('twofold compare --manifest', () => {
     };
     const full = compareTests(await read(declining.day1, settings), await read(declining.day2, settings), settings);
     const fast = batchAnalysisSettings(settings);
-    expect(fast.thresholds.bootstrap.replicates).toBe(0);
+    expect(fast.thresholds.bootstrap.replicates).toBe(settings.thresholds.bootstrap.replicates);
     const quick = compareTests(await read(declining.day1, fast), await read(declining.day2, fast), settings);
     expect(resultsRow({ pairId: 'X', status: 'compared', comparison: quick })).toBe(resultsRow({ pairId: 'X', status: 'compared', comparison: full }));
   });
@@ -159,27 +179,26 @@ const demoJson = async (id: string) => {
 };
 
 describe('demo pairs end to end', () => {
-  it('declining cycle pair: VT1 VO2 and VT1 workload decline beyond the band, as the truth does', async () => {
-    // truth: VT1 VO2 1300 → 830 mL/min = −36.2% (beyond ±28.83%); VT1 work 91.0 → 54.6 W = −40.0%
-    // (beyond ±22.17%), from qh0417-day1/day2.truth.json
+  it('declining cycle pair: the peak is lower on day 2; VT1 lower or undetermined, never higher', async () => {
+    // truth (qh0417-day1/day2.truth.json): VT1 VO2 1300 → 985 mL/min = −24.2 %; peak 2250 → 1920 = −14.7 %
     const t1 = truth('qh0417-day1');
     const t2 = truth('qh0417-day2');
-    expect((100 * (t2.vt1.vo2MlMin - t1.vt1.vo2MlMin)) / t1.vt1.vo2MlMin).toBeLessThan(-28.83);
-    expect((100 * (t2.vt1.workW - t1.vt1.workW)) / t1.vt1.workW).toBeLessThan(-22.17);
+    expect((100 * (t2.vt1.vo2MlMin - t1.vt1.vo2MlMin)) / t1.vt1.vo2MlMin).toBeCloseTo(-24.2, 1);
     const j = await demoJson('qh0417');
-    for (const id of ['vt1_vo2', 'vt1_work']) {
-      expect(j.metrics.find((m: any) => m.id === id), id).toMatchObject({ verdict: 'decline', adverse_beyond_band: true });
-    }
+    expect(j.findings.find((f: any) => f.id === 'peak')).toMatchObject({ verdict: 'fell', words: 'lower on day 2' });
+    expect(['fell', 'open']).toContain(j.findings.find((f: any) => f.id === 'vt1').verdict);
+    for (const id of ['vt1_vo2', 'vt1_work', 'peak_vo2', 'peak_work']) expect(['fell', 'open'], id).toContain(j.metrics.find((m: any) => m.id === id).verdict);
     expect(j.pairing.warnings).toEqual([]);
     expect(j.summary).toContain('Both tests met the maximal-effort criteria.');
   });
 
-  it('reproducing cycle pair: every comparable metric within its band', async () => {
+  it('reproducing cycle pair: no metric lower or higher on day 2; the peak reproduced', async () => {
     const j = await demoJson('qh0522');
     const comparable = j.metrics.filter((m: any) => m.verdict !== 'not_comparable');
     expect(comparable.length).toBeGreaterThanOrEqual(15);
-    for (const m of comparable) expect(m.verdict, m.id).toBe('within');
-    expect(j.summary).toContain('No metric changed beyond its band in the adverse direction.');
+    for (const m of comparable) expect(['held', 'open'], m.id).toContain(m.verdict);
+    expect(j.findings.find((f: any) => f.id === 'peak').verdict).toBe('held');
+    expect(j.summary).toContain('The peak reproduced day 1');
   });
 
   it('treadmill pair: matched workloads and watts are not available, and say why', async () => {
@@ -206,8 +225,8 @@ describe('demo pairs end to end', () => {
     const header = rows[0].split(',');
     const byId = new Map(rows.slice(1).map((r) => [r.split(',')[0], r.split(',')]));
     expect(byId.get('BROKEN')![1]).toBe('skipped');
-    expect(byId.get('QH-0417')![header.indexOf('vt1_vo2_verdict')]).toBe('decline');
-    expect(byId.get('QH-0522')![header.indexOf('vt1_vo2_verdict')]).toBe('within');
+    expect(byId.get('QH-0417')![header.indexOf('peak_vo2_verdict')]).toBe('fell');
+    expect(['held', 'open']).toContain(byId.get('QH-0522')![header.indexOf('vt1_vo2_verdict')]);
     expect(byId.get('QH-0638')![header.indexOf('vt1_work_verdict')]).toBe('not_comparable');
   });
 });

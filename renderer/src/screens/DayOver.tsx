@@ -4,7 +4,9 @@
  * and words), the matched-workload table, and overlays of both days.
  */
 import { useMemo } from 'react';
+import { bandStatement } from '../../../core/compare/bands';
 import type { Comparison } from '../../../core/compare/compare-tests';
+import { isPrimary } from '../../../core/compare/findings';
 import type { MatchedVariable } from '../../../core/compare/matched';
 import type { EngineView } from '../engine/protocol';
 import { Chart } from '../charts/Chart';
@@ -36,9 +38,18 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
       <Caution />
       <section className="panel summary">
         <h2>Summary</h2>
+        {c.refusals.length > 0 && (
+          <ul className="warnings" data-testid="pair-refused">
+            {c.refusals.map((r) => (
+              <li key={r.code} className="hard">
+                Not compared: {r.message}
+              </li>
+            ))}
+          </ul>
+        )}
         <p data-testid="comparison-summary">{prose(c.summary)}</p>
         <p className="hint">
-          Band: {c.bandKind === 'mdc95' ? 'minimal detectable change (MDC95 = 1.96 × √2 × CV)' : 'typical variation (± CV)'} — {prose(c.band.description)}.
+          {bandStatement(c.band)}
           {c.pairing.intervalH !== null && ` Interval between the tests: ${fmt(c.pairing.intervalH, 1, 'h')}.`}
         </p>
         {c.pairing.warnings.length > 0 && (
@@ -62,13 +73,14 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
               <th>Day 2</th>
               <th>Change</th>
               <th>Change %</th>
-              <th>Band ±%</th>
-              <th>Verdict</th>
+              <th>Change interval %</th>
+              <th>Reproduced range %</th>
+              <th>Call</th>
               <th>Band source</th>
             </tr>
           </thead>
           <tbody>
-            {c.metrics.map((m) => {
+            {(c.refusals.length > 0 ? [] : c.metrics).map((m) => {
               const style = verdictStyle(m.verdict, m.adverseBeyondBand);
               const d = digitsOf(m.unit);
               return (
@@ -78,6 +90,7 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
                     {m.unit && m.unit !== 's' && <span className="unit"> ({m.unit})</span>}
                     {m.unit === 's' && <span className="unit"> (m:ss)</span>}
                     {m.effortCheck && <span className="tag">effort check</span>}
+                    {isPrimary(m.id) && <span className="tag">primary</span>}
                   </th>
                   <td>
                     {m.unit === 's' ? clock(m.day1) : fmt(m.day1, d)}
@@ -89,7 +102,8 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
                   </td>
                   <td>{m.unit === 's' ? signedClock(m.delta) : signed(m.delta, d, m.unit)}</td>
                   <td>{signed(m.deltaPct, 1, '%')}</td>
-                  <td>{m.band ? `±${fmt(m.band.halfWidthPct, 1)}%` : '—'}</td>
+                  <td>{m.interval ? `${signed(m.interval.lowPct, 1, '')} to ${signed(m.interval.highPct, 1, '%')}` : '—'}</td>
+                  <td>{m.band ? `${signed(m.band.lowPct, 1, '')} to ${signed(m.band.highPct, 1, '%')}` : '—'}</td>
                   <td className="verdict" data-verdict={m.verdict} title={m.reason}>
                     <span className="chip" style={{ background: style.colour }} aria-hidden="true" /> {style.words}
                   </td>

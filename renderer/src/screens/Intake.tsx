@@ -113,6 +113,18 @@ export function Intake({ host, chooseRef, question, onStart, onOpen, onAnswerMap
           <DayDrop day={1} file={files[1]} onFile={(f) => void take(1, f)} inputRef={chooseRef} />
           <DayDrop day={2} file={files[2]} onFile={(f) => void take(2, f)} />
         </div>
+        <button
+          type="button"
+          data-testid="swap-days"
+          disabled={!files[1] && !files[2]}
+          title="Day 2 must start after day 1 (a pair in the wrong order is refused): swap the two files and their clinical inputs"
+          onClick={() => {
+            setFiles((f) => ({ 1: f[2], 2: f[1] }));
+            setClinical((c) => ({ 1: c[2], 2: c[1] }));
+          }}
+        >
+          Swap day 1 and day 2
+        </button>
         <table className="clinical">
           <caption>Recorded beside the breath file (leave blank when not measured)</caption>
           <thead>

@@ -14,6 +14,8 @@ import type { TestMetadata } from '../../../core/model/breath-table';
 export interface FixtureOptions {
   readonly sourceName?: string;
   readonly metadata?: Partial<TestMetadata>;
+  /** No per-fixture VCO2 offset (for tests that read the series to 12 digits). */
+  readonly exactSeries?: boolean;
   readonly rampWPerMin?: number;
   readonly endS?: number;
   readonly vo2RestMlMin?: number;
@@ -46,7 +48,10 @@ function threshold(id: 'vt1' | 'vt2', at: Partial<ValuesAt> | null | undefined):
   return { id, methods: [], at: full, ci95Vo2MlMin: null, ci95TimeS: null, spreadVo2MlMin: 0, methodsDisagree: false, reason: null };
 }
 
+let fixtureCount = 0;
+
 export function buildAnalysis(options: FixtureOptions = {}): TestAnalysis {
+  fixtureCount++;
   const ramp = options.rampWPerMin ?? 15;
   const startS = 180;
   const endS = options.endS ?? 900;
@@ -56,10 +61,12 @@ export function buildAnalysis(options: FixtureOptions = {}): TestAnalysis {
   for (let t = 0; t <= endS + 120; t += 5) {
     const onRamp = t >= startS && t <= endS;
     const w = onRamp ? (ramp * (t - startS)) / 60 : 0;
+    // A per-fixture offset of VCO2 (µL/min) keeps two fixtures from being the same breath series
+    // (which the comparison refuses, core/compare/refusals.ts) without changing any worked value.
     const vo2 = vo2Rest + slope * w;
     series.timeS.push(t);
     series.vo2MlMin.push(vo2);
-    series.vco2MlMin.push(0.9 * vo2);
+    series.vco2MlMin.push(0.9 * vo2 + (options.exactSeries ? 0 : fixtureCount * 1e-6));
     series.veLMin.push(0.03 * 0.9 * vo2);
     series.hrBpm.push(70 + 0.5 * w);
     series.workW.push(options.noWork ? null : w);

@@ -7,8 +7,8 @@ import { buildAnalysis } from './fixture';
 
 describe('matchedWorkloads', () => {
   // day 1: 15 W/min for 720 s → 0–180 W; day 2: ends at 780 s → 0–150 W, VO2 slope 11 mL/min/W.
-  const day1 = buildAnalysis({ vt1: { workW: 101.9 } });
-  const day2 = buildAnalysis({ endS: 780, slopeMlMinW: 11, vt1: { workW: 80 } });
+  const day1 = buildAnalysis({ exactSeries: true,  vt1: { workW: 101.9 } });
+  const day2 = buildAnalysis({ exactSeries: true,  endS: 780, slopeMlMinW: 11, vt1: { workW: 80 } });
   const m = matchedWorkloads(day1, day2, DEFAULT_SETTINGS);
 
   it('steps of 10 W over the common range 0–150 W, plus both VT1 workloads', () => {
@@ -46,9 +46,9 @@ describe('matchedWorkloads', () => {
   });
 
   it('treadmill and missing load: not available, with the reason', () => {
-    const tm = matchedWorkloads(day1, buildAnalysis({ metadata: { modality: 'treadmill' }, noWork: true }), DEFAULT_SETTINGS);
+    const tm = matchedWorkloads(day1, buildAnalysis({ exactSeries: true,  metadata: { modality: 'treadmill' }, noWork: true }), DEFAULT_SETTINGS);
     expect(tm).toEqual({ available: false, reason: 'Not available: day 2 on a treadmill, which has no workload in watts.' });
-    const noLoad = matchedWorkloads(day1, buildAnalysis({ noWork: true }), DEFAULT_SETTINGS);
+    const noLoad = matchedWorkloads(day1, buildAnalysis({ exactSeries: true,  noWork: true }), DEFAULT_SETTINGS);
     expect(noLoad.available).toBe(false);
   });
 

@@ -27,13 +27,19 @@ describe('pairTests', () => {
     expect(p.hardMismatch).toBe(false);
   });
 
-  it('60 h apart lies outside 20–52 h; day 2 before day 1 is flagged', () => {
-    const late = pairTests(day1, buildAnalysis({ metadata: { testStart: '2026-03-04T21:00:00Z' } }), DEFAULT_SETTINGS);
-    expect(late.intervalH).toBe(60);
+  it('84 h apart lies outside 18–72 h; day 2 before day 1 is noted (the refusal is refusals.ts)', () => {
+    const late = pairTests(day1, buildAnalysis({ metadata: { testStart: '2026-03-05T21:00:00Z' } }), DEFAULT_SETTINGS);
+    expect(late.intervalH).toBe(84);
     expect(late.warnings.map((w) => w.code)).toEqual(['interval-outside']);
     const early = pairTests(day1, buildAnalysis({ metadata: { testStart: '2026-03-01T09:00:00Z' } }), DEFAULT_SETTINGS);
     expect(early.intervalH).toBe(-24);
     expect(early.warnings.map((w) => w.code)).toEqual(['day2-not-after-day1']);
+  });
+
+  it('states a start time without a zone, read as UTC', () => {
+    const p = pairTests(day1, buildAnalysis({ metadata: { testStart: '2026-03-03T09:00:00' } }), DEFAULT_SETTINGS);
+    expect(p.warnings.map((w) => w.code)).toEqual(['start-without-zone']);
+    expect(p.intervalH).toBe(24);
   });
 
   it('ramp 15 vs 20 W/min warns; 15 vs 15.5 W/min (within 1 W/min) does not', () => {

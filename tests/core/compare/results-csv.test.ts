@@ -20,7 +20,7 @@ describe('results CSV', () => {
     const row = resultsRow({ pairId: 'P1', status: 'compared', comparison: c }).split(',');
     expect(row.length).toBe(columns.length);
     expect(row[columns.indexOf('vt1_vo2_delta_pct')]).toBe('-20'); // (1200 − 1500)/1500
-    expect(row[columns.indexOf('vt1_vo2_verdict')]).toBe('within'); // 20% < 28.83% mdc95
+    expect(row[columns.indexOf('vt1_vo2_verdict')]).toBe('fell'); // −20 % below the 24-h band edge −14.9 % (CV 6 %)
     expect(row[columns.indexOf('interval_h')]).toBe('24');
     const skipped = resultsRow({ pairId: 'P2', status: 'skipped', error: locatedError('x', 'd1.csv', 4, 2, 'Bad number') });
     expect(skipped).toBe(`P2,skipped,d1.csv:4:2: Bad number${','.repeat(columns.length - 3)}`);

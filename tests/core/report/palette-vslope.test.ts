@@ -13,11 +13,11 @@ import { demoReport } from './fixture';
 describe('palette', () => {
   it('colours a verdict by harm, not by direction, and always gives words', () => {
     // A favourable fall (e.g. VE/VCO2 slope lower on day 2) must not take the alarm colour.
-    expect(verdictStyle('decline', false).colour).not.toBe(verdictStyle('decline', true).colour);
-    expect(verdictStyle('decline', true).colour).toBe(verdictStyle('rise', true).colour);
-    expect(verdictStyle('rise', true).words).toContain('adverse');
-    expect(verdictStyle('decline', false).words).toContain('favourable');
-    expect(verdictStyle('within', false).harm).toBe('neutral');
+    expect(verdictStyle('fell', false).colour).not.toBe(verdictStyle('fell', true).colour);
+    expect(verdictStyle('fell', true).colour).toBe(verdictStyle('rose', true).colour);
+    expect(verdictStyle('rose', true).words).toContain('adverse');
+    expect(verdictStyle('fell', false).words).toContain('favourable');
+    expect(verdictStyle('held', false).harm).toBe('neutral');
   });
 
   it('day 2 shares neither colour nor dash with a ventilatory equivalent', () => {

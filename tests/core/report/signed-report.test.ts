@@ -80,7 +80,7 @@ describe('the signed report, checked by outside tools', () => {
     // The reviewer's override of day 2 VT1 is printed with its reason.
     expect(text).toContain('test: breakpoint read 30 s earlier');
     // The trade's glyphs come through as text (DejaVu Sans subsets with a Unicode map).
-    for (const glyph of ['VO₂', '≥ 1.1', 'Δ %', '±']) expect(text).toContain(glyph);
+    for (const glyph of ['VO₂', '≥ 1.1', 'Δ %', '−']) expect(text).toContain(glyph);
     expect(text).toContain('does not diagnose');
   });
 

@@ -1,7 +1,8 @@
-// The demo scenario meets its brief, from the model's ground truth: the declining cycle pair
-// clears the strict band (MDC95 ≈ 2.77 × 10.4 % ≈ 29 % for VO2 at the threshold, Decato et
-// al. 2018 CV with Weir 2005), both days of every pair are maximal (peak RER ≥ 1.10, Balady
-// et al. 2010; RPE ≥ 17, common practice), and the days are about 24 h apart.
+// The demo scenario meets its brief (issue 11), from the model's ground truth: the declining
+// cycle pair has VT1 about 20–25 % lower in VO2 and the peak 10–15 % lower with ΔVO2/ΔWR
+// unchanged (near Keller et al., J Transl Med 2014: VO2 at VT −15.8 %, peak VO2 −13.8 %),
+// both days of every pair are maximal (peak RER ≥ 1.10, Balady et al. 2010; RPE ≥ 17, common
+// practice), and the days are about 24 h apart.
 import { describe, expect, test } from 'vitest';
 import { generateTest, type TestTruth } from '../../../sample-tests/generator/generate-test';
 import { DEMO_PAIRS } from '../../../sample-tests/scenario/demo-scenario';
@@ -14,16 +15,15 @@ function truths(id: string): [TestTruth, TestTruth] {
 }
 
 describe('demo pairs', () => {
-  test('qh0417 declines: VT1 VO2 down 35–40 %, VT1 work down about 40 %, peak VO2 down 10–15 %', () => {
+  test('qh0417 declines: VT1 VO2 down 20–25 %, peak VO2 down 10–15 %, ΔVO2/ΔWR the same both days', () => {
     const [a, b] = truths('qh0417');
-    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeLessThan(-35);
-    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeGreaterThan(-40);
-    expect(pct(a.vt1.workW!, b.vt1.workW!)).toBeLessThan(-38);
-    expect(pct(a.vt1.workW!, b.vt1.workW!)).toBeGreaterThan(-45);
+    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeLessThan(-20);
+    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeGreaterThan(-25);
     expect(pct(a.peak.vo2MlMin, b.peak.vo2MlMin)).toBeLessThan(-10);
     expect(pct(a.peak.vo2MlMin, b.peak.vo2MlMin)).toBeGreaterThan(-15);
-    // Clearly beyond the strict band: 2.77 × 10.4 % = 28.8 %.
-    expect(Math.abs(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin))).toBeGreaterThan(2.77 * 10.4 + 5);
+    expect(b.vt1.workW!).toBeLessThan(a.vt1.workW!);
+    const pair = DEMO_PAIRS.find((p) => p.id === 'qh0417')!;
+    expect(pair.day2.params.cycleGainMlMinW).toBe(pair.day1.params.cycleGainMlMinW);
   });
 
   test('qh0522 reproduces: VT1 and peak VO2 within 5 %', () => {
@@ -34,9 +34,12 @@ describe('demo pairs', () => {
     expect(Math.abs(pct(a.vt1.workW!, b.vt1.workW!))).toBeLessThan(5);
   });
 
-  test('qh0638 (treadmill) declines: VT1 VO2 down more than 30 %, no work signal', () => {
+  test('qh0638 (treadmill) declines: VT1 VO2 down 20–25 %, peak 10–15 %, no work signal', () => {
     const [a, b] = truths('qh0638');
-    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeLessThan(-30);
+    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeLessThan(-20);
+    expect(pct(a.vt1.vo2MlMin, b.vt1.vo2MlMin)).toBeGreaterThan(-25);
+    expect(pct(a.peak.vo2MlMin, b.peak.vo2MlMin)).toBeLessThan(-10);
+    expect(pct(a.peak.vo2MlMin, b.peak.vo2MlMin)).toBeGreaterThan(-15);
     expect(a.vt1.workW).toBeNull();
     expect(b.vt1.speedKmh! * 100 + b.vt1.gradePct!).toBeLessThan(a.vt1.speedKmh! * 100 + a.vt1.gradePct!);
   });

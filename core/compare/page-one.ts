@@ -1,0 +1,82 @@
+/**
+ * What page 1 of the report leads with, as plain data (pure; the report, the CLI and the
+ * workbench lay it out): the neutral finding sentences, the band's population and retest
+ * interval, the primary table and the secondary table. No caution text here: the cautions
+ * keep their own box.
+ */
+import { bandStatement } from './bands';
+import type { Comparison } from './compare-tests';
+import { verdictWords } from './change-interval';
+import { isPrimary } from './findings';
+import type { MetricRow } from './types';
+
+export interface PageOneTable {
+  readonly header: readonly string[];
+  readonly rows: readonly (readonly string[])[];
+}
+
+export interface PageOne {
+  /** One neutral sentence per primary finding (or the refusals, when the pair was refused). */
+  readonly sentences: readonly string[];
+  /** "Band: population; retest interval …" and the full statement with statistic and source. */
+  readonly bandLine: string;
+  /** "Statistic: …. Source: …." of the band. */
+  readonly bandBasis: string;
+  readonly bandStatement: string;
+  readonly primary: PageOneTable;
+  readonly secondary: PageOneTable;
+}
+
+function digits(unit: string): number {
+  return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
+}
+
+function value(v: number | null, d: number): string {
+  return v === null || !Number.isFinite(v) ? '–' : v.toFixed(d);
+}
+
+function signedPct(v: number | null | undefined): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '–';
+  const t = Math.abs(v).toFixed(1);
+  return `${v > 0 && t !== '0.0' ? '+' : v < 0 && t !== '0.0' ? '−' : ''}${t}`;
+}
+
+function range(lo: number | undefined, hi: number | undefined): string {
+  return lo === undefined || hi === undefined ? '–' : `${signedPct(lo)} to ${signedPct(hi)}`;
+}
+
+function primaryRow(m: MetricRow): string[] {
+  const d = digits(m.unit);
+  return [
+    `${m.label}${m.unit ? ` (${m.unit})` : ''}`,
+    value(m.day1, d),
+    value(m.day2, d),
+    signedPct(m.interval?.changePct ?? m.deltaPct),
+    range(m.interval?.lowPct, m.interval?.highPct),
+    m.band ? range(m.band.lowPct, m.band.highPct) : '–',
+    verdictWords(m.verdict),
+  ];
+}
+
+function secondaryRow(m: MetricRow): string[] {
+  const d = digits(m.unit);
+  return [m.label, m.unit || '–', value(m.day1, d), value(m.day2, d), signedPct(m.deltaPct), m.band ? range(m.band.lowPct, m.band.highPct) : '–', verdictWords(m.verdict)];
+}
+
+export function pageOne(c: Comparison): PageOne {
+  const sentences = c.refusals.length > 0 ? c.refusals.map((r) => `Not compared: ${r.message}`) : c.findings.map((f) => f.sentence);
+  return {
+    sentences,
+    bandLine: `Band: ${c.band.population}; retest interval ${c.band.retestInterval} (${c.band.description}).`,
+    bandBasis: `Statistic: ${c.band.statistic}. Source: ${c.band.source}.`,
+    bandStatement: bandStatement(c.band),
+    primary: {
+      header: ['Primary outcome', 'Day 1', 'Day 2', 'Change %', 'Change interval %', 'Reproduced range %', 'Call'],
+      rows: c.refusals.length > 0 ? [] : c.metrics.filter((m) => isPrimary(m.id)).map(primaryRow),
+    },
+    secondary: {
+      header: ['Secondary metric', 'Unit', 'Day 1', 'Day 2', 'Δ %', 'Reproduced range %', 'Call'],
+      rows: c.refusals.length > 0 ? [] : c.metrics.filter((m) => !isPrimary(m.id)).map(secondaryRow),
+    },
+  };
+}

@@ -1,0 +1,71 @@
+/**
+ * Mistakes that make a comparison meaningless, refused before any verdict (exit 2 in the CLI,
+ * blocked in the workbench):
+ *
+ * - the same file for both days (equal SHA-256 of the raw bytes, when the shell gives them);
+ * - the same breath series for both days: at least half of the averaged VO2 and of the VCO2
+ *   values of one day found, exactly, among the other day's (two real tests never share averaged values; a copy of
+ *   one file under another name, or with edited metadata, does);
+ * - day 2 starting before (or at the same time as) day 1, unless the user confirms the order
+ *   (`allowOrder`: the CLI's --allow-order, the workbench's swap or confirm);
+ * - a file's own `# day:` metadata contradicting the slot it was loaded into.
+ */
+import type { TestAnalysis } from '../model/analysis';
+import { startMs } from './pairing';
+
+export type RefusalCode = 'same-file' | 'same-series' | 'day-order' | 'day-metadata';
+
+export interface PairRefusal {
+  readonly code: RefusalCode;
+  readonly message: string;
+}
+
+export interface RefusalInputs {
+  /** SHA-256 (hex) of each day's raw file, when known. */
+  readonly day1Sha256?: string | null;
+  readonly day2Sha256?: string | null;
+  /** The user confirmed that day 2 may start before day 1. */
+  readonly allowOrder?: boolean;
+}
+
+const SAME_SHARE = 0.5;
+
+function sameSeries(a: readonly number[], b: readonly number[]): boolean {
+  if (a.length === 0 || b.length === 0) return false;
+  const seen = new Set(a);
+  let equal = 0;
+  for (const v of b) if (seen.has(v)) equal++;
+  return equal >= SAME_SHARE * Math.max(a.length, b.length);
+}
+
+function statedDay(test: TestAnalysis): string | null {
+  const extra = test.metadata.extra;
+  const key = Object.keys(extra).find((k) => k.trim().toLowerCase() === 'day');
+  return key === undefined ? null : extra[key].trim();
+}
+
+export function pairRefusals(day1: TestAnalysis, day2: TestAnalysis, inputs: RefusalInputs = {}): PairRefusal[] {
+  const out: PairRefusal[] = [];
+  const n1 = day1.sourceName;
+  const n2 = day2.sourceName;
+  if (inputs.day1Sha256 && inputs.day2Sha256 && inputs.day1Sha256 === inputs.day2Sha256) {
+    out.push({ code: 'same-file', message: `The same file was given for both days: ${n1} and ${n2} have the same SHA-256 (${inputs.day1Sha256.slice(0, 16)}…). Load day 1 and day 2 from their own files.` });
+  } else if (sameSeries(day1.series.vo2MlMin, day2.series.vo2MlMin) && sameSeries(day1.series.vco2MlMin, day2.series.vco2MlMin)) {
+    out.push({ code: 'same-series', message: `${n1} and ${n2} hold the same breath series (their averaged VO2 and VCO2 values are identical): one test was loaded for both days.` });
+  }
+  for (const [slot, test] of [[1, day1], [2, day2]] as const) {
+    const stated = statedDay(test);
+    if (stated !== null && /^\d+$/.test(stated) && Number(stated) !== slot) {
+      out.push({ code: 'day-metadata', message: `${test.sourceName} states "day: ${stated}" in its metadata but was loaded as day ${slot}. Load it in the day-${stated} slot.` });
+    }
+  }
+  const t1 = startMs(day1.metadata.testStart);
+  const t2 = startMs(day2.metadata.testStart);
+  if (!inputs.allowOrder && Number.isFinite(t1) && Number.isFinite(t2) && t2 <= t1) {
+    out.push({
+      code: 'day-order',
+      message: `Day 2 (${n2}, ${day2.metadata.testStart}) starts ${((t1 - t2) / 3_600_000).toFixed(1)} h before day 1 (${n1}, ${day1.metadata.testStart}). Swap the files, or confirm this order (--allow-order).`,
+    });
+  }
+  return out;
+}

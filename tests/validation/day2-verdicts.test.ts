@@ -1,0 +1,56 @@
+// Day-2 verdicts on generated pairs of known truth (issue 11; tests/validation/day2-pairs.ts
+// states the model): 200 null pairs (biological day-to-day variation of the 24-h band plus
+// breath noise) and 200 decline pairs of the published mean two-day declines (Keller et al.,
+// J Transl Med 2014: VO2 at VT −15.8 %, peak VO2 −13.8 %; verified against the abstract), on
+// held-out seeds, for both generator families, with the analysis's default settings (bootstrap
+// 200). docs/validation.md "Day-2 verdicts" has every figure.
+//
+// Requirements: a false "lower on day 2" on any primary outcome in at most 5 % of null pairs
+// (met: A 4.0 %, B 1.0 %); "lower on day 2" on VO2 or workload at VT1 in at least 80 % of
+// decline pairs (NOT met: A 21.5 %, B 15 %; the VT1 interval the analysis gives today is wider
+// than the declines); false calls become "undetermined", never the opposite call (met on A:
+// 0 %; NOT met on B: 1 decline pair of 200 is called higher on workload at VT1).
+import { describe, expect, it } from 'vitest';
+import { figures, runPairs, runPairsB } from './day2-pairs';
+
+const aNull = figures(runPairs('null', 200, 20001));
+const aDecline = figures(runPairs('decline', 200, 30001));
+const bNullRun = runPairsB('null', 200, 40001);
+const bDeclineRun = runPairsB('decline', 200, 45001);
+const bNull = figures(bNullRun.results);
+const bDecline = figures(bDeclineRun.results);
+
+describe('day-2 verdicts, generator family A (broken-line model), 200 + 200 held-out pairs', () => {
+  it(`false "lower on day 2" on any primary outcome ≤ 5 % of null pairs (measured ${aNull.anyPrimaryFellPct.toFixed(1)} %)`, () => {
+    expect(aNull.n).toBe(200);
+    expect(aNull.anyPrimaryFellPct).toBeLessThanOrEqual(5);
+  });
+
+  it(`decline pairs are never called higher on day 2 on a primary outcome (measured ${aDecline.anyPrimaryRosePct.toFixed(1)} %)`, () => {
+    expect(aDecline.n).toBe(200);
+    expect(aDecline.anyPrimaryRosePct).toBe(0);
+  });
+
+  it(`not the requirement (≥ 80 %, unmet: ${aDecline.vt1FellPct.toFixed(1)} %): VT1 is called lower in over three times as many decline pairs as null pairs`, () => {
+    expect(aDecline.vt1FellPct).toBeGreaterThan(3 * aNull.vt1FellPct);
+    expect(aDecline.peakFellPct).toBeGreaterThan(33);
+  });
+});
+
+describe('day-2 verdicts, generator family B (kinetic model), 200 + 200 held-out pairs', () => {
+  it(`false "lower on day 2" on any primary outcome ≤ 5 % of null pairs (measured ${bNull.anyPrimaryFellPct.toFixed(1)} %)`, () => {
+    expect(bNull.n).toBe(200);
+    expect(bNullRun.skipped).toBe(0);
+    expect(bNull.anyPrimaryFellPct).toBeLessThanOrEqual(5);
+  });
+
+  it(`not the requirement (never, unmet: ${bDecline.anyPrimaryRosePct.toFixed(1)} %): at most 1 in 100 decline pairs is called higher on a primary outcome`, () => {
+    expect(bDecline.n).toBe(200);
+    expect(bDecline.anyPrimaryRosePct).toBeLessThanOrEqual(1);
+  });
+
+  it(`not the requirement (≥ 80 %, unmet: ${bDecline.vt1FellPct.toFixed(1)} %): VT1 is called lower in over three times as many decline pairs as null pairs`, () => {
+    expect(bDecline.vt1FellPct).toBeGreaterThan(3 * bNull.vt1FellPct);
+    expect(bDecline.peakFellPct).toBeGreaterThan(33);
+  });
+});
