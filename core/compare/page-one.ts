@@ -9,6 +9,8 @@ import type { Comparison } from './compare-tests';
 import { verdictWords } from './change-interval';
 import { isPrimary } from './findings';
 import type { MetricRow } from './types';
+import { formatFixed, formatSigned } from '../locale/format-number';
+import { localeByTag, type ReportLocale } from '../locale/locales';
 
 export interface PageOneTable {
   readonly header: readonly string[];
@@ -31,39 +33,35 @@ function digits(unit: string): number {
   return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
 }
 
-function value(v: number | null, d: number): string {
-  return v === null || !Number.isFinite(v) ? '–' : v.toFixed(d);
+/** The table cells' numbers in one locale (`twofold verify` reads the report's back in it). */
+function cells(locale: ReportLocale) {
+  const value = (v: number | null, d: number): string => formatFixed(v, d, locale);
+  const signedPct = (v: number | null | undefined): string => formatSigned(v, 1, locale);
+  const range = (lo: number | undefined, hi: number | undefined): string => (lo === undefined || hi === undefined ? '–' : `${signedPct(lo)} to ${signedPct(hi)}`);
+  const primaryRow = (m: MetricRow): string[] => {
+    const d = digits(m.unit);
+    return [
+      `${m.label}${m.unit ? ` (${m.unit})` : ''}`,
+      value(m.day1, d),
+      value(m.day2, d),
+      signedPct(m.interval?.changePct ?? m.deltaPct),
+      range(m.interval?.lowPct, m.interval?.highPct),
+      m.band ? range(m.band.lowPct, m.band.highPct) : '–',
+      verdictWords(m.verdict),
+    ];
+  };
+  const secondaryRow = (m: MetricRow): string[] => {
+    const d = digits(m.unit);
+    return [m.label, m.unit || '–', value(m.day1, d), value(m.day2, d), signedPct(m.deltaPct), m.band ? range(m.band.lowPct, m.band.highPct) : '–', verdictWords(m.verdict)];
+  };
+  return { primaryRow, secondaryRow };
 }
 
-function signedPct(v: number | null | undefined): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return '–';
-  const t = Math.abs(v).toFixed(1);
-  return `${v > 0 && t !== '0.0' ? '+' : v < 0 && t !== '0.0' ? '−' : ''}${t}`;
-}
+const NEUTRAL = localeByTag(undefined);
 
-function range(lo: number | undefined, hi: number | undefined): string {
-  return lo === undefined || hi === undefined ? '–' : `${signedPct(lo)} to ${signedPct(hi)}`;
-}
-
-function primaryRow(m: MetricRow): string[] {
-  const d = digits(m.unit);
-  return [
-    `${m.label}${m.unit ? ` (${m.unit})` : ''}`,
-    value(m.day1, d),
-    value(m.day2, d),
-    signedPct(m.interval?.changePct ?? m.deltaPct),
-    range(m.interval?.lowPct, m.interval?.highPct),
-    m.band ? range(m.band.lowPct, m.band.highPct) : '–',
-    verdictWords(m.verdict),
-  ];
-}
-
-function secondaryRow(m: MetricRow): string[] {
-  const d = digits(m.unit);
-  return [m.label, m.unit || '–', value(m.day1, d), value(m.day2, d), signedPct(m.deltaPct), m.band ? range(m.band.lowPct, m.band.highPct) : '–', verdictWords(m.verdict)];
-}
-
-export function pageOne(c: Comparison): PageOne {
+/** `locale` writes the tables' numbers (decimal mark, thousands); the neutral `en` when absent. */
+export function pageOne(c: Comparison, locale: ReportLocale = NEUTRAL): PageOne {
+  const { primaryRow, secondaryRow } = cells(locale);
   const sentences = c.refusals.length > 0 ? c.refusals.map((r) => `Not compared: ${r.message}`) : c.findings.map((f) => f.sentence);
   return {
     sentences,

@@ -141,7 +141,7 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
     ['Effort, day 1', day1.analysis.effort.verdict],
     ['Effort, day 2', day2.analysis.effort.verdict],
   ]);
-  const page = pageOne(comparison);
+  const page = pageOne(comparison, L.f.locale);
   L.subheading('Finding');
   for (const sentence of page.sentences) L.paragraph(L.f.prose(sentence));
   const recovery = followUpSummaryLine(input.caseFile);

@@ -19,6 +19,7 @@ import type { Settings } from '../../core/model/settings';
 import { newCase } from '../../core/case/new-case';
 import { sha256Hex } from '../../core/case/sha256';
 import { caseFromText, caseToText } from '../../core/case/case-text';
+import { reviewerEntries } from '../../core/case/opening';
 import { loadCase, saveCase } from '../case-folder';
 import { writeFileAtomic } from '../atomic-write';
 
@@ -129,7 +130,8 @@ export function createCaseStore(deps: CaseStoreDeps) {
     /**
      * Removes a case that holds no work: used when a new case's files could not be analysed,
      * so a failed try leaves nothing in Recent cases. A case with any reviewer log entry or
-     * any exported report is refused and kept.
+     * any exported report is refused and kept; the opening entry (entry 0, written by
+     * Twofold when the case is made, core/case/opening.ts) is not a reviewer's work.
      */
     discardUnreviewed(caseId: string): Outcome<{ discarded: true }> {
       const folder = folderOf(caseId);
@@ -141,7 +143,7 @@ export function createCaseStore(deps: CaseStoreDeps) {
       } catch (error) {
         if ((error as NodeJS.ErrnoException).code !== 'ENOENT') throw error;
       }
-      if (loaded.value.caseFile.log.length > 0 || reports.length > 0) {
+      if (reviewerEntries(loaded.value.caseFile.log).length > 0 || reports.length > 0) {
         return { ok: false, error: { code: 'case-has-work', file: loaded.value.path, line: null, column: null, message: 'The case holds reviewer log entries or reports, so it was kept.' } };
       }
       rmSync(folder, { recursive: true, force: true });

@@ -185,12 +185,16 @@ describe('twofold override', () => {
     const demo = join(dir, 'demo');
     expect(await main(['demo', '--out', demo], io().io)).toBe(0);
     const folder = join(demo, 'case');
-    // The demo's log: the override (entry 1), its follow-up reports, then the sign-off last.
+    // The demo's log: entry 0 opens the case, then the override (entry 1), its follow-up
+    // reports, then the sign-off last; the sign-off's number is its seq (one less than the
+    // log's length, since entry 0 is counted in the length).
     const log: { seq: number; action: { kind: string } }[] = caseJson(folder).log;
     expect(log[log.length - 1].action.kind).toBe('sign-off');
+    expect(log[0].action.kind).toBe('case-opened');
+    expect(log[log.length - 1].seq).toBe(log.length - 1);
     const t = io();
     expect(await main(['override', folder, '--withdraw', '1', '--reason', 'Back to the consensus', ...WHO], t.io), t.err()).toBe(0);
-    expect(t.out()).toContain(`the sign-off in entry ${log.length} no longer covers the thresholds shown`);
+    expect(t.out()).toContain(`the sign-off in entry ${log.length - 1} no longer covers the thresholds shown`);
     expect(caseJson(folder).recorded.numbers['day2.vt1Source']).toBe('automatic');
   });
 });

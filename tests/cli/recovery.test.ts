@@ -32,16 +32,18 @@ describe('twofold recovery', () => {
     const back = io();
     expect(await main(['recovery', folder, '--test', '1', '--hours', '2d', '--by', 'the person', '--how', 'form', '--usual', 'yes', '--rate', 'fatigue=1', ...WHO], back.io), back.err()).toBe(0);
     let c = caseJson();
-    expect(c.log.map((e: { action: { kind: string } }) => e.action.kind)).toEqual(['follow-up', 'follow-up']);
-    expect(c.log[0]).toMatchObject({ who: 'C. Coordinator', role: 'lab coordinator', reason: 'Follow-up report, recorded as given.', action: { report: { day: 1, afterTestH: 22, channel: 'phone', backToUsual: false, note: 'slept badly' } } });
+    // Entry 0 opens the case (core/case/opening.ts); the two follow-ups are entries 1 and 2.
+    expect(c.log.map((e: { action: { kind: string } }) => e.action.kind)).toEqual(['case-opened', 'follow-up', 'follow-up']);
+    expect(c.log[1]).toMatchObject({ seq: 1, who: 'C. Coordinator', role: 'lab coordinator', reason: 'Follow-up report, recorded as given.', action: { report: { day: 1, afterTestH: 22, channel: 'phone', backToUsual: false, note: 'slept badly' } } });
     expect(c.recorded.numbers['followUp.day1.recoveredByH']).toBe(48);
     expect(c.recorded.numbers['followUp.day1.notYetAtH']).toBe(22);
 
     const fix = io();
     expect(await main(['recovery', folder, '--correct', '2', '--hours', '36', '--reason', 'The form was dated 36 h after the test.', ...WHO], fix.io), fix.err()).toBe(0);
     c = caseJson();
-    expect(c.log[2]).toMatchObject({ seq: 3, reason: 'The form was dated 36 h after the test.', action: { kind: 'follow-up-correction', corrects: 2, report: { afterTestH: 36, channel: 'form', backToUsual: true } } });
-    expect(c.log[1].action.report.afterTestH).toBe(48); // the original entry is kept as recorded
+    expect(c.log[3]).toMatchObject({ seq: 3, reason: 'The form was dated 36 h after the test.', action: { kind: 'follow-up-correction', corrects: 2, report: { afterTestH: 36, channel: 'form', backToUsual: true } } });
+    expect(c.log[2]).toMatchObject({ seq: 2 });
+    expect(c.log[2].action.report.afterTestH).toBe(48); // the original entry is kept as recorded
     expect(c.recorded.numbers['followUp.day1.recoveredByH']).toBe(36);
 
     const list = io();

@@ -53,9 +53,12 @@ describe('twofold sign-off', () => {
     expect(loaded.ok).toBe(true);
     if (!loaded.ok) return;
     const log = loaded.value.caseFile.log;
-    expect(log).toHaveLength(1);
-    expect(log[0].action).toEqual({ kind: 'sign-off', statement: STATEMENT });
-    expect(log[0].who).toBe('R. Second');
+    // Entry 0 opens the case (core/case/opening.ts); the sign-off is the one reviewer entry, entry 1.
+    expect(log).toHaveLength(2);
+    expect(log[0].action.kind).toBe('case-opened');
+    expect(log[1].seq).toBe(1);
+    expect(log[1].action).toEqual({ kind: 'sign-off', statement: STATEMENT });
+    expect(log[1].who).toBe('R. Second');
 
     const signed = await report('after', folder);
     const signedPages = pages(signed);

@@ -123,7 +123,10 @@ describe('Recovery calls, keyboard only', () => {
     expect(text).toContain('quillfeather tea');
     expect(text).toMatch(/after the day 2 test, reported back to usual state by 96 h \(4 days\), not yet at 20 h/);
     expect(text).toContain('corrected in entry 3 by K. Lindqvist');
-    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path], { encoding: 'utf8', timeout: 120_000 });
-    expect(out).toContain('The report is intact and its numbers reproduce.');
+    // Signed with this session's demonstration certificate, which the workbench writes to
+    // <dataDir>/certificates/demo-certificate.pem (host/workbench/wiring.ts): the trust list.
+    const trust = join(bench.dataDir, 'certificates', 'demo-certificate.pem');
+    const out = execFileSync('node', [join(ROOT, 'bin', 'twofold.mjs'), 'verify', path, '--trust', trust], { encoding: 'utf8', timeout: 120_000 });
+    expect(out).toContain('The report is intact, signed by a trusted certificate, and its numbers and pages reproduce.');
   }, 240_000);
 });

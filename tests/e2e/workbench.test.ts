@@ -151,8 +151,9 @@ describe('browser mode, demo pair', () => {
     await page.click('[data-testid="signoff-record"]');
     await page.waitForFunction(() => document.querySelector('[data-testid="signoff-status"]')?.textContent?.startsWith('Signed off by'));
     expect(await page.locator('[data-testid="signoff-status"]').textContent()).toContain('entry 2');
-    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(2);
-    expect(await page.locator('[data-testid="review-log"] li').nth(1).textContent()).toContain('Signed off: Reviewed both tests');
+    // The opening entry (0), the override (1) and the sign-off (2): one new entry, the last.
+    expect(await page.locator('[data-testid="review-log"] li').count()).toBe(3);
+    expect(await page.locator('[data-testid="review-log"] li').nth(2).textContent()).toContain('Signed off: Reviewed both tests');
   });
 
   it('exports a signed PDF that twofold verify and pdfsig accept', async () => {

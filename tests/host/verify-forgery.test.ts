@@ -16,7 +16,9 @@ import { main } from '../../cli/main';
 import { io } from '../cli/capture-io';
 import { demoReport, opensslCertificate, trustOf, type LabCertificate } from '../core/report/fixture';
 
-const FORGED_SUMMARY = 'No decline: day 2 reproduces day 1 within the band on every metric.';
+// Page 1 leads with one finding sentence per primary finding (core/compare/findings.ts); the
+// forger swaps the peak's for the wording a reproduced peak gets.
+const FORGED_FINDING = 'The peak reproduced day 1: VO2 and workload within the band.';
 
 /** A home-made CA and a leaf named exactly like the lab's signer, the leaf's p12 carrying the CA. */
 function homeMadeChain(): LabCertificate & { caPem: string } {
@@ -47,8 +49,11 @@ beforeAll(async () => {
   forger = homeMadeChain();
   const built = await demoReport();
   honest = built.pdf;
-  // The same case, raw files and numbers embedded; only the summary drawn on page 1 rewritten.
-  const outcome = { ...built.outcome, comparison: { ...built.outcome.comparison, summary: FORGED_SUMMARY } };
+  // The same case, raw files and numbers embedded; only the peak finding drawn on page 1 rewritten.
+  const c = built.outcome.comparison;
+  if (!c.findings.some((f) => f.id === 'peak' && f.verdict !== 'held')) throw new Error('the demo pair no longer has a peak finding other than reproduced to forge');
+  const findings = c.findings.map((f) => (f.id === 'peak' ? { ...f, verdict: 'held' as const, sentence: FORGED_FINDING } : f));
+  const outcome = { ...built.outcome, comparison: { ...c, findings } };
   rewritten = await buildReport({ caseFile: built.caseFile, caseText: caseToText(built.caseFile), outcome, raw: built.raw, fonts: reportFonts(), generatedAt: '2026-03-11T10:00:00Z', reviewer: 'T. Tester, test credential', signature: 'lab' });
 }, 180_000);
 
@@ -61,14 +66,15 @@ function text(pdf: Uint8Array, page: number): string {
 describe('verify refuses forged reports', () => {
   it('a report re-signed by a home-made certificate named after the lab, page 1 rewritten: signer not trusted and page 1 named', async () => {
     const forged = await sign(rewritten, forger);
-    expect(text(forged, 1)).toContain(FORGED_SUMMARY);
+    expect(text(honest, 1)).not.toContain(FORGED_FINDING);
+    expect(text(forged, 1)).toContain(FORGED_FINDING);
     const r = await verifyReport(forged, 'forged.pdf', { trust: trustOf(lab) });
     expect(r.passed).toBe(false);
     expect(r.untrustedOnly).toBe(false);
     const failed = r.steps.filter((s) => !s.ok).map((s) => s.what);
     expect(failed[0]).toContain('Signer: The signer\'s certificate "Test Lab Signer" does not chain to a certificate on the trust list');
     expect(failed[1]).toContain('Pages: Page 1 differs from the page rebuilt');
-    expect(failed[1]).toContain('No decline');
+    expect(failed[1]).toContain(`the report shows "${FORGED_FINDING}"`);
     // The numbers embedded are the honest ones, so that check alone would have passed.
     expect(r.steps.find((s) => s.what.startsWith('Numbers:'))?.ok).toBe(true);
   });

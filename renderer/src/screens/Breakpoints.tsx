@@ -13,7 +13,7 @@ import { Chart } from '../charts/Chart';
 import { endTidalChart, equivalentsChart, vSlopeChart } from '../charts/threshold-charts';
 import { DAY_COLOUR, THRESHOLD_COLOUR } from '../charts/palette';
 import { Caution, placeOf } from '../ui/notices';
-import { clock, fmt, parseClock } from '../ui/format';
+import { clock, fmt, parseClock, prose } from '../ui/format';
 import { ReviewerMark } from '../ui/reviewer-mark';
 
 interface Props {
@@ -262,7 +262,8 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
                   <th>{c.label}</th>
                   <td>{c.met === null ? 'not assessed' : c.met ? 'met' : 'not met'}</td>
                   <td>
-                    {fmt(c.value, 2, c.unit)} (limit {fmt(c.threshold, 2, c.unit)})
+                    {prose(c.valueText)}
+                    {c.detail ? `, ${prose(c.detail)}` : ''} <span className="secondary">(rule: {prose(c.rule)})</span>
                   </td>
                 </tr>
               ))}

@@ -92,7 +92,7 @@ export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onV
           {view.log.length === 0 ? (
             <p className="hint">No reviewer actions: every threshold is the automatic estimate.</p>
           ) : (
-            <ol className="log" data-testid="review-log">
+            <ol className="log" data-testid="review-log" start={view.log[0]?.seq ?? 1}>
               {view.log.map((e) => (
                 <li key={e.seq}>
                   <span className="meta">

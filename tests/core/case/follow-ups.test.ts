@@ -32,8 +32,11 @@ describe('follow-ups in the case file', () => {
     const back = caseFromText(text, 'twofold-case.json');
     if (!back.ok) throw new Error(back.error.message);
     expect(back.value).toEqual(c);
-    expect(back.value.log.map((e) => e.action.kind)).toEqual(['follow-up', 'follow-up']);
+    // Entry 0 opens the case (core/case/opening.ts); the two follow-ups are entries 1 and 2.
+    expect(back.value.log.map((e) => e.action.kind)).toEqual(['case-opened', 'follow-up', 'follow-up']);
+    expect(back.value.log.map((e) => e.seq)).toEqual([0, 1, 2]);
     expect(back.value.log[1].prevHash).toBe(back.value.log[0].hash);
+    expect(back.value.log[2].prevHash).toBe(back.value.log[1].hash);
     expect(followUpsOf(back.value.log).map((f) => f.report?.afterTestH)).toEqual([22, 27]);
   });
 
@@ -59,9 +62,10 @@ describe('follow-ups in the case file', () => {
   it('keeps a correction as a new entry with its reason; the original stays in the log', () => {
     const c = withFollowUps();
     const corrected = must(recordFollowUpCorrection(c, { ...RECORDER, at: '2026-03-13T09:00:00Z' }, 2, report(2, 72, false, { fatigue: 8 }, { reportedBy: 'partner' }), 'Typed 27 h; the call was at 72 h.'));
-    expect(corrected.log).toHaveLength(3);
-    expect(corrected.log[1]).toEqual(c.log[1]); // the corrected entry is untouched
-    expect(corrected.log[2]).toMatchObject({ seq: 3, reason: 'Typed 27 h; the call was at 72 h.', action: { kind: 'follow-up-correction', corrects: 2 } });
+    // Entry 0 opens the case, so the log holds it, follow-ups 1 and 2, and the correction (3).
+    expect(corrected.log).toHaveLength(4);
+    expect(corrected.log[2]).toEqual(c.log[2]); // the corrected entry (seq 2) is untouched
+    expect(corrected.log[3]).toMatchObject({ seq: 3, reason: 'Typed 27 h; the call was at 72 h.', action: { kind: 'follow-up-correction', corrects: 2 } });
     const item = followUpsOf(corrected.log).find((f) => f.seq === 2)!;
     expect(item.report?.afterTestH).toBe(72);
     expect(item.original.afterTestH).toBe(27);
@@ -73,7 +77,9 @@ describe('follow-ups in the case file', () => {
     expect(recordFollowUpCorrection(c, RECORDER, 2, report(2, 72, false), '').ok).toBe(false);
     const unknown = recordFollowUpCorrection(c, RECORDER, 9, report(2, 72, false), 'x');
     expect(unknown.ok ? null : unknown.error.code).toBe('follow-up-unknown');
-    const same = recordFollowUpCorrection(c, RECORDER, 1, c.log[0].action.kind === 'follow-up' ? c.log[0].action.report : null, 'x');
+    // Follow-up 1 is at index 1 (entry 0 opens the case); correcting it to its own report changes nothing.
+    expect(c.log[1]).toMatchObject({ seq: 1, action: { kind: 'follow-up' } });
+    const same = recordFollowUpCorrection(c, RECORDER, 1, c.log[1].action.kind === 'follow-up' ? c.log[1].action.report : null, 'x');
     expect(same.ok ? null : same.error.code).toBe('follow-up-unchanged');
   });
 
