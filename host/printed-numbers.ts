@@ -28,6 +28,13 @@ export function checkPrintedNumbers(text: string, comparison: Comparison, locale
     for (const [day, value] of [[1, m.day1], [2, m.day2]] as const) {
       if (value === null || !Number.isFinite(value)) continue;
       checked++;
+      if (m.unit === 's') {
+        // Durations are printed as m:ss (e.g. 452 s → 7:32), the same in every locale.
+        const whole = Math.round(Math.abs(value));
+        const printed = `${value < 0 ? '−' : ''}${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+        if (!tokens.has(printed)) problems.push(`${m.label}, day ${day}: '${printed}' is not in the report's text`);
+        continue;
+      }
       const printed = formatFixed(value, digits, locale);
       if (!tokens.has(printed)) {
         problems.push(`${m.label}, day ${day}: '${printed}' is not in the report's text`);

@@ -29,6 +29,13 @@ export interface PageOne {
   readonly secondary: PageOneTable;
 }
 
+/** A duration as a person reads it, m:ss (e.g. 452 → '7:32'); '–' when missing. */
+function clock(seconds: number | null): string {
+  if (seconds === null || !Number.isFinite(seconds)) return '–';
+  const whole = Math.round(Math.abs(seconds));
+  return `${seconds < 0 ? '−' : ''}${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+}
+
 function digits(unit: string): number {
   return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
 }
@@ -52,7 +59,9 @@ function cells(locale: ReportLocale) {
   };
   const secondaryRow = (m: MetricRow): string[] => {
     const d = digits(m.unit);
-    return [m.label, m.unit || '–', value(m.day1, d), value(m.day2, d), signedPct(m.deltaPct), m.band ? range(m.band.lowPct, m.band.highPct) : '–', verdictWords(m.verdict)];
+    const band = m.band ? range(m.band.lowPct, m.band.highPct) : '–';
+    if (m.unit === 's') return [m.label, 'm:ss', clock(m.day1), clock(m.day2), signedPct(m.deltaPct), band, verdictWords(m.verdict)];
+    return [m.label, m.unit || '–', value(m.day1, d), value(m.day2, d), signedPct(m.deltaPct), band, verdictWords(m.verdict)];
   };
   return { primaryRow, secondaryRow };
 }
