@@ -18,21 +18,19 @@
  * in between is refused rather than overwritten (a narrow window remains: there is no lock).
  * Exit 0 when the action was recorded (or the list printed), 2 for bad input, 1 otherwise.
  */
-import { existsSync, readFileSync } from 'node:fs';
 import type { CaseFile, DayNumber, ThresholdPoint } from '../../core/case/case-file';
 import { currentSignOff } from '../../core/case/overrides';
 import type { CaseOutcome, ThresholdState } from '../../core/case/recompute';
 import { recordOverride, recordWithdrawal, type Reviewer, type ThresholdValue } from '../../core/case/review';
 import type { Comparison } from '../../core/compare/compare-tests';
 import type { ThresholdId } from '../../core/model/analysis';
-import { formatLocated, ok, type LocatedError, type Result } from '../../core/model/errors';
-import { withCaseLock } from '../../host/case-lock';
+import type { Result } from '../../core/model/errors';
 import { describeAction } from '../../core/report/log-text';
-import { CASE_FILE_NAME, caseFilePath, loadCase, saveCase } from '../../host/case-folder';
+import { CASE_FILE_NAME } from '../../host/case-folder';
 import { recordCase } from '../../host/report-job';
 import { numberFlag, parseFlags } from '../args';
-import { caseFolderOf } from '../case-arg';
-import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
+import { badInput, nowStamp, saveRecorded, withCaseFolder, type OpenedCase } from '../case-edit';
+import { EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold override CASE_FOLDER --day 1|2 --threshold vt1|vt2 (--time-s N | --vo2-ml-min N)
                         --reason TEXT --reviewer NAME --role TEXT
@@ -113,24 +111,13 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const action = actionOf(values);
   const reviewerFields = action.kind === 'list' ? null : { who: required(values, 'reviewer'), role: required(values, 'role'), reason: required(values, 'reason') };
 
-  const folder = caseFolderOf(positionals[0], io.cwd);
-  const path = caseFilePath(folder);
-  if (!existsSync(path)) {
-    io.err(`${path}:0:0: There is no case here; 'twofold report DAY1 DAY2 --out REPORT.pdf --case ${positionals[0]}' makes one.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  if (action.kind === 'list' || reviewerFields === null) return record(io, folder, path, action, reviewerFields);
-  // One writer at a time: the case is read, changed and saved under its lock (host/case-lock.ts).
-  const locked = await withCaseLock(folder, async () => ok(await record(io, folder, path, action, reviewerFields)));
-  return locked.ok ? locked.value : badInput(io, locked.error);
+  // One writer at a time: the case is read, changed and saved under its lock (cli/case-edit.ts).
+  return withCaseFolder(io, positionals[0], reviewerFields !== null, (opened) => record(io, opened, action, reviewerFields));
 }
 
-async function record(io: CliIo, folder: string, path: string, action: ReturnType<typeof actionOf>, reviewerFields: { who: string; role: string; reason: string } | null): Promise<number> {
-  const textBefore = readFileSync(path, 'utf8');
-  const loaded = loadCase(folder);
-  if (!loaded.ok) return badInput(io, loaded.error);
-  const { raw } = loaded.value;
-  const before = recordCase(loaded.value.caseFile, raw);
+function record(io: CliIo, opened: OpenedCase, action: ReturnType<typeof actionOf>, reviewerFields: { who: string; role: string; reason: string } | null): number {
+  const { path, raw } = opened;
+  const before = recordCase(opened.caseFile, raw);
   if (!before.ok) return badInput(io, before.error);
 
   if (action.kind === 'list' || reviewerFields === null) {
@@ -138,8 +125,7 @@ async function record(io: CliIo, folder: string, path: string, action: ReturnTyp
     return EXIT_OK;
   }
 
-  // The clock sits here, at the edge; core receives the time as a string.
-  const reviewer: Reviewer = { who: reviewerFields.who, role: reviewerFields.role, at: new Date().toISOString().replace(/\.\d{3}Z$/, 'Z') };
+  const reviewer: Reviewer = { who: reviewerFields.who, role: reviewerFields.role, at: nowStamp() };
   const appended: Result<CaseFile> =
     action.kind === 'set'
       ? recordOverride(before.value.caseFile, before.value.outcome, reviewer, action.day, action.threshold, action.value, reviewerFields.reason)
@@ -148,35 +134,23 @@ async function record(io: CliIo, folder: string, path: string, action: ReturnTyp
     const flag = action.kind === 'set' ? action.flag : `--withdraw ${action.seq}`;
     return badInput(io, { ...appended.error, file: path, message: `${flag}: ${appended.error.message} Nothing was recorded.` });
   }
-  const after = recordCase(appended.value, raw);
-  if (!after.ok) return badInput(io, after.error);
-
-  if (readFileSync(path, 'utf8') !== textBefore) {
-    io.err(`${path}:0:0: The case file was changed by someone else while this action was being recorded; nothing was written. Run the command again.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  const saved = saveCase(folder, after.value.caseFile, raw);
+  const saved = saveRecorded(opened, appended.value);
   if (!saved.ok) return badInput(io, saved.error);
 
-  const entry = after.value.caseFile.log[after.value.caseFile.log.length - 1];
+  const entry = saved.value.caseFile.log[saved.value.caseFile.log.length - 1];
   const day = entry.action.kind === 'set-threshold' || entry.action.kind === 'withdraw' ? entry.action.day : null;
   const threshold = entry.action.kind === 'set-threshold' || entry.action.kind === 'withdraw' ? entry.action.threshold : null;
-  const lines = [`case     ${saved.value}`, `entry ${entry.seq}  ${describeAction(entry.action)}`, `         by ${entry.who} (${entry.role}) at ${entry.at}; reason: ${entry.reason}`];
+  const lines = [`case     ${saved.value.casePath}`, `entry ${entry.seq}  ${describeAction(entry.action)}`, `         by ${entry.who} (${entry.role}) at ${entry.at}; reason: ${entry.reason}`];
   if (day !== null && threshold !== null) {
     const was = dayOf(before.value.outcome, day)[threshold];
-    const now = dayOf(after.value.outcome, day)[threshold];
-    lines.push(`day ${day} ${threshold.toUpperCase()}  before: ${pointText(was.effective)} (${sourceText(was)})`, `           after:  ${pointText(now.effective)} (${sourceText(now)})${valuesText(after.value.outcome, day, threshold)}`);
+    const now = dayOf(saved.value.outcome, day)[threshold];
+    lines.push(`day ${day} ${threshold.toUpperCase()}  before: ${pointText(was.effective)} (${sourceText(was)})`, `           after:  ${pointText(now.effective)} (${sourceText(now)})${valuesText(saved.value.outcome, day, threshold)}`);
   }
   const signOff = currentSignOff(before.value.caseFile.log);
   if (signOff) lines.push(`note     the sign-off in entry ${signOff.seq} no longer covers the thresholds shown; a new sign-off is needed`);
   lines.push('');
   io.out(lines.join('\n'));
   return EXIT_OK;
-}
-
-function badInput(io: CliIo, error: LocatedError): number {
-  io.err(`${formatLocated(error)}\n`);
-  return EXIT_BAD_INPUT;
 }
 
 function dayOf(outcome: CaseOutcome<Comparison>, day: DayNumber) {

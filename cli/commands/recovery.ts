@@ -15,7 +15,7 @@
  * replaced atomically; a case changed by someone else meanwhile is refused. Exit 0 when
  * recorded (or listed), 2 for bad input (a sheet's problem as FILE:LINE:COLUMN), 1 otherwise.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { CaseFile } from '../../core/case/case-file';
 import { correctableFollowUp, followUpsOf, recordFollowUp, recordFollowUpCorrection } from '../../core/case/follow-ups';
@@ -28,11 +28,9 @@ import { describeAction } from '../../core/report/log-text';
 import { readBackToUsual, readChannel, readHours, readScore, readTestDay, type Field } from '../../core/followup/fields';
 import { DEFAULT_DOMAINS, FOLLOW_UP_VERSION, type DomainRating, type FollowUpReport } from '../../core/followup/report';
 import { readFollowUpSheet } from '../../core/followup/sheet';
-import { formatLocated, type LocatedError, type Result } from '../../core/model/errors';
-import { caseFilePath, loadCase, saveCase } from '../../host/case-folder';
-import { recordCase } from '../../host/report-job';
+import type { Result } from '../../core/model/errors';
 import { parseFlags } from '../args';
-import { caseFolderArg } from '../case-folder-arg';
+import { badInput, nowStamp, saveRecorded, withCaseFolder, type OpenedCase } from '../case-edit';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold recovery CASE_FOLDER --test 1|2 --hours H --by WHO --how in-person|phone|form
@@ -175,23 +173,17 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const recorder = mode.kind === 'list' ? null : { who: required(values, 'reviewer'), role: required(values, 'role') };
   const reason = mode.kind === 'correct' || mode.kind === 'strike' ? required(values, 'reason') : (values.reason?.trim() || DEFAULT_REASON);
 
-  const folder = caseFolderArg(positionals[0], io.cwd);
-  const path = caseFilePath(folder);
-  if (!existsSync(path)) {
-    io.err(`${path}:0:0: There is no case here; 'twofold report DAY1 DAY2 --out REPORT.pdf --case ${positionals[0]}' makes one.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  const textBefore = readFileSync(path, 'utf8');
-  const loaded = loadCase(folder);
-  if (!loaded.ok) return badInput(io, loaded.error);
-  const { caseFile, raw } = loaded.value;
+  // One writer at a time: the case is read, changed and saved under its lock (cli/case-edit.ts).
+  return withCaseFolder(io, positionals[0], recorder !== null, (opened) => record(io, opened, values, mode, recorder, reason));
+}
 
+function record(io: CliIo, opened: OpenedCase, values: Values, mode: ReturnType<typeof modeOf>, recorder: { who: string; role: string } | null, reason: string): number {
+  const { path, caseFile } = opened;
   if (mode.kind === 'list' || recorder === null) {
     io.out(values.json ? `${JSON.stringify(listJson(caseFile), null, 2)}\n` : listing(path, caseFile));
     return EXIT_OK;
   }
-  // The clock sits here, at the edge; core receives the time as a string.
-  const stamp: Reviewer = { ...recorder, at: new Date().toISOString().replace(/\.\d{3}Z$/, 'Z') };
+  const stamp: Reviewer = { ...recorder, at: nowStamp() };
   let appended: Result<CaseFile>;
   if (mode.kind === 'add') appended = recordFollowUp(caseFile, stamp, reportOf(values, null), reason, 'command line');
   else if (mode.kind === 'sheet') {
@@ -216,29 +208,18 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   }
   if (!appended.ok) return badInput(io, { ...appended.error, file: appended.error.file === 'command line' ? path : appended.error.file, message: `${appended.error.message} Nothing was recorded.` });
 
-  const after = recordCase(appended.value, raw);
-  if (!after.ok) return badInput(io, after.error);
-  if (readFileSync(path, 'utf8') !== textBefore) {
-    io.err(`${path}:0:0: The case file was changed by someone else while this was being recorded; nothing was written. Run the command again.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  const saved = saveCase(folder, after.value.caseFile, raw);
+  const saved = saveRecorded(opened, appended.value);
   if (!saved.ok) return badInput(io, saved.error);
-  const added = after.value.caseFile.log.slice(caseFile.log.length);
-  const lines = [`case     ${saved.value}`];
+  const added = saved.value.caseFile.log.slice(caseFile.log.length);
+  const lines = [`case     ${saved.value.casePath}`];
   for (const e of added) lines.push(`entry ${e.seq}  ${describeAction(e.action)}`, `         by ${e.who} (${e.role}) at ${e.at}; reason: ${e.reason}`);
-  const course = followUpCourse(followUpsOf(after.value.caseFile.log));
+  const course = followUpCourse(followUpsOf(saved.value.caseFile.log));
   lines.push(`recovery after the day 1 test: ${recoveryText(course.day1.recovery)}`, `recovery after the day 2 test: ${recoveryText(course.day2.recovery)}`);
   const signOff = currentSignOff(caseFile.log);
   if (signOff) lines.push(`note     the sign-off in entry ${signOff.seq} no longer covers what the report shows; a new sign-off is needed`);
   lines.push('');
   io.out(lines.join('\n'));
   return EXIT_OK;
-}
-
-function badInput(io: CliIo, error: LocatedError): number {
-  io.err(`${formatLocated(error)}\n`);
-  return EXIT_BAD_INPUT;
 }
 
 function listing(path: string, caseFile: CaseFile): string {

@@ -13,16 +13,15 @@
  * Source: common practice of a second reviewer signing a test report; the rules are Twofold's own.
  * Exit 0 when the sign-off was recorded, 2 for bad input, 1 otherwise.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import type { CaseFile } from '../../core/case/case-file';
 import { currentSignOff } from '../../core/case/overrides';
 import { recordSignOff, type Reviewer } from '../../core/case/review';
-import { formatLocated, type LocatedError } from '../../core/model/errors';
 import { minSec } from '../../core/report/format';
-import { CASE_FILE_NAME, caseFilePath, loadCase, saveCase } from '../../host/case-folder';
+import { CASE_FILE_NAME } from '../../host/case-folder';
 import { recordCase } from '../../host/report-job';
 import { parseFlags } from '../args';
-import { caseFolderOf } from '../case-arg';
-import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
+import { badInput, nowStamp, saveRecorded, withCaseFolder, type SavedCase } from '../case-edit';
+import { EXIT_OK, UsageError, type CliIo } from '../io';
 
 const USAGE = `usage: twofold sign-off CASE_FOLDER --statement TEXT --reviewer NAME --role TEXT [--reason TEXT]
 
@@ -70,36 +69,24 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const role = text(values.role, 'role', 'every reviewer action records the role of who took it');
   const reason = values.reason === undefined ? DEFAULT_REASON : text(values.reason, 'reason', 'leave it out for the default note, or give a note');
 
-  const folder = caseFolderOf(positionals[0], io.cwd);
-  const path = caseFilePath(folder);
-  if (!existsSync(path)) {
-    io.err(`${path}:0:0: There is no case here; 'twofold report DAY1 DAY2 --out REPORT.pdf --case ${positionals[0]}' makes one.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  const textBefore = readFileSync(path, 'utf8');
-  const loaded = loadCase(folder);
-  if (!loaded.ok) return badInput(io, loaded.error);
-  const { raw } = loaded.value;
-  const before = recordCase(loaded.value.caseFile, raw);
-  if (!before.ok) return badInput(io, before.error);
+  // One writer at a time: the case is read, changed and saved under its lock (cli/case-edit.ts).
+  return withCaseFolder(io, positionals[0], true, (opened) => {
+    const before = recordCase(opened.caseFile, opened.raw);
+    if (!before.ok) return badInput(io, before.error);
+    const reviewer: Reviewer = { who, role, at: nowStamp() };
+    const appended = recordSignOff(before.value.caseFile, reviewer, statement, reason);
+    if (!appended.ok) return badInput(io, { ...appended.error, file: opened.path, message: `${appended.error.message} Nothing was recorded.` });
+    const saved = saveRecorded(opened, appended.value);
+    if (!saved.ok) return badInput(io, saved.error);
+    return report(io, before.value.caseFile, saved.value, statement, positionals[0]);
+  });
+}
 
-  // The clock sits here, at the edge; core receives the time as a string.
-  const reviewer: Reviewer = { who, role, at: new Date().toISOString().replace(/\.\d{3}Z$/, 'Z') };
-  const appended = recordSignOff(before.value.caseFile, reviewer, statement, reason);
-  if (!appended.ok) return badInput(io, { ...appended.error, file: path, message: `${appended.error.message} Nothing was recorded.` });
-  const after = recordCase(appended.value, raw);
-  if (!after.ok) return badInput(io, after.error);
-  if (readFileSync(path, 'utf8') !== textBefore) {
-    io.err(`${path}:0:0: The case file was changed by someone else while the sign-off was being recorded; nothing was written. Run the command again.\n`);
-    return EXIT_BAD_INPUT;
-  }
-  const saved = saveCase(folder, after.value.caseFile, raw);
-  if (!saved.ok) return badInput(io, saved.error);
-
-  const previous = currentSignOff(before.value.caseFile.log);
-  const entry = after.value.caseFile.log[after.value.caseFile.log.length - 1];
-  const lines = [`case     ${saved.value}`, `entry ${entry.seq}  sign-off by ${entry.who} (${entry.role}) at ${entry.at}`, `         statement: ${statement}`, 'covers:'];
-  for (const day of [after.value.outcome.day1, after.value.outcome.day2]) {
+function report(io: CliIo, before: CaseFile, after: SavedCase, statement: string, caseArg: string): number {
+  const previous = currentSignOff(before.log);
+  const entry = after.caseFile.log[after.caseFile.log.length - 1];
+  const lines = [`case     ${after.casePath}`, `entry ${entry.seq}  sign-off by ${entry.who} (${entry.role}) at ${entry.at}`, `         statement: ${statement}`, 'covers:'];
+  for (const day of [after.outcome.day1, after.outcome.day2]) {
     for (const id of ['vt1', 'vt2'] as const) {
       const state = day[id];
       const p = state.effective;
@@ -108,12 +95,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     }
   }
   if (previous) lines.push(`note     this sign-off follows the one in entry ${previous.seq}; the report shows the newest`);
-  lines.push(`next     rebuild the report with --case ${positionals[0]}; a later threshold change ends this sign-off`, '');
+  lines.push(`next     rebuild the report with --case ${caseArg}; a later threshold change ends this sign-off`, '');
   io.out(lines.join('\n'));
   return EXIT_OK;
 }
 
-function badInput(io: CliIo, error: LocatedError): number {
-  io.err(`${formatLocated(error)}\n`);
-  return EXIT_BAD_INPUT;
-}
