@@ -1,7 +1,7 @@
 /**
  * The one palette of Twofold, used by the workbench (renderer/src/charts) and the PDF report
  * (core/report) alike, so a colour means the same on screen and on paper. Colours are the
- * Okabe–Ito set (Okabe & Ito, "Color Universal Design", 2008), chosen to stay apart under the
+ * Okabe–Ito set (Okabe et al., "Color Universal Design", 2008), chosen to stay apart under the
  * common colour-vision deficiencies, and colour never carries meaning alone: every verdict
  * has its words, day 2 is also dashed, VT2 is also dotted.
  *

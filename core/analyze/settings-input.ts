@@ -15,7 +15,7 @@ import { fail, locatedError, ok, type Result } from '../model/errors';
  * bootstrap replicates, a nanowatt workload step) or a meaningless analysis. The ranges are
  * common practice: wide enough for every published choice we know of, narrow enough to
  * finish; the limits of work are ours (replicates ≤ 2,000: a 95 % interval settles well
- * below that, Efron & Tibshirani, An Introduction to the Bootstrap, 1993, ch. 13 (memory)).
+ * below that, Efron et al., An Introduction to the Bootstrap, 1993, ch. 13 (memory)).
  */
 const range = (min: number, max: number) => z.number().min(min).max(max);
 const intRange = (min: number, max: number) => z.number().int().min(min).max(max);

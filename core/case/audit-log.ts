@@ -6,7 +6,7 @@
  * so swapping a raw file, its column map or a setting also breaks the chain. Editing,
  * removing or reordering any entry changes a hash that a later entry (or the entry itself)
  * has recorded, and `verifyLog` names the first entry that fails.
- * The technique is the ordinary linked hash chain (Haber & Stornetta, J Cryptology 1991).
+ * The technique is the ordinary linked hash chain (Haber et al., J Cryptology 1991).
  */
 import { canonicalJson } from './canonical-json';
 import { sha256Hex } from './sha256';

@@ -1,6 +1,6 @@
 /**
- * Outlier breath removal by local standard deviation, after Lamarra, Whipp, Ward &
- * Wasserman, J Appl Physiol 1987;62:2003–12 (breath-by-breath noise is roughly Gaussian
+ * Outlier breath removal by local standard deviation, after Lamarra et al., J Appl
+ * Physiol 1987;62:2003–12 (breath-by-breath noise is roughly Gaussian
  * about the local response, so a breath far outside its neighbours is a cough, swallow or
  * sigh rather than physiology).
  *

@@ -4,7 +4,7 @@
  *
  * Sources: Hopkins, Sports Med 2000;30:1–15 (typical error, CV, log transformation);
  * Weir, J Strength Cond Res 2005;19:231–40 (ICC forms, SEM = √MSE, MDC95 = 1.96·√2·SEM);
- * Shrout & Fleiss, Psychol Bull 1979;86:420–8 (ICC(2,1), ICC(3,1)).
+ * Shrout et al., Psychol Bull 1979;86:420–8 (ICC(2,1), ICC(3,1)).
  *
  * - mean change = mean(day 2 − day 1); typical error TE = SD(day 2 − day 1) / √2.
  * - SEM = √MSE of the two-way ANOVA (subjects × days); with two days MSE = SD(diff)²/2, so

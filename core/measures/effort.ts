@@ -6,7 +6,7 @@
  * - peak_rer: peak RER ≥ rerMin (1.10; Balady et al., Circulation 2010;122:191–225;
  *   ATS/ACCP 2003). Some labs use 1.15; Robergs et al., Sports Med 2010;40:95–111 surveyed
  *   labs using either.
- * - vo2_plateau (Taylor, Buskirk & Henschel, J Appl Physiol 1955;8:73–80; Howley, Bassett &
+ * - vo2_plateau (Taylor et al., J Appl Physiol 1955;8:73–80; Howley, Bassett &
  *   Welch, Med Sci Sports Exerc 1995;27:1292–301): the rise of VO2 over the last increase of
  *   load is below plateauMlKgMin (2.1 mL/kg/min, when body mass is known) or plateauMlMin
  *   (150 mL/min). On a step protocol (last stage held ≥ 60 s) the rise is the mean VO2 of the
@@ -16,8 +16,8 @@
  *   VO2 rises by less than 150 mL/min per minute anyway, so the rise alone proves nothing.
  * - peak_hr, by `hrCriterion`: 'percent', peak HR ≥ hrPctMin (85 %) of age-predicted HRmax;
  *   'within-bpm', peak HR ≥ predicted − hrWithinBpm (10 bpm); 'either', one of the two;
- *   'off', not assessed (beta-blockade blunts the HR response). Common practice; Howley,
- *   Bassett & Welch 1995.
+ *   'off', not assessed (beta-blockade blunts the HR response). Common practice; Howley et al.,
+ *   Med Sci Sports Exerc 1995.
  * - peak_rpe: Borg 6–20 ≥ rpeMin (17; Borg, Med Sci Sports Exerc 1982;14:377–81; common
  *   practice), from the lab's entry, else the highest rating recorded in the file.
  * - lactate: ≥ lactateMinMmolL (8 mmol/L; common practice), when entered.
@@ -167,7 +167,7 @@ function hrCriterion(input: EffortInputs): EffortCriterion {
   const predicted = input.predictedHrMaxBpm;
   const hr = input.peak.hrBpm;
   const hrPct = hr !== null && predicted !== null ? (100 * hr) / predicted : null;
-  const source = `common practice; Howley, Bassett & Welch 1995; HRmax by ${hrMaxWords(s.hrMaxFormula)}`;
+  const source = `common practice; Howley et al. 1995; HRmax by ${hrMaxWords(s.hrMaxFormula)}`;
   const predictedText = predicted === null ? 'age-predicted HRmax' : `age-predicted ${predicted.toFixed(0)} bpm`;
   const base = { id: 'peak_hr' as const, source };
   if (mode === 'off') {
@@ -225,7 +225,7 @@ function plateauCriterion(input: EffortInputs): EffortCriterion {
     label: 'VO2 plateau',
     threshold,
     unit,
-    source: 'Taylor, Buskirk & Henschel 1955; Howley, Bassett & Welch 1995; ramp slope ratio: Twofold’s own addition',
+    source: 'Taylor et al. 1955; Howley et al. 1995; ramp slope ratio: Twofold’s own addition',
   };
   const m = vo2PlateauMeasure(input.breaths, input.phases);
   if (!m) return { ...base, met: null, value: null, rule: `rise of VO2 below ${trim(threshold)} ${unit} for a further rise in load`, valueText: 'not assessable', detail: null };

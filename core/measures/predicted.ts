@@ -1,13 +1,13 @@
 /**
  * Predicted values for one person.
  *
- * - HRmax, bpm: Tanaka, Monahan & Seals, J Am Coll Cardiol 2001;37:153–6: 208 − 0.7 × age;
- *   Fox, Naughton & Haskell 1971: 220 − age. Age in years.
+ * - HRmax, bpm: Tanaka et al., J Am Coll Cardiol 2001;37:153–6: 208 − 0.7 × age;
+ *   Fox et al. 1971: 220 − age. Age in years.
  * - FRIEND VO2max, mL/kg/min (de Souza e Silva et al., Eur J Prev Cardiol 2018;25:742–50;
  *   coefficients confirmed against the published abstract; SEE 6.6 mL/kg/min):
  *   45.2 − 0.35·age − 10.9·sex(male 1, female 2) − 0.15·weight(lb) + 0.68·height(in)
  *   − 0.46·mode(treadmill 1, cycle 2).
- * - Hansen/Wasserman peak VO2, mL/min, cycle ergometer (Hansen, Sue & Wasserman, Am Rev
+ * - Hansen/Wasserman peak VO2, mL/min, cycle ergometer (Hansen et al., Am Rev
  *   Respir Dis 1984;129:S49–55). Written from memory, not looked up — verify before relying
  *   on it: men W × (50.72 − 0.372·age), women (W + 43) × (22.78 − 0.17·age), with W the
  *   actual weight in kg, or the predicted weight when actual exceeds it (men 0.79·height(cm)

@@ -3,7 +3,7 @@
  * renderer 'none' and `view.toSVG()`), from the same series and threshold values the tables
  * print. Four kinds: the V-slope plot (core/report/vslope-view.ts: VCO2 against VO2 over the
  * analysed window, equal axis scales, the line of identity, both regression lines with their
- * slopes; Beaver, Wasserman & Whipp 1986), the ventilatory equivalents and the end-tidal
+ * slopes; Beaver et al. 1986), the ventilatory equivalents and the end-tidal
  * pressures against time with VT1 and VT2 marked (Wasserman et al. 1973), and day 1 and day 2
  * overlaid against workload. Colours and dashes come from core/palette.ts, the palette the
  * workbench uses too. Units: mL/min, mmHg, s (shown as m:ss), W, bpm.

@@ -3,7 +3,7 @@
  *
  * Order of search (each later window depends on an earlier answer):
  *  1. a preliminary VT2 by the VT2 methods over the whole incremental phase, so that VT1 is
- *     searched below it, as the V-slope method requires (Beaver, Wasserman & Whipp, J Appl
+ *     searched below it, as the V-slope method requires (Beaver et al., J Appl
  *     Physiol 1986;60:2020–7: the VCO2–VO2 fit runs up to the respiratory compensation point).
  *     Over the whole phase the VE/VCO2 and PetCO2 methods answer early (below VT1 both still
  *     drift, which bends their two-line fits), while VE against VCO2 stays straight up to VT2;

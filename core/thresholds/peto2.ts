@@ -3,7 +3,7 @@
  * (isocapnic buffering: ventilation rises with the extra CO2, so alveolar O2 climbs while
  * alveolar CO2 does not fall).
  *
- * Source: Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43 (end-tidal
+ * Source: Wasserman et al., J Appl Physiol 1973;35:236–43 (end-tidal
  * criteria as widely described since). Units: mmHg, s. Method: continuous two-segment fit of
  * PetO2 against time over the incremental phase up to a preliminary VT2; the knot is VT1.
  * Assumption (our test of "level"): after the knot PetCO2 falls at less than half the rate at
@@ -16,7 +16,7 @@ import { slopeOverTime, timeSample } from './time-sample';
 export const peto2 = hingeMethod({
   method: 'peto2',
   label: 'End-tidal O2 (PetO2 nadir)',
-  source: 'Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43',
+  source: 'Wasserman et al., J Appl Physiol 1973;35:236–43',
   xName: 'timeS',
   yName: 'peto2Mmhg',
   bend: 'rise',

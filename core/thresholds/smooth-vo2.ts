@@ -5,7 +5,7 @@
  * Why: on the V-slope plot (VCO2 against VO2) both axes carry breath-to-breath noise. Noise in
  * the x-axis flattens the fitted slopes and blurs the bend (regression dilution, errors in
  * variables); replacing the noisy x by its expected value given time is regression calibration
- * (Carroll, Ruppert, Stefanski & Crainiceanu, Measurement Error in Nonlinear Models, 2nd ed.
+ * (Carroll et al., Measurement Error in Nonlinear Models, 2nd ed.
  * 2006, ch. 4). VO2 follows the load smoothly (first-order kinetics, no bend at VT1), so a
  * local straight line over a minute or two follows it closely; VCO2 and VE keep their own
  * (15-s averaged) values, so the bend the method looks for is left untouched.

@@ -7,7 +7,7 @@
  * refits each (the same fit the method uses: the continuous two-segment fit, or the two
  * regressions for `vslope`), and combines the refitted VO2 estimates as the consensus does
  * (the median, consensus.ts). The interval is the 2.5th to 97.5th percentile of the replicates
- * (percentile bootstrap, Efron & Tibshirani, An Introduction to the Bootstrap, 1993).
+ * (percentile bootstrap, Efron et al., An Introduction to the Bootstrap, 1993).
  *
  * Averaging makes neighbouring residuals correlated, and resampling them one by one would
  * understate the scatter; residuals are therefore drawn in moving blocks (Künsch, Ann Stat

@@ -3,7 +3,7 @@
  * VE/VCO2, flat or falling after VT1, starts to rise (ventilation outruns CO2 output to
  * compensate for the acidosis).
  *
- * Source: Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43. Units:
+ * Source: Wasserman et al., J Appl Physiol 1973;35:236–43. Units:
  * dimensionless (VE L/min × 1000 / VCO2 mL/min), s. Method: continuous two-segment fit of
  * VE/VCO2 against time from VT1 to the end of the incremental phase; the knot is VT2.
  * Assumption: the rise after the knot must be positive.
@@ -15,7 +15,7 @@ import { ratio } from './window';
 export const veVco2Ratio = hingeMethod({
   method: 've-vco2-ratio',
   label: 'Ventilatory equivalent for CO2 (VE/VCO2)',
-  source: 'Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43',
+  source: 'Wasserman et al., J Appl Physiol 1973;35:236–43',
   xName: 'timeS',
   yName: 've/vco2',
   bend: 'rise',

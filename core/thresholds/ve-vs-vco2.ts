@@ -2,7 +2,7 @@
  * VT2 (respiratory compensation point) as the breakpoint of VE against VCO2: above it, VE
  * rises more steeply per unit of CO2 output.
  *
- * Source: Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7 (the same two-line
+ * Source: Beaver et al., J Appl Physiol 1986;60:2020–7 (the same two-line
  * analysis applied to VE against VCO2, as recalled: memory). Units: VE L/min BTPS, VCO2
  * mL/min. Method: continuous two-segment fit from VT1 to the end of the incremental phase; the
  * knot is a VCO2, whose time is read off the monotone VCO2 curve and whose VO2 is read at that
@@ -26,7 +26,7 @@ export const VCO2_SMOOTH_HALF_WIDTH_S = 40;
 export const veVsVco2 = hingeMethod({
   method: 've-vs-vco2',
   label: 'VE against VCO2 breakpoint',
-  source: 'Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7',
+  source: 'Beaver et al., J Appl Physiol 1986;60:2020–7',
   xName: 'vco2MlMin',
   yName: 'veLMin',
   bend: 'rise',

@@ -3,7 +3,7 @@
  * VE/VCO2 does not rise with it (the extra CO2 of bicarbonate buffering drives ventilation,
  * so ventilation outruns O2 uptake but not CO2 output).
  *
- * Source: Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43. Units: VE L/min
+ * Source: Wasserman et al., J Appl Physiol 1973;35:236–43. Units: VE L/min
  * BTPS, VO2 and VCO2 mL/min; the equivalents are dimensionless (VE × 1000 / VO2). Method:
  * continuous two-segment fit of VE/VO2 against time over the window (incremental phase up to
  * a preliminary VT2); the knot is VT1. Assumption (our test of "does not rise"): after the
@@ -16,7 +16,7 @@ import { ratio } from './window';
 export const veVo2 = hingeMethod({
   method: 've-vo2',
   label: 'Ventilatory equivalents (VE/VO2)',
-  source: 'Wasserman, Whipp, Koyal & Beaver, J Appl Physiol 1973;35:236–43',
+  source: 'Wasserman et al., J Appl Physiol 1973;35:236–43',
   xName: 'timeS',
   yName: 've/vo2',
   bend: 'rise',

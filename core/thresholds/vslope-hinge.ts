@@ -3,7 +3,7 @@
  * phase up to a preliminary VT2, fitted by y = a + b·x + c·(x − k)+ with the knot k searched
  * exactly (core/thresholds/segments.ts). The knot is VT1.
  *
- * Source: Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7 (V-slope); the continuous
+ * Source: Beaver et al., J Appl Physiol 1986;60:2020–7 (V-slope); the continuous
  * two-segment fit is the common variant (Hudson, J Am Stat Assoc 1966;61:1097–129, for the
  * exact knot search). Units: VO2 and VCO2 mL/min; the time at VT1 is read off the monotone
  * VO2 curve (core/thresholds/read-off.ts). Constraints on the two slopes, after Beaver et al.
@@ -51,7 +51,7 @@ export function vslopeSlopeReason(slopeBelow: number, slopeAbove: number): strin
 export const vslopeHinge = hingeMethod({
   method: 'vslope-hinge',
   label: 'V-slope (continuous two-segment fit)',
-  source: 'Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7; knot search after Hudson, J Am Stat Assoc 1966;61:1097–129',
+  source: 'Beaver et al., J Appl Physiol 1986;60:2020–7; knot search after Hudson, J Am Stat Assoc 1966;61:1097–129',
   xName: 'vo2MlMin',
   yName: 'vco2MlMin',
   bend: 'rise',

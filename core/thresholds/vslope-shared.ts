@@ -4,7 +4,7 @@
  * (core/thresholds/shared-knot.ts). The knot is VT1.
  *
  * Physiology: below VT1 ventilation tracks CO2 output; at VT1 the bicarbonate-buffered CO2
- * makes VCO2 rise faster than VO2 (the V-slope bend, Beaver, Wasserman & Whipp, J Appl Physiol
+ * makes VCO2 rise faster than VO2 (the V-slope bend, Beaver et al., J Appl Physiol
  * 1986;60:2020–7), and ventilation, still following VCO2 (isocapnic buffering), bends against
  * VO2 at the same point (the rise of VE/VO2 without a rise of VE/VCO2, Wasserman, Whipp, Koyal
  * & Beaver, J Appl Physiol 1973;35:236–43). Fitting both with one knot uses both signals
@@ -56,7 +56,7 @@ export function withoutBreathScatter(y: readonly number[], ySmooth: readonly num
 const spec = {
   method: 'vslope-ve',
   label: 'V-slope with VE (shared breakpoint of VCO2 and VE against VO2)',
-  source: 'Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7; Wasserman et al., J Appl Physiol 1973;35:236–43; combined after Gaskill et al., Med Sci Sports Exerc 2001;33:1841–8',
+  source: 'Beaver et al., J Appl Physiol 1986;60:2020–7; Wasserman et al., J Appl Physiol 1973;35:236–43; combined after Gaskill et al., Med Sci Sports Exerc 2001;33:1841–8',
 };
 
 export const detect: Detector = (input) => {

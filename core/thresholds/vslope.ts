@@ -5,7 +5,7 @@
  * `twoRegressionSplit`, which explains why that criterion). VT1 is the VO2 where the two
  * lines cross.
  *
- * Source: Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7. Units: VO2 and VCO2
+ * Source: Beaver et al., J Appl Physiol 1986;60:2020–7. Units: VO2 and VCO2
  * mL/min; time read off the monotone VO2 curve. Assumptions as in vslope-hinge.ts: lower slope
  * at most 1.1 (near 1) and a rise of at least 0.1 (memory).
  */
@@ -18,7 +18,7 @@ import { vslopeSample, vslopeSlopeReason } from './vslope-hinge';
 const spec = {
   method: 'vslope',
   label: 'V-slope (two regressions)',
-  source: 'Beaver, Wasserman & Whipp, J Appl Physiol 1986;60:2020–7',
+  source: 'Beaver et al., J Appl Physiol 1986;60:2020–7',
 };
 
 export const detect: Detector = (input) => {

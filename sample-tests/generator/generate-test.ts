@@ -15,7 +15,7 @@
  *   equation 0.1·v + 1.8·v·grade + VO2rest, v in m/min (memory).
  * VO2. First-order response to the demand, time constant vo2TauS (30–60 s, memory);
  *   the cardiodynamic phase is not modelled.
- * VCO2. Continuous broken line of VO2 (Beaver, Wasserman & Whipp 1986): RERrest·VO2rest at
+ * VCO2. Continuous broken line of VO2 (Beaver et al. 1986): RERrest·VO2rest at
  *   rest, slope s1 (≈ 0.95) up to VT1, slope s2 (≈ 1.4) above. During exercise VCO2 is an
  *   instantaneous function of VO2 (an idealisation: real VCO2 lags VO2 a little, which bends
  *   the first minute of a ramp; detectors should not rely on its absence). In recovery VCO2 falls with

@@ -44,7 +44,7 @@ export function alveolarPo2Mmhg(pio2Mmhg: number, paco2Mmhg: number, rer: number
 
 /**
  * VCO2 as a continuous broken line of VO2 (the gas-exchange threshold model behind the
- * V-slope method, Beaver, Wasserman & Whipp 1986):
+ * V-slope method, Beaver et al. 1986):
  *   VCO2 = RERrest × VO2rest + s1 × (VO2 − VO2rest)                       for VO2 ≤ VT1
  *   VCO2 = RERrest × VO2rest + s1 × (VT1 − VO2rest) + s2 × (VO2 − VT1)    for VO2 > VT1
  */
@@ -95,7 +95,7 @@ export function deadSpaceFraction(vo2MlMin: number, vo2RestMlMin: number, vo2Pea
   return atRest - (atRest - atPeak) * f;
 }
 
-/** Age-predicted maximal heart rate, 208 − 0.7 × age (Tanaka, Monahan & Seals, JACC 2001). Age 40 → 180 bpm. */
+/** Age-predicted maximal heart rate, 208 − 0.7 × age (Tanaka et al., JACC 2001). Age 40 → 180 bpm. */
 export function tanakaHrMaxBpm(ageY: number): number {
   return 208 - 0.7 * ageY;
 }

@@ -1,6 +1,6 @@
 // Follow-up reports in the case file: a round trip through the case text and its zod schema,
 // a correction kept with its reason (the original stays in the log), a struck-out report, and
-// an edited report caught by the hash chain on load (Haber & Stornetta's linked chain, as the
+// an edited report caught by the hash chain on load (Haber et al.'s linked chain, as the
 // rest of the log). Expected values are the reports written in each test.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';

@@ -48,7 +48,7 @@ describe('repeatStats', () => {
     expect(s.cvPct).toBe(s.cvPctLog);
   });
 
-  it('ICC(3,1) and ICC(2,1) from the two-way ANOVA (Shrout & Fleiss 1979; Weir 2005)', () => {
+  it('ICC(3,1) and ICC(2,1) from the two-way ANOVA (Shrout et al. 1979; Weir 2005)', () => {
     expect(s.icc31!).toBeCloseTo(0.989899, 5);
     expect(s.icc21!).toBeCloseTo(0.989399, 5);
   });
@@ -76,7 +76,7 @@ describe('repeatStats', () => {
 
 // Reference: R's stats::anova on lm(value ~ subject + day) gives the two-way mean squares;
 // ICC(3,1) = (MSR − MSE)/(MSR + MSE), ICC(2,1) = (MSR − MSE)/(MSR + MSE + 2(MSC − MSE)/n)
-// (Shrout & Fleiss 1979, k = 2), and √MSE = SEM (Weir 2005).
+// (Shrout et al. 1979, k = 2), and √MSE = SEM (Weir 2005).
 describe('repeatStats against R (stats::anova)', () => {
   it('matches the ICC forms and SEM from R mean squares on a 12-pair seeded table', () => {
     const random = seededRandom(20260301);

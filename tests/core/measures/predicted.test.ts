@@ -3,10 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { CM_PER_IN, KG_PER_LB, friendVo2MlKgMin, hansenVo2MlMin, hrMaxFox, hrMaxTanaka, percentOf, predictedHrMax } from '../../../core/measures/predicted';
 
 describe('age-predicted HRmax', () => {
-  it('Fox, Naughton & Haskell 1971: 220 − 40 = 180 bpm', () => {
+  it('Fox et al. 1971: 220 − 40 = 180 bpm', () => {
     expect(hrMaxFox(40)).toBe(180);
   });
-  it('Tanaka, Monahan & Seals, JACC 2001: 208 − 0.7·40 = 180; 208 − 0.7·60 = 166 bpm', () => {
+  it('Tanaka et al., JACC 2001: 208 − 0.7·40 = 180; 208 − 0.7·60 = 166 bpm', () => {
     expect(hrMaxTanaka(40)).toBeCloseTo(180, 12);
     expect(hrMaxTanaka(60)).toBeCloseTo(166, 12);
     expect(predictedHrMax(60, 'fox')).toBe(160);
@@ -26,7 +26,7 @@ describe('FRIEND (de Souza e Silva et al., Eur J Prev Cardiol 2018;25:742–50)'
   });
 });
 
-describe('Hansen/Wasserman (Hansen, Sue & Wasserman 1984; equations from memory, verify)', () => {
+describe('Hansen/Wasserman (Hansen et al. 1984; equations from memory, verify)', () => {
   it('man, 50 y, 175 cm, 70 kg, cycle: 70 × (50.72 − 0.372·50) = 2248.4 mL/min (memory)', () => {
     // Predicted weight 0.79·175 − 60.7 = 77.55 kg > 70 kg, so the actual 70 kg is used.
     expect(hansenVo2MlMin({ ageY: 50, sex: 'M', heightCm: 175, weightKg: 70, modality: 'cycle' })).toBeCloseTo(2248.4, 9);

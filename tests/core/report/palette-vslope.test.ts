@@ -1,5 +1,5 @@
-// The shared palette (core/palette.ts; Okabe & Ito 2008 colours) and the V-slope view
-// (core/report/vslope-view.ts; Beaver, Wasserman & Whipp, J Appl Physiol 1986): verdicts by
+// The shared palette (core/palette.ts; Okabe et al. 2008 colours) and the V-slope view
+// (core/report/vslope-view.ts; Beaver et al., J Appl Physiol 1986): verdicts by
 // harm with words, day 2 apart from the ventilatory equivalents, the report's chart spec and
 // the workbench's chart spec using the same colours, and the V-slope drawn over the analysed
 // window only with one range for both axes, the line of identity and both fitted slopes.

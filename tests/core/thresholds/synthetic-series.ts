@@ -3,7 +3,7 @@
  * - incremental phase from 120 s to 840 s, one averaged point every 2 s, rest before it;
  * - VO2 rises linearly from 800 to 3,200 mL/min over the ramp (10 mL/min per W at 20 W/min);
  * - VCO2 = 0.92·VO2 − 40 below VT1 (VO2 1,700 mL/min), slope 1.37 above (V-slope model,
- *   Beaver, Wasserman & Whipp 1986: slope near 1 below, steeper above);
+ *   Beaver et al. 1986: slope near 1 below, steeper above);
  * - VE/VCO2 is 27 below VT2 (VO2 2,600 mL/min); above it VE rises 0.08 L/min per extra mL/min
  *   of VCO2 beyond VCO2 at VT2 (respiratory compensation);
  * - PetCO2 from the alveolar ventilation equation, 863 × VCO2 / VA with VA = 0.8 × VE;

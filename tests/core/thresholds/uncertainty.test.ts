@@ -1,4 +1,4 @@
-// The bootstrap interval (percentile bootstrap, Efron & Tibshirani 1993; moving blocks, Künsch,
+// The bootstrap interval (percentile bootstrap, Efron et al. 1993; moving blocks, Künsch,
 // Ann Stat 1989) on the stated model of synthetic-series.ts, whose true VT1 is 1,700 mL/min.
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_SETTINGS, type Settings } from '../../../core/model/settings';

@@ -67,7 +67,7 @@ describe('broken lines', () => {
 
 describe('other relations', () => {
   test('Tanaka HRmax 208 − 0.7 × age: 40 → 180, 60 → 166 bpm', () => {
-    // check-values.md (Tanaka, Monahan & Seals 2001)
+    // check-values.md (Tanaka et al. 2001)
     expect(tanakaHrMaxBpm(40)).toBeCloseTo(180, 10);
     expect(tanakaHrMaxBpm(60)).toBeCloseTo(166, 10);
   });
