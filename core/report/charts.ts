@@ -15,6 +15,7 @@ import type { ThresholdPoint } from '../case/case-file';
 import type { ReportLocale } from '../locale/locales';
 import { DAY_STYLE, INK, SERIES_STYLE, THRESHOLD_STYLE, VSLOPE_STYLE, type LineStyle } from '../palette';
 import { vslopeView } from './vslope-view';
+import { minSec } from '../locale/min-sec';
 
 /** The days' colours, from the shared palette (kept under this name for existing callers). */
 export const DAY_COLORS = { day1: DAY_STYLE[1].colour, day2: DAY_STYLE[2].colour } as const;
@@ -84,11 +85,15 @@ function rules(marks: Mark[], field: 'x' | 'y'): Spec[] {
   ]);
 }
 
-/** A time axis in m:ss with a tick every `stepS` seconds over [lo, hi]. */
-function timeAxis(lo: number, hi: number, stepS = 120): Spec {
+/**
+ * A time axis in m:ss with a tick every `stepS` seconds over [lo, hi]; the labels are
+ * written by the one m:ss formatter (core/locale/min-sec.ts) and looked up by vega.
+ */
+export function timeAxis(lo: number, hi: number, stepS = 120): Spec {
   const values: number[] = [];
   for (let t = Math.ceil(lo / stepS) * stepS; t <= hi; t += stepS) values.push(t);
-  return { title: 'time (m:ss)', values, labelExpr: "floor(datum.value / 60) + ':' + (datum.value % 60 < 10 ? '0' : '') + round(datum.value % 60)" };
+  const labels = values.map((t) => minSec(t));
+  return { title: 'time (m:ss)', values, labelExpr: `${JSON.stringify(labels)}[indexof(${JSON.stringify(values)}, datum.value)]` };
 }
 
 /**

@@ -10,6 +10,7 @@
  */
 import { formatDateTime, formatFixed, formatInteger, formatSigned, MISSING } from '../locale/format-number';
 import { REPORT_LOCALES, type ReportLocale } from '../locale/locales';
+import { minSec } from '../locale/min-sec';
 
 export { MISSING };
 
@@ -23,12 +24,8 @@ export function signed(value: number | null | undefined, digits = 0): string {
   return formatSigned(value, digits, NEUTRAL);
 }
 
-/** Seconds as m:ss, e.g. 372 → '6:12'. */
-export function minSec(seconds: number | null | undefined): string {
-  if (seconds === null || seconds === undefined || !Number.isFinite(seconds)) return MISSING;
-  const whole = Math.round(seconds);
-  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
-}
+/** Seconds as m:ss, e.g. 372 → '6:12' (the one formatter, core/locale/min-sec.ts). */
+export { minSec };
 
 /** The decimals a number shows when written in full (0.25 → 2; 3 → 0). */
 function decimalsOf(value: number): number {
@@ -66,7 +63,7 @@ export function reportFormat(locale: ReportLocale): ReportFormat {
     locale,
     fixed: (value, digits = 0) => formatFixed(value, digits, locale),
     signed: (value, digits = 0) => formatSigned(value, digits, locale),
-    minSec,
+    minSec: (seconds) => minSec(seconds),
     integer: (value) => formatInteger(value, locale),
     number: (value) => formatFixed(value, decimalsOf(value), locale),
     dateTime: (iso) => formatDateTime(iso, locale),

@@ -17,11 +17,14 @@ export interface VslopeLine {
   readonly to: readonly [number, number];
 }
 
+/** [VO2 mL/min, VCO2 mL/min, time s]: the time is for a hover label, not a plotted axis. */
+export type VslopePoint = readonly [number, number, number];
+
 export interface VslopeView {
-  /** Points inside the analysed window: [VO2, VCO2]. */
-  readonly analysed: readonly (readonly [number, number])[];
+  /** Points inside the analysed window: [VO2, VCO2, time of the recording in s]. */
+  readonly analysed: readonly VslopePoint[];
   /** Ramp points above VT2 (outside the fitted window), drawn faint. */
-  readonly outside: readonly (readonly [number, number])[];
+  readonly outside: readonly VslopePoint[];
   readonly windowS: readonly [number, number];
   readonly lines: readonly VslopeLine[];
   /** Label of the method whose fit is drawn, or null when no V-slope fit was found. */
@@ -52,17 +55,17 @@ export function vslopeView(a: TestAnalysis, used: { readonly vt1: ThresholdPoint
   const start = a.phases.incrementalStartS;
   const end = a.phases.incrementalEndS;
   const upper = used.vt2 && used.vt2.timeS > start ? Math.min(used.vt2.timeS, end) : end;
-  const analysed: [number, number][] = [];
-  const outside: [number, number][] = [];
+  const analysed: VslopePoint[] = [];
+  const outside: VslopePoint[] = [];
   for (let i = 0; i < timeS.length; i++) {
     const t = timeS[i];
     if (t < start || t > end || !Number.isFinite(vo2MlMin[i]) || !Number.isFinite(vco2MlMin[i])) continue;
-    (t <= upper ? analysed : outside).push([vo2MlMin[i], vco2MlMin[i]]);
+    (t <= upper ? analysed : outside).push([vo2MlMin[i], vco2MlMin[i], t]);
   }
   const fit = fitToDraw(a.vt1.methods);
   const segments = fit ? [...fit.evidence.segments].sort((p, q) => p.x0 - q.x0) : [];
   const lines = segments.length >= 2 ? [lineOf('below', segments[0]), lineOf('above', segments[segments.length - 1])] : [];
-  const all = [...analysed, ...outside].flat();
+  const all = [...analysed, ...outside].flatMap((p) => [p[0], p[1]]);
   const lo = all.length > 0 ? Math.min(...all) : 0;
   const hi = all.length > 0 ? Math.max(...all) : 1000;
   return { analysed, outside, windowS: [start, upper], lines, fitLabel: fit ? fit.label : null, range: roundOut(lo, hi), vt1Vo2MlMin: used.vt1?.vo2MlMin ?? null };

@@ -12,11 +12,13 @@ export interface ChartProps {
   readonly onPick?: (x: number, y: number) => void;
   readonly label: string;
   readonly testId?: string;
+  /** An extra class for the box, e.g. 'square' for a chart drawn with equal axis scales. */
+  readonly className?: string;
 }
 
 const CONFIG = { displaylogo: false, responsive: true, modeBarButtonsToRemove: ['select2d', 'lasso2d', 'toImage'] };
 
-export function Chart({ data, layout, onPick, label, testId }: ChartProps) {
+export function Chart({ data, layout, onPick, label, testId, className }: ChartProps) {
   const root = useRef<HTMLDivElement>(null);
   const pick = useRef(onPick);
   pick.current = onPick;
@@ -47,5 +49,5 @@ export function Chart({ data, layout, onPick, label, testId }: ChartProps) {
     };
   }, []);
 
-  return <div className="chart" ref={root} role="img" aria-label={label} data-testid={testId} />;
+  return <div className={className ? `chart ${className}` : 'chart'} ref={root} role="img" aria-label={label} data-testid={testId} />;
 }

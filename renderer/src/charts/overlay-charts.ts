@@ -3,7 +3,7 @@
  * VO2 against time, each day's VT1 (as it now stands) marked. Day 1 solid blue, day 2 dashed
  * orange, so the days differ by line style as well as colour.
  */
-import { clockAxis } from './clock-axis';
+import { clockAxis, clockHover } from './clock-axis';
 import type { ProcessedSeries, TestAnalysis } from '../../../core/model/analysis';
 import { DAY_COLOUR, DAY_STYLE, plotlyDash } from './palette';
 
@@ -18,6 +18,7 @@ function rampPart(a: TestAnalysis, key: Key, x: 'workW' | 'timeS') {
   const s: ProcessedSeries = a.series;
   const xs: number[] = [];
   const ys: number[] = [];
+  const ts: number[] = [];
   let lastIndex = s.timeS.length - 1;
   if (x === 'workW') {
     let best = -Infinity;
@@ -34,13 +35,20 @@ function rampPart(a: TestAnalysis, key: Key, x: 'workW' | 'timeS') {
     if (xv === null || yv === null) continue;
     xs.push(xv);
     ys.push(yv);
+    ts.push(t);
   }
-  return { xs, ys };
+  return { xs, ys, ts };
+}
+
+/** The hovered value in words, its time of the recording in m:ss (plotly would write the seconds). */
+function hoverOf(key: Key, x: 'workW' | 'timeS', ts: readonly number[]) {
+  const value = key === 'vo2MlMin' ? 'VO₂ %{y:.0f} mL/min' : 'HR %{y:.0f} bpm';
+  return clockHover(ts, x === 'workW' ? `%{x:.0f} W, ${value}` : value);
 }
 
 function trace(a: TestAnalysis, day: 1 | 2, key: Key, x: 'workW' | 'timeS') {
-  const { xs, ys } = rampPart(a, key, x);
-  return { type: 'scatter', mode: 'lines', name: `Day ${day}`, x: xs, y: ys, line: { color: DAY_COLOUR[day], width: 2, dash: plotlyDash(DAY_STYLE[day].dash) } };
+  const { xs, ys, ts } = rampPart(a, key, x);
+  return { type: 'scatter', mode: 'lines', name: `Day ${day}`, x: xs, y: ys, line: { color: DAY_COLOUR[day], width: 2, dash: plotlyDash(DAY_STYLE[day].dash) }, ...hoverOf(key, x, ts) };
 }
 
 function vt1Mark(a: TestAnalysis, day: 1 | 2, key: Key, x: 'workW' | 'timeS') {
@@ -49,13 +57,13 @@ function vt1Mark(a: TestAnalysis, day: 1 | 2, key: Key, x: 'workW' | 'timeS') {
   const xv = x === 'workW' ? at.workW : at.timeS;
   const yv = key === 'vo2MlMin' ? at.vo2MlMin : at.hrBpm;
   if (xv === null || yv === null) return null;
-  return { type: 'scatter', mode: 'markers+text', name: `Day ${day} VT1`, x: [xv], y: [yv], text: [`VT1 d${day}`], textposition: 'top left', marker: { color: DAY_COLOUR[day], size: 12, symbol: day === 1 ? 'circle' : 'square', line: { color: '#000', width: 1 } } };
+  return { type: 'scatter', mode: 'markers+text', name: `Day ${day} VT1`, x: [xv], y: [yv], text: [`VT1 d${day}`], textposition: 'top left', ...hoverOf(key, x, [at.timeS]), marker: { color: DAY_COLOUR[day], size: 12, symbol: day === 1 ? 'circle' : 'square', line: { color: '#000', width: 1 } } };
 }
 
 const SPECS: readonly { id: string; key: Key; x: 'workW' | 'timeS'; title: string; xTitle: string; yTitle: string }[] = [
   { id: 'vo2-work', key: 'vo2MlMin', x: 'workW', title: 'VO₂ against work', xTitle: 'Work (W)', yTitle: 'VO₂ (mL/min)' },
   { id: 'hr-work', key: 'hrBpm', x: 'workW', title: 'HR against work', xTitle: 'Work (W)', yTitle: 'HR (bpm)' },
-  { id: 'vo2-time', key: 'vo2MlMin', x: 'timeS', title: 'VO₂ against time', xTitle: 'Time (s)', yTitle: 'VO₂ (mL/min)' },
+  { id: 'vo2-time', key: 'vo2MlMin', x: 'timeS', title: 'VO₂ against time', xTitle: 'Time (m:ss)', yTitle: 'VO₂ (mL/min)' },
 ];
 
 const lastTime = (a: TestAnalysis) => a.series.timeS[a.series.timeS.length - 1] ?? 0;

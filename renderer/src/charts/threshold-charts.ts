@@ -4,10 +4,11 @@
  * 95% interval, and the threshold as it now stands (automatic or reviewer's).
  * Nothing here computes an estimate; ratios such as VE/VO2 are the plotted quantities.
  */
-import { clockAxis } from './clock-axis';
-import type { MethodOutcome, ProcessedSeries, ThresholdId } from '../../../core/model/analysis';
+import { clockAxis, clockHover } from './clock-axis';
+import type { MethodOutcome, ThresholdId } from '../../../core/model/analysis';
 import type { DayOutcome, ThresholdState } from '../../../core/case/recompute';
-import { vslopeView } from '../../../core/report/vslope-view';
+import { vslopeView, type VslopePoint } from '../../../core/report/vslope-view';
+import { clock } from '../ui/format';
 import { OKABE_ITO, SERIES_STYLE, THRESHOLD_COLOUR, THRESHOLD_STYLE, VSLOPE_STYLE, plotlyDash } from './palette';
 
 type Trace = Record<string, unknown>;
@@ -52,7 +53,8 @@ function methodMarks(methods: readonly MethodOutcome[], axis: 'time' | 'vo2', id
     yaxis: 'y2',
     y: found.map(() => (id === 'vt1' ? 0.04 : 0.08)),
     text: found.map((m) => m.label),
-    hovertemplate: '%{text}: %{x:.0f}<extra></extra>',
+    customdata: found.map((m) => clock(m.timeS)),
+    hovertemplate: axis === 'time' ? '%{text}: %{customdata}<extra></extra>' : '%{text}: VO₂ %{x:.0f} mL/min at %{customdata}<extra></extra>',
     marker: { symbol: id === 'vt1' ? 'triangle-up' : 'diamond', size: 11, color: THRESHOLD_COLOUR[id], line: { color: OKABE_ITO.black, width: 1 } },
   };
 }
@@ -66,13 +68,14 @@ const markerY2 = { overlaying: 'y', range: [0, 1], visible: false, fixedrange: t
  */
 export function vSlopeChart(day: DayOutcome) {
   const view = vslopeView(day.analysis, { vt1: day.vt1.effective, vt2: day.vt2.effective });
-  const xs = (pts: readonly (readonly [number, number])[]) => pts.map((p) => p[0]);
-  const ys = (pts: readonly (readonly [number, number])[]) => pts.map((p) => p[1]);
-  const hover = 'VO₂ %{x:.0f} mL/min, VCO₂ %{y:.0f} mL/min<extra></extra>';
+  const xs = (pts: readonly VslopePoint[]) => pts.map((p) => p[0]);
+  const ys = (pts: readonly VslopePoint[]) => pts.map((p) => p[1]);
+  // Each point's time of the recording in m:ss, so a reviewer can find it on the time charts.
+  const hover = (pts: readonly VslopePoint[]) => clockHover(pts.map((p) => p[2]), 'VO₂ %{x:.0f} mL/min, VCO₂ %{y:.0f} mL/min');
   const [lo, hi] = view.range;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'markers', name: 'ramp above VT2 (not fitted)', x: xs(view.outside), y: ys(view.outside), marker: { color: VSLOPE_STYLE.outside, size: 4 }, hovertemplate: hover },
-    { type: 'scatter', mode: 'markers', name: 'VCO₂ against VO₂ (analysed window)', x: xs(view.analysed), y: ys(view.analysed), marker: { color: VSLOPE_STYLE.analysed, size: 4, opacity: 0.55 }, hovertemplate: hover },
+    { type: 'scatter', mode: 'markers', name: 'ramp above VT2 (not fitted)', x: xs(view.outside), y: ys(view.outside), marker: { color: VSLOPE_STYLE.outside, size: 4 }, ...hover(view.outside) },
+    { type: 'scatter', mode: 'markers', name: 'VCO₂ against VO₂ (analysed window)', x: xs(view.analysed), y: ys(view.analysed), marker: { color: VSLOPE_STYLE.analysed, size: 4, opacity: 0.55 }, ...hover(view.analysed) },
     { type: 'scatter', mode: 'lines', name: 'line of identity (slope 1)', x: [lo, hi], y: [lo, hi], line: { color: VSLOPE_STYLE.identity.colour, width: 1.5, dash: plotlyDash(VSLOPE_STYLE.identity.dash) }, hoverinfo: 'skip' },
   ];
   for (const l of view.lines) {
@@ -90,7 +93,9 @@ export function vSlopeChart(day: DayOutcome) {
       xaxis: { title: { text: 'VO₂ (mL/min)' }, range: [lo, hi], constrain: 'domain' },
       yaxis: { title: { text: 'VCO₂ (mL/min)' }, range: [lo, hi], scaleanchor: 'x', scaleratio: 1, constrain: 'domain' },
       yaxis2: markerY2,
-      legend: { orientation: 'h', y: -0.22 },
+      // The plot is square, so the box has room beside it: the legend stands to the right of
+      // the plot, one entry a line, away from both axis titles (below and left of the plot).
+      legend: { orientation: 'v', x: 1.02, xanchor: 'left', y: 1, yanchor: 'top' },
       ...marks,
     },
   };
@@ -99,8 +104,8 @@ export function vSlopeChart(day: DayOutcome) {
 export function equivalentsChart(day: DayOutcome) {
   const s = day.analysis.series;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'lines', name: 'VE/VO₂', x: s.timeS, y: ratio(s.veLMin, s.vo2MlMin, 1000), line: { color: SERIES_STYLE.veVo2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVo2.dash) } },
-    { type: 'scatter', mode: 'lines', name: 'VE/VCO₂', x: s.timeS, y: ratio(s.veLMin, s.vco2MlMin, 1000), line: { color: SERIES_STYLE.veVco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVco2.dash) } },
+    { type: 'scatter', mode: 'lines', name: 'VE/VO₂', x: s.timeS, y: ratio(s.veLMin, s.vo2MlMin, 1000), line: { color: SERIES_STYLE.veVo2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVo2.dash) }, ...clockHover(s.timeS, 'VE/VO₂ %{y:.1f}') },
+    { type: 'scatter', mode: 'lines', name: 'VE/VCO₂', x: s.timeS, y: ratio(s.veLMin, s.vco2MlMin, 1000), line: { color: SERIES_STYLE.veVco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.veVco2.dash) }, ...clockHover(s.timeS, 'VE/VCO₂ %{y:.1f}') },
   ];
   for (const id of IDS) {
     const m = methodMarks(day[id].automatic.methods, 'time', id);
@@ -122,8 +127,8 @@ export function equivalentsChart(day: DayOutcome) {
 export function endTidalChart(day: DayOutcome) {
   const s = day.analysis.series;
   const data: Trace[] = [
-    { type: 'scatter', mode: 'lines', name: 'PetO₂', x: s.timeS, y: s.peto2Mmhg, line: { color: SERIES_STYLE.peto2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.peto2.dash) } },
-    { type: 'scatter', mode: 'lines', name: 'PetCO₂', x: s.timeS, y: s.petco2Mmhg, line: { color: SERIES_STYLE.petco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.petco2.dash) } },
+    { type: 'scatter', mode: 'lines', name: 'PetO₂', x: s.timeS, y: s.peto2Mmhg, line: { color: SERIES_STYLE.peto2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.peto2.dash) }, ...clockHover(s.timeS, 'PetO₂ %{y:.0f} mmHg') },
+    { type: 'scatter', mode: 'lines', name: 'PetCO₂', x: s.timeS, y: s.petco2Mmhg, line: { color: SERIES_STYLE.petco2.colour, width: 2, dash: plotlyDash(SERIES_STYLE.petco2.dash) }, ...clockHover(s.timeS, 'PetCO₂ %{y:.0f} mmHg') },
   ];
   return {
     data,

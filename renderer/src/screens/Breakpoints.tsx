@@ -102,7 +102,7 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
       )}
       <div className="bp-grid">
         <div className="charts">
-          <Chart label={`V-slope plot, day ${day}`} testId="chart-vslope" data={charts.vslope.data} layout={charts.vslope.layout} onPick={pick('vo2')} />
+          <Chart label={`V-slope plot, day ${day}`} testId="chart-vslope" className="square" data={charts.vslope.data} layout={charts.vslope.layout} onPick={pick('vo2')} />
           <Chart label={`Ventilatory equivalents, day ${day}`} testId="chart-equivalents" data={charts.eq.data} layout={charts.eq.layout} onPick={pick('time')} />
           <Chart label={`End-tidal pressures, day ${day}`} testId="chart-endtidal" data={charts.et.data} layout={charts.et.layout} onPick={pick('time')} />
         </div>

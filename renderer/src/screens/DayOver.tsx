@@ -13,7 +13,7 @@ import { Chart } from '../charts/Chart';
 import { overlayCharts } from '../charts/overlay-charts';
 import { verdictStyle } from '../charts/palette';
 import { Caution } from '../ui/notices';
-import { clock, fmt, prose, signed } from '../ui/format';
+import { clock, fmt, prose, signed, signedClock } from '../ui/format';
 import { ReviewerMark, thresholdOfMetric } from '../ui/reviewer-mark';
 
 const MATCHED: readonly { key: MatchedVariable; label: string; unit: string; digits: number }[] = [
@@ -23,9 +23,6 @@ const MATCHED: readonly { key: MatchedVariable; label: string; unit: string; dig
   { key: 'rer', label: 'RER', unit: '', digits: 2 },
   { key: 'veVco2', label: 'VE/VCO₂', unit: '', digits: 1 },
 ];
-
-/** A change of time as ±m:ss. */
-const signedClock = (s: number | null) => (s === null || !Number.isFinite(s) ? '—' : `${s > 0 ? '+' : s < 0 ? '−' : '±'}${clock(Math.abs(s))}`);
 
 const KIND_LABEL = { step: 'common step', vt1_day1: 'day-1 VT1 workload', vt1_day2: 'day-2 VT1 workload' } as const;
 

@@ -6,6 +6,7 @@
 import { formatDateTime, formatFixed } from '../../../core/locale/format-number';
 import { localizeProse } from '../../../core/report/format';
 import { localeByTag, type ReportLocale } from '../../../core/locale/locales';
+import { minSec, signedMinSec } from '../../../core/locale/min-sec';
 
 let current: ReportLocale = localeByTag('en-GB');
 
@@ -30,11 +31,14 @@ export function signed(value: number | null | undefined, digits = 0, unit = ''):
   return `${value > 0 ? '+' : value < 0 ? '−' : '±'}${fmt(Math.abs(value), digits, unit)}`;
 }
 
-/** Seconds as m:ss, as the report writes them (core/report/format.ts `minSec`): 372 → '6:12'. */
+/** Seconds as m:ss, by the one formatter the report and the CLI use (core/locale/min-sec.ts): 372 → '6:12'. */
 export function clock(timeS: number | null | undefined): string {
-  if (timeS === null || timeS === undefined || !Number.isFinite(timeS)) return '—';
-  const whole = Math.round(timeS);
-  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+  return minSec(timeS, '—');
+}
+
+/** A change of time as ±m:ss (core/locale/min-sec.ts): −287 → '−4:47'. */
+export function signedClock(seconds: number | null | undefined): string {
+  return signedMinSec(seconds, '—');
 }
 
 /**

@@ -52,7 +52,7 @@ describe('V-slope and equivalents charts', () => {
     expect(view.lines.map((l) => l.part)).toEqual(['below', 'above']);
     expect(view.lines[1].slope).toBeGreaterThan(view.lines[0].slope + 0.1);
     // One range for both axes, covering every plotted VO2 and VCO2.
-    const all = [...view.analysed, ...view.outside].flat();
+    const all = [...view.analysed, ...view.outside].flatMap((p) => [p[0], p[1]]);
     expect(view.range[0]).toBeLessThanOrEqual(Math.min(...all));
     expect(view.range[1]).toBeGreaterThanOrEqual(Math.max(...all));
 
