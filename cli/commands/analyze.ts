@@ -9,7 +9,9 @@ import { resolve } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { summaryJson } from '../../core/analyze/summary-json';
 import { readBreathFile } from '../../core/import/read-table';
-import { implausibleData } from '../../core/import/sanity';
+import { backwardTime, implausibleData } from '../../core/import/sanity';
+import { boundedFixed } from '../../core/locale/format-number';
+import { minSec } from '../../core/locale/min-sec';
 import type { BreathTable, TestMetadata } from '../../core/model/breath-table';
 import type { ClinicalInputs, TestAnalysis, ThresholdResult } from '../../core/model/analysis';
 import { formatLocated, locatedError, type LocatedError } from '../../core/model/errors';
@@ -125,7 +127,9 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const imported = await readBreathFile(bytes, { sourceName: file, settings });
   if (!imported.ok) return badInput(io, imported.error);
 
-  const impossible = implausibleData(imported.value.table.breaths, imported.value.flags, file, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null);
+  const impossible =
+    implausibleData(imported.value.table.breaths, imported.value.flags, file, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null) ??
+    backwardTime(imported.value.rejected, imported.value.table.breaths.length, file);
   if (impossible) return badInput(io, impossible);
   const table: BreathTable = { ...imported.value.table, metadata: { ...imported.value.table.metadata, ...overrides } };
   const analysis = analyzeTest(table, settings, clinical);
@@ -143,8 +147,14 @@ function badInput(io: CliIo, error: LocatedError): number {
   return EXIT_BAD_INPUT;
 }
 
+/** A value with its unit, in bounded digits ('≥ 10⁹' beyond a billion, core/locale/format-number.ts). */
 function f(x: number | null | undefined, decimals: number, unit: string): string {
-  return x === null || x === undefined || !Number.isFinite(x) ? '—' : `${x.toFixed(decimals)}${unit ? ' ' + unit : ''}`;
+  return x === null || x === undefined || !Number.isFinite(x) ? '—' : `${boundedFixed(x, decimals)}${unit ? ' ' + unit : ''}`;
+}
+
+/** A time of the recording as m:ss, by the one formatter (core/locale/min-sec.ts). */
+function clockText(x: number | null | undefined): string {
+  return minSec(x, '—');
 }
 
 function thresholdLines(t: ThresholdResult): string[] {
@@ -154,10 +164,10 @@ function thresholdLines(t: ThresholdResult): string[] {
   const ci = t.ci95Vo2MlMin ? `, 95% CI ${f(t.ci95Vo2MlMin[0], 0, '')}–${f(t.ci95Vo2MlMin[1], 0, 'mL/min')}` : '';
   const lines = [
     `${name}: VO2 ${f(a.vo2MlMin, 0, 'mL/min')} (${f(a.vo2MlKgMin, 1, 'mL/kg/min')}, ${f(a.pctPeakVo2, 0, '% of peak')})${ci}`,
-    `      at ${f(a.timeS, 0, 's')}, work ${f(a.workW, 0, 'W')}, HR ${f(a.hrBpm, 0, 'bpm')}, VE ${f(a.veLMin, 1, 'L/min')}, RER ${f(a.rer, 2, '')}`,
+    `      at ${clockText(a.timeS)} (m:ss), work ${f(a.workW, 0, 'W')}, HR ${f(a.hrBpm, 0, 'bpm')}, VE ${f(a.veLMin, 1, 'L/min')}, RER ${f(a.rer, 2, '')}`,
   ];
   for (const m of t.methods) {
-    lines.push(m.found ? `      ${m.label}: ${f(m.vo2MlMin, 0, 'mL/min')} at ${f(m.timeS, 0, 's')}` : `      ${m.label}: not found (${m.reason})`);
+    lines.push(m.found ? `      ${m.label}: ${f(m.vo2MlMin, 0, 'mL/min')} at ${clockText(m.timeS)}` : `      ${m.label}: not found (${m.reason})`);
   }
   if (t.methodsDisagree) lines.push(`      methods disagree: spread ${f(t.spreadVo2MlMin, 0, 'mL/min')}`);
   return lines;
@@ -169,8 +179,8 @@ function readable(a: TestAnalysis, importNotes: readonly string[]): string {
   const r = a.predicted;
   const lines = [
     `${a.sourceName} — ${a.provenance.software} ${a.provenance.softwareVersion}`,
-    `Phases: incremental ${f(a.phases.incrementalStartS, 0, 's')} to ${f(a.phases.incrementalEndS, 0, 's')} (${f(p.exerciseDurationS / 60, 1, 'min')}), ramp ${f(a.phases.rampWPerMin, 1, 'W/min')} (${a.phases.source})`,
-    `Breaths removed as outliers: ${a.removedBreaths.length}`,
+    `Phases: incremental ${clockText(a.phases.incrementalStartS)} to ${clockText(a.phases.incrementalEndS)} (m:ss; ${clockText(p.exerciseDurationS)} long), ramp ${f(a.phases.rampWPerMin, 1, 'W/min')} (${a.phases.source})`,
+    `Breaths left out (values outside physiology, outliers): ${a.removedBreaths.length}`,
     '',
     ...thresholdLines(a.vt1),
     ...thresholdLines(a.vt2),

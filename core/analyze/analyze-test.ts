@@ -1,5 +1,5 @@
 /**
- * One test, end to end: outlier removal → averaging → phases → thresholds → values at each
+ * One test, end to end: breaths outside physiology left out → outlier removal → averaging → phases → thresholds → values at each
  * threshold → peaks → derived measures → predicted values → effort → warnings → provenance.
  * Pure and deterministic: the same table, settings and clinical inputs always give the same
  * analysis (the bootstrap is seeded from the settings).
@@ -14,6 +14,7 @@ import type { Settings } from '../model/settings';
 import type { ThresholdEstimate } from '../thresholds/detector';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
 import { removeOutliers } from '../clean/outliers';
+import { leaveOutImpossible } from '../clean/impossible';
 import { averageBreaths } from '../clean/averaging';
 import { findPhases } from '../clean/phases';
 import { intervalLabel } from '../thresholds/interval-label';
@@ -23,6 +24,7 @@ import { peakValues } from '../measures/peaks';
 import { breathingReserve, dVo2dWr, hrReserve, mvvLMin, oues, veVco2Slope, weberClass } from '../measures/derived';
 import { friendVo2MlKgMin, hansenVo2MlMin, percentOf, predictedHrMax, type Person } from '../measures/predicted';
 import { assessEffort } from '../measures/effort';
+import { impossibleShareNote } from '../import/sanity';
 import { valuesAt, valuesAtContext, type ValuesAtContext } from './values-at';
 import { analysisWarnings } from './warnings';
 
@@ -35,7 +37,11 @@ export function noClinicalInputs(): ClinicalInputs {
 
 export function analyzeTest(table: BreathTable, settings: Settings, clinical: ClinicalInputs): TestAnalysis {
   const meta = table.metadata;
-  const { kept, removed } = removeOutliers(table.breaths, settings.clean.outliers);
+  // Values outside physiology first (named, core/clean/impossible.ts), then outlier breaths.
+  const possible = leaveOutImpossible(table.breaths, settings.import, table.sourceName);
+  const outliers = removeOutliers(possible.kept, settings.clean.outliers);
+  const kept = outliers.kept;
+  const removed = [...possible.removed, ...outliers.removed].sort((p, q) => p.timeS - q.timeS);
   const series = averageBreaths(kept, settings.clean.averaging);
   const phases = findPhases(kept, settings.clean.phases);
   const incrementalWindow = { fromS: phases.incrementalStartS, toS: phases.incrementalEndS };
@@ -84,6 +90,7 @@ export function analyzeTest(table: BreathTable, settings: Settings, clinical: Cl
     peakRpe: clinical.peakRpe ?? rpeFromFile,
     lactateMmolL: clinical.lactateMmolL,
     settings: settings.effort,
+    impossibleData: impossibleShareNote(table.breaths, settings, table.sourceName),
   });
 
   const warnings = analysisWarnings({

@@ -7,14 +7,17 @@ import { analyzeTest } from '../analyze/analyze-test';
 import { valuesAt, valuesAtContext } from '../analyze/values-at';
 import { compareTests, type Comparison } from '../compare/compare-tests';
 import { readBreathBytes } from '../import/read-table';
-import { implausibleTable } from '../import/sanity';
+import { backwardTime, implausibleTable } from '../import/sanity';
 import { fail, ok } from '../model/errors';
 import type { Engine } from './engine';
 
 export const defaultEngine: Engine<Comparison> = {
   readTable: (name, bytes, settings, columnMap) => {
     const read = readBreathBytes(bytes, { sourceName: name, settings, mapping: columnMap });
-    return read.ok ? ok(read.value.table) : read;
+    if (!read.ok) return read;
+    // Time running backwards on many rows is refused here, where the import's set-aside rows are known.
+    const backwards = backwardTime(read.value.rejected, read.value.table.breaths.length, name);
+    return backwards ? fail(backwards) : ok(read.value.table);
   },
   analyzeTest: (table, settings, clinical) => {
     // Impossible data is refused rather than analysed with confidence (core/import/sanity.ts).

@@ -17,6 +17,7 @@ import type { Breath } from '../model/breath-table';
 import type { RemovedBreath } from '../model/analysis';
 import type { OutlierSpec } from '../model/settings';
 import { mean, sampleSd } from '../math/stats';
+import { boundedFixed } from '../locale/format-number';
 
 export interface OutlierResult {
   readonly kept: readonly Breath[];
@@ -73,5 +74,5 @@ function firstOutlier(breaths: readonly Breath[], i: number, half: number, limit
 }
 
 function round(x: number): string {
-  return Math.abs(x) >= 100 ? x.toFixed(0) : x.toFixed(1);
+  return boundedFixed(x, Math.abs(x) >= 100 ? 0 : 1);
 }

@@ -7,11 +7,26 @@
  * When the file carries the cart's own RER, it is compared with VCO2/VO2 and a difference
  * above `settings.import.rerMismatch` is flagged (a sign of a column mix-up or unit error).
  * Borg ratings outside 6–20 (Borg 1982) are flagged.
+ * Values outside physiology, whatever the settings (PHYSIOLOGY below): VE at or below zero or
+ * above 400 L/min, work below 0 or above 3,000 W, PetO2 or PetCO2 below 0 or above 760 mmHg.
  */
 import type { Breath, RpeReading } from '../model/breath-table';
 import { locatedError } from '../model/errors';
+import { shortNumber } from '../locale/format-number';
 import type { Settings } from '../model/settings';
 import type { ColumnReport, RowFlag } from './types';
+
+/**
+ * Hard limits of physiology, not lab settings: the highest minute ventilations recorded in
+ * elite endurance athletes are about 200–300 L/min (memory), so 400 L/min is none a person
+ * breathes; a cycle ramp test peaks at a few hundred watts and sprint power near 2,000 W
+ * (memory), so above 3,000 W is a unit or column error (common practice, no source); a
+ * partial pressure cannot exceed the total pressure, 760 mmHg at sea level (physics).
+ */
+export const PHYSIOLOGY = { veMaxLMin: 400, workMaxW: 3000, petMaxMmhg: 760 } as const;
+
+/** A number for a message about a bad cell, in bounded digits (1e300 → '≥ 10⁹'). */
+const cellNumber = shortNumber;
 
 function round(x: number, digits: number): number {
   const f = 10 ** digits;
@@ -32,6 +47,8 @@ export function plausibilityFlags(
   const vco2Col = colOf('vco2MlMin');
   const hrCol = colOf('hrBpm');
   const rerCol = colOf('rer');
+  const veCol = colOf('veLMin');
+  const workCol = colOf('workW');
   const flags: RowFlag[] = [];
   const flag = (b: Breath, code: string, column: number | null, variable: RowFlag['variable'], value: number, message: string) =>
     flags.push({ ...locatedError(code, file, b.sourceLine, column, message), timeS: b.timeS, variable, value });
@@ -39,7 +56,7 @@ export function plausibilityFlags(
   for (let i = 0; i < breaths.length; i++) {
     const b = breaths[i];
     if (b.vo2MlMin > lim.vo2MaxMlMin) {
-      flag(b, 'implausible-vo2', vo2Col, 'vo2MlMin', b.vo2MlMin, `VO2 of ${Math.round(b.vo2MlMin)} mL/min is above the plausible ${lim.vo2MaxMlMin} mL/min; check the unit or the sensor.`);
+      flag(b, 'implausible-vo2', vo2Col, 'vo2MlMin', b.vo2MlMin, `VO2 of ${cellNumber(Math.round(b.vo2MlMin))} mL/min is above the plausible ${lim.vo2MaxMlMin} mL/min; check the unit or the sensor.`);
     }
     if (b.vo2MlMin <= 0 || b.vco2MlMin <= 0) {
       const which = b.vo2MlMin <= 0 ? 'VO2' : 'VCO2';
@@ -55,7 +72,19 @@ export function plausibilityFlags(
       }
     }
     if (b.hrBpm !== null && (b.hrBpm < lim.hrMinBpm || b.hrBpm > lim.hrMaxBpm)) {
-      flag(b, 'implausible-hr', hrCol, 'hrBpm', b.hrBpm, `HR of ${b.hrBpm} bpm is outside the plausible ${lim.hrMinBpm}–${lim.hrMaxBpm} bpm.`);
+      flag(b, 'implausible-hr', hrCol, 'hrBpm', b.hrBpm, `HR of ${cellNumber(b.hrBpm)} bpm is outside the plausible ${lim.hrMinBpm}–${lim.hrMaxBpm} bpm.`);
+    }
+    if (!(b.veLMin > 0 && b.veLMin <= PHYSIOLOGY.veMaxLMin)) {
+      flag(b, 'implausible-ve', veCol, 'veLMin', b.veLMin, `VE of ${cellNumber(b.veLMin)} L/min is outside physiology (above 0, at most ${PHYSIOLOGY.veMaxLMin} L/min).`);
+    }
+    if (b.workW !== null && !(b.workW >= 0 && b.workW <= PHYSIOLOGY.workMaxW)) {
+      flag(b, 'implausible-work', workCol, 'workW', b.workW, `Work of ${cellNumber(b.workW)} W is outside physiology (0 to ${PHYSIOLOGY.workMaxW} W).`);
+    }
+    for (const [key, name] of [['peto2Mmhg', 'PetO2'], ['petco2Mmhg', 'PetCO2']] as const) {
+      const v = b[key];
+      if (v !== null && !(v >= 0 && v <= PHYSIOLOGY.petMaxMmhg)) {
+        flag(b, 'implausible-pet', colOf(key), key, v, `${name} of ${cellNumber(v)} mmHg is outside physiology (0 to ${PHYSIOLOGY.petMaxMmhg} mmHg, the pressure of the air at sea level).`);
+      }
     }
   }
   const rpeCol = colOf('rpe');

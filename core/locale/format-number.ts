@@ -11,6 +11,35 @@ import type { ReportLocale } from './locales';
 
 export const MISSING = '–';
 
+/**
+ * Numbers print with bounded digits: a magnitude at or above 10⁹ (a billion; no measured or
+ * derived quantity of a CPET comes near it, a VO2 of 1e300 from a broken export does) is not
+ * written out but printed as '≥ 10⁹' (or '≤ −10⁹'), in tables, sentences and on screen
+ * alike, so a value like 1e300 never prints as "1.41e+299 %", in exponent form or as 300 digits.
+ */
+export const PRINTABLE_LIMIT = 1e9;
+
+/** '≥ 10⁹' or '≤ −10⁹' for a value beyond the printable range; null for one inside it. */
+export function outOfRange(value: number): string | null {
+  if (Number.isNaN(value) || Math.abs(value) < PRINTABLE_LIMIT) return null;
+  return value > 0 ? '≥ 10⁹' : '≤ −10⁹';
+}
+
+/** `value.toFixed(digits)` for a value inside the printable range, else its `outOfRange` text. */
+export function boundedFixed(value: number, digits: number): string {
+  return outOfRange(value) ?? value.toFixed(digits);
+}
+
+/**
+ * A number for a message: at most 4 significant digits, never an exponent (below 0.001 it
+ * reads 0.000; beyond the printable range '≥ 10⁹'). Example: 1234.56 → '1235'; 0.1234 → '0.1234'.
+ */
+export function shortNumber(value: number): string {
+  if (!Number.isFinite(value)) return outOfRange(value) ?? String(value);
+  const a = Math.abs(value);
+  return outOfRange(value) ?? (a !== 0 && a < 1e-3 ? value.toFixed(3) : String(Number(value.toPrecision(4))));
+}
+
 function group(integer: string, locale: ReportLocale): string {
   if (locale.thousands === '' || integer.length < locale.groupFrom) return integer;
   let out = '';
@@ -29,6 +58,8 @@ function magnitude(value: number, digits: number, locale: ReportLocale): string 
 
 export function formatFixed(value: number | null | undefined, digits: number, locale: ReportLocale): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return MISSING;
+  const beyond = outOfRange(value);
+  if (beyond) return beyond;
   const text = magnitude(value, digits, locale);
   return value.toFixed(digits).startsWith('-') ? `−${text}` : text;
 }
@@ -36,6 +67,8 @@ export function formatFixed(value: number | null | undefined, digits: number, lo
 /** With a `+` or `−` sign; zero at the shown precision has none. */
 export function formatSigned(value: number | null | undefined, digits: number, locale: ReportLocale): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return MISSING;
+  const beyond = outOfRange(value);
+  if (beyond) return beyond;
   const text = magnitude(value, digits, locale);
   if (Number(Math.abs(value).toFixed(digits)) === 0) return text;
   return `${value < 0 ? '−' : '+'}${text}`;

@@ -34,6 +34,11 @@
  * other criteria are reported and do not decide.
  * Each criterion carries the rule as applied in words and its value at the precision it is
  * judged at (RER 2 decimals, HR and RPE whole numbers), so no screen or page re-derives them.
+ * Values print with bounded digits (core/locale/format-number.ts: '≥ 10⁹' beyond a billion).
+ *
+ * Data that cannot show an effort: when `impossibleData` gives a reason (more than 5 % of
+ * the breaths carry values outside physiology, core/import/sanity.ts; common practice), the
+ * verdict is indeterminate whatever the criteria say, and that reason comes first.
  */
 import type { Breath } from '../model/breath-table';
 import type { EffortAssessment, EffortCriterion, PeakValues, Phases } from '../model/analysis';
@@ -41,6 +46,7 @@ import { EFFORT_OPTION_DEFAULTS, type Settings } from '../model/settings';
 import { linearFit } from '../math/linear-fit';
 import { mean } from '../math/stats';
 import { loadSignal } from '../clean/phases';
+import { boundedFixed } from '../locale/format-number';
 
 export interface EffortInputs {
   readonly breaths: readonly Breath[];
@@ -51,6 +57,8 @@ export interface EffortInputs {
   readonly peakRpe: number | null;
   readonly lactateMmolL: number | null;
   readonly settings: Settings['effort'];
+  /** Why the recording cannot vouch for its effort (too many impossible values), or null. */
+  readonly impossibleData?: string | null;
 }
 
 export interface PlateauMeasure {
@@ -110,7 +118,7 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     unit: '',
     source: 'Balady et al., Circulation 2010;122:191–225; ATS/ACCP 2003; 1.10 or 1.15 by lab (Robergs et al., Sports Med 2010)',
     rule: `peak RER ≥ ${s.rerMin.toFixed(2)}`,
-    valueText: rer === null ? 'not measured' : rer.toFixed(2),
+    valueText: rer === null ? 'not measured' : boundedFixed(rer, 2),
     detail: null,
   });
   criteria.push(plateauCriterion(input));
@@ -125,7 +133,7 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     unit: 'Borg 6–20',
     source: 'Borg, Med Sci Sports Exerc 1982;14:377–81; threshold common practice',
     rule: `rating ≥ ${trim(s.rpeMin)} on the Borg 6–20 scale`,
-    valueText: input.peakRpe === null ? 'not recorded' : input.peakRpe.toFixed(rpeDigits),
+    valueText: input.peakRpe === null ? 'not recorded' : boundedFixed(input.peakRpe, rpeDigits),
     detail: null,
   });
   criteria.push({
@@ -137,9 +145,10 @@ export function assessEffort(input: EffortInputs): EffortAssessment {
     unit: 'mmol/L',
     source: 'common practice',
     rule: `≥ ${trim(s.lactateMinMmolL)} mmol/L`,
-    valueText: input.lactateMmolL === null ? 'not measured' : `${input.lactateMmolL.toFixed(1)} mmol/L`,
+    valueText: input.lactateMmolL === null ? 'not measured' : `${boundedFixed(input.lactateMmolL, 1)} mmol/L`,
     detail: null,
   });
+  if (input.impossibleData) return { criteria, combination: COMBINATION[rule], verdict: 'indeterminate', reasons: [input.impossibleData, ...reasonsOf(criteria)] };
   const verdict = rule === 'rer-alone' ? rerAloneVerdict(criteria) : verdictOf(criteria);
   return { criteria, combination: COMBINATION[rule], ...verdict };
 }
@@ -179,7 +188,7 @@ function hrCriterion(input: EffortInputs): EffortCriterion {
       threshold: s.hrPctMin,
       unit: '%',
       rule: 'not applied: the HR criterion is switched off in the settings (e.g. beta-blockade)',
-      valueText: hr === null ? 'not recorded' : `${hr.toFixed(0)} bpm`,
+      valueText: hr === null ? 'not recorded' : `${boundedFixed(hr, 0)} bpm`,
       detail: null,
     };
   }
@@ -187,7 +196,7 @@ function hrCriterion(input: EffortInputs): EffortCriterion {
   const withinMet = hr === null || predicted === null ? null : hr >= predicted - withinBpm;
   const pctRule = `≥ ${trim(s.hrPctMin)} % of ${predictedText}${predicted === null ? '' : ` (≥ ${((s.hrPctMin / 100) * predicted).toFixed(0)} bpm)`}`;
   const withinRule = `within ${trim(withinBpm)} bpm of ${predictedText}${predicted === null ? '' : ` (≥ ${(predicted - withinBpm).toFixed(0)} bpm)`}`;
-  const pctText = hrPct === null ? 'not available' : `${hrPct.toFixed(0)} % (${(hr as number).toFixed(0)} bpm)`;
+  const pctText = hrPct === null ? 'not available' : `${boundedFixed(hrPct, 0)} % (${boundedFixed(hr as number, 0)} bpm)`;
   if (mode === 'within-bpm') {
     return {
       ...base,
@@ -197,7 +206,7 @@ function hrCriterion(input: EffortInputs): EffortCriterion {
       threshold: predicted === null ? withinBpm : predicted - withinBpm,
       unit: 'bpm',
       rule: `peak HR ${withinRule}`,
-      valueText: hr === null ? 'not recorded' : `${hr.toFixed(0)} bpm`,
+      valueText: hr === null ? 'not recorded' : `${boundedFixed(hr, 0)} bpm`,
       detail: null,
     };
   }
@@ -240,8 +249,8 @@ function plateauCriterion(input: EffortInputs): EffortCriterion {
     rule: ramp
       ? `rise below ${trim(threshold)} ${unit} over the final minute, and the final minute's slope below ${RAMP_SLOPE_RATIO_MAX.toFixed(2)} × the slope over the earlier ramp`
       : `rise below ${trim(threshold)} ${unit} from the stage before to the last stage`,
-    valueText: `${value.toFixed(digits)} ${unit}`,
-    detail: ramp ? `slope ratio ${m.slopeRatio === null ? 'not available' : m.slopeRatio.toFixed(2)}` : null,
+    valueText: `${boundedFixed(value, digits)} ${unit}`,
+    detail: ramp ? `slope ratio ${m.slopeRatio === null ? 'not available' : boundedFixed(m.slopeRatio, 2)}` : null,
   };
 }
 

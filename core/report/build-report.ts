@@ -144,6 +144,12 @@ function titleBlock(L: Layout, input: ReportInput, subject: string): void {
   const page = pageOne(comparison, L.f.locale);
   L.subheading('Finding');
   for (const sentence of page.sentences) L.paragraph(L.f.prose(sentence));
+  // A day that was not judged maximal says why on page 1 (the first reason is the deciding
+  // one, e.g. too many impossible values in the recording).
+  for (const [d, day] of [[1, day1], [2, day2]] as const) {
+    const e = day.analysis.effort;
+    if (e.verdict !== 'maximal') L.paragraph(L.f.prose(`Effort, day ${d}: ${e.verdict}. ${e.reasons[0] ?? ''}`), { color: WARN });
+  }
   const recovery = followUpSummaryLine(input.caseFile);
   if (recovery) L.paragraph(L.f.prose(recovery));
   L.paragraph(L.f.prose(`${page.bandLine} ${page.bandBasis}`), { size: 8, color: MUTED });

@@ -2,8 +2,17 @@
  * The e2e harness: builds the page when renderer/dist is missing or stale, starts browser
  * mode on a free 127.0.0.1 port with a throw-away data folder, and launches Debian's
  * Chromium headless with the flags that stop it calling out.
+ *
+ * Screenshots: every e2e run takes them (drawing a page is part of the test), but writes
+ * them to the tracked docs/screenshots/ only when asked, so an ordinary run leaves git
+ * clean:
+ *
+ *     TWOFOLD_SCREENSHOTS=docs npx vitest run tests/e2e     # refresh docs/screenshots/*.png
+ *
+ * Otherwise they go to twofold-e2e-screenshots-UID/ in the system temporary folder (one per
+ * user), kept for a look after the run.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -13,7 +22,18 @@ import { startBrowserMode } from '../../host/workbench/browser-mode';
 import type { RunningBridge } from '../../host/workbench/http-bridge';
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url));
-export const SCREENSHOTS = join(ROOT, 'docs', 'screenshots');
+/** Set to `docs` to refresh the tracked screenshots in docs/screenshots/ (see above). */
+export const SCREENSHOTS_ENV = 'TWOFOLD_SCREENSHOTS';
+
+/** Where this run writes its screenshots: docs/screenshots/ when asked, a temporary folder otherwise. */
+export function screenshotFolder(env: NodeJS.ProcessEnv = process.env): string {
+  if (env[SCREENSHOTS_ENV] === 'docs') return join(ROOT, 'docs', 'screenshots');
+  const dir = join(tmpdir(), `twofold-e2e-screenshots-${process.getuid?.() ?? 'user'}`);
+  mkdirSync(dir, { recursive: true });
+  return dir;
+}
+
+export const SCREENSHOTS = screenshotFolder();
 
 /** Chromium's PDF viewer: its component extension and the browser's own shared resources. */
 const BUILT_IN_PDF_VIEWER = ['chrome-extension://mhjfbmdgcfjbbpaeojofohoefgiehjai/', 'chrome://resources/'];

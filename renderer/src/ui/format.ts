@@ -3,7 +3,7 @@
  * the workbench's locale (ui/locale.tsx, core/locale/). The App sets the locale before it
  * renders the screens, so every screen of one render uses the same one.
  */
-import { formatDateTime, formatFixed } from '../../../core/locale/format-number';
+import { formatDateTime, formatFixed, outOfRange } from '../../../core/locale/format-number';
 import { localizeProse } from '../../../core/report/format';
 import { localeByTag, type ReportLocale } from '../../../core/locale/locales';
 import { minSec, signedMinSec } from '../../../core/locale/min-sec';
@@ -28,6 +28,8 @@ export function fmt(value: number | null | undefined, digits = 0, unit = ''): st
 
 export function signed(value: number | null | undefined, digits = 0, unit = ''): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  const beyond = outOfRange(value);
+  if (beyond) return unit ? `${beyond} ${unit}` : beyond;
   return `${value > 0 ? '+' : value < 0 ? '−' : '±'}${fmt(Math.abs(value), digits, unit)}`;
 }
 
