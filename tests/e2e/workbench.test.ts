@@ -4,10 +4,12 @@
  * (the page must show exactly those numbers, so it holds no analysis of its own), linear
  * interpolation worked by hand, the demo scenario's stated outcome (day 2 reaches VT1 at a
  * lower VO2), `twofold verify` (exit 0) and poppler's `pdfsig` as independent verdicts on the
- * signed PDF.
+ * signed PDF, poppler's `pdftotext` reading the report's pages back, m:ss worked by hand
+ * (floor(s / 60), then the seconds padded), and the palette's stated colour for each verdict.
  */
 import { execFileSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
@@ -18,7 +20,9 @@ import type { Comparison } from '../../core/compare/compare-tests';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { noClinicalInputs } from '../../core/analyze/analyze-test';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
-import { numberIn, ROOT, SCREENSHOTS, startWorkbench, type Workbench } from './harness';
+import { vslopeView } from '../../core/report/vslope-view';
+import { verdictStyle } from '../../core/palette';
+import { numberIn, ROOT, SCREENSHOTS, SCREENSHOTS_ENV, startWorkbench, type Workbench } from './harness';
 
 let bench: Workbench;
 let page: Page;
@@ -43,6 +47,58 @@ function interpolate(xs: readonly number[], ys: readonly number[], x: number): n
 }
 
 const cell = (row: string, column: number) => page.locator(`${row} > :nth-child(${column})`).textContent();
+
+/** m:ss worked by hand: 814 s → '13:34'. */
+const byHand = (s: number) => {
+  const whole = Math.round(s);
+  return `${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
+};
+
+/** The tracked screenshots and their SHA-256, to show an ordinary run leaves them untouched. */
+const TRACKED = join(ROOT, 'docs', 'screenshots');
+const refreshing = process.env[SCREENSHOTS_ENV] === 'docs';
+const trackedHashes = () => Object.fromEntries(readdirSync(TRACKED).filter((n) => n.endsWith('.png')).map((n) => [n, createHash('sha256').update(readFileSync(join(TRACKED, n))).digest('hex')]));
+let trackedBefore: Record<string, string> = {};
+let draftPath = '';
+const startedMs = Date.now();
+
+/**
+ * Moves the mouse onto point `k` of trace `traceName` of a plotly chart and returns the hover
+ * label's text and the point's x (plotly's own axis mapping gives the pixel).
+ */
+async function hoverPoint(testId: string, traceName: string, k: number): Promise<{ text: string; x: number }> {
+  const chart = page.locator(`[data-testid="${testId}"]`);
+  await chart.scrollIntoViewIfNeeded();
+  const at = await chart.evaluate(
+    (el, [name, index]) => {
+      const gd = el as unknown as { _fullLayout: Record<string, { _offset: number; l2p: (v: number) => number }>; _fullData: { name: string; x: number[]; y: (number | null)[]; yaxis?: string }[] };
+      const trace = gd._fullData.find((t) => t.name === name)!;
+      let i = index as number;
+      while (trace.y[i] === null || !Number.isFinite(trace.y[i] as number)) i++;
+      const xa = gd._fullLayout.xaxis;
+      const ya = gd._fullLayout[trace.yaxis === 'y2' ? 'yaxis2' : 'yaxis'];
+      return { px: xa._offset + xa.l2p(trace.x[i]), py: ya._offset + ya.l2p(trace.y[i] as number), x: trace.x[i] };
+    },
+    [traceName, k] as const,
+  );
+  const box = (await chart.boundingBox())!;
+  await page.mouse.move(box.x + at.px, box.y + at.py);
+  await page.waitForFunction((id) => (document.querySelector(`[data-testid="${id}"] .hoverlayer`)?.textContent ?? '') !== '', testId, { timeout: 5000 });
+  const text = (await chart.locator('.hoverlayer').textContent())!;
+  // The point plotly chose (the nearest to the pointer, which may be a neighbour of point k).
+  const hovered = await chart.evaluate((el) => (el as unknown as { _hoverdata: { x: number }[] })._hoverdata[0].x);
+  await page.mouse.move(0, 0);
+  expect(Math.abs(hovered - at.x)).toBeLessThan(60);
+  return { text, x: hovered };
+}
+
+type Box = { x: number; y: number; width: number; height: number };
+/** The distance between two boxes (0 when they touch or overlap). */
+function gap(a: Box, b: Box): number {
+  const dx = Math.max(0, b.x - (a.x + a.width), a.x - (b.x + b.width));
+  const dy = Math.max(0, b.y - (a.y + a.height), a.y - (b.y + b.height));
+  return Math.hypot(dx, dy);
+}
 const shot = (name: string) => page.screenshot({ path: join(SCREENSHOTS, `${name}.png`), fullPage: true });
 
 async function goTo(label: string) {
@@ -50,6 +106,7 @@ async function goTo(label: string) {
 }
 
 beforeAll(async () => {
+  trackedBefore = trackedHashes();
   reference = referenceOutcome();
   bench = await startWorkbench();
   page = await bench.newPage();
@@ -81,6 +138,67 @@ describe('browser mode, demo pair', () => {
     expect(day2Vt1).toBe(Math.round(reference.day2.analysis.vt1.at!.vo2MlMin));
     // The demo scenario is the declining pair: day 2 reaches VT1 at a lower VO2 (sample-tests/scenario).
     expect(day2Vt1).toBeLessThan(day1Vt1);
+  });
+
+  it('charts: hover labels read m:ss; the V-slope at 1440×900 is square with its identity line, both slopes, and its legend clear of the axis titles', async () => {
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await goTo('Breakpoints');
+    await page.locator('.day-tab', { hasText: 'Day 1' }).click();
+    await page.waitForSelector('[data-testid="chart-vslope"] .legend');
+    // Ventilatory equivalents and end-tidal pressures: the hovered time is the point's m:ss, never its seconds.
+    for (const [id, trace] of [['chart-equivalents', 'VE/VO₂'], ['chart-endtidal', 'PetCO₂']] as const) {
+      const h = await hoverPoint(id, trace, 200);
+      expect(h.text).toContain(byHand(h.x));
+      expect(h.text).not.toContain(String(Math.round(h.x)));
+    }
+    // V-slope: a point names its time of the recording in m:ss.
+    const v = await hoverPoint('chart-vslope', 'VCO₂ against VO₂ (analysed window)', 40);
+    expect(v.text).toMatch(/\d+:\d\d, VO₂ \d/);
+
+    const chart = page.locator('[data-testid="chart-vslope"]');
+    const geometry = await chart.evaluate((el) => {
+      const gd = el as unknown as { _fullLayout: Record<string, { _length: number; range: number[] }>; _fullData: { name: string; x: number[] }[] };
+      const per = (a: { _length: number; range: number[] }) => a._length / (a.range[1] - a.range[0]);
+      return { xPx: per(gd._fullLayout.xaxis), yPx: per(gd._fullLayout.yaxis), names: gd._fullData.map((t) => t.name), analysed: gd._fullData.find((t) => t.name.startsWith('VCO₂ against VO₂'))!.x.length };
+    });
+    // Equal scales: one mL/min is as many pixels on VO₂ as on VCO₂.
+    expect(Math.abs(geometry.xPx / geometry.yPx - 1)).toBeLessThan(0.01);
+    const view = vslopeView(reference.day1.analysis, { vt1: reference.day1.vt1.effective, vt2: reference.day1.vt2.effective });
+    expect(geometry.names).toContain('line of identity (slope 1)');
+    expect(geometry.names).toContain(`below VT1: slope ${view.lines[0].slope.toFixed(2)}`);
+    expect(geometry.names).toContain(`above VT1: slope ${view.lines[1].slope.toFixed(2)}`);
+    // Only the analysed window (incremental phase up to VT2) is drawn as the fitted cloud.
+    const a = reference.day1.analysis;
+    expect(geometry.analysed).toBe(a.series.timeS.filter((t) => t >= a.phases.incrementalStartS && t <= reference.day1.vt2.effective!.timeS).length);
+    // The legend keeps at least 8 px from both axis titles and stays inside the chart's box.
+    const legend = (await chart.locator('.legend').boundingBox())!;
+    const outer = (await chart.boundingBox())!;
+    for (const title of ['.xtitle', '.ytitle']) expect(gap(legend, (await chart.locator(title).boundingBox())!)).toBeGreaterThanOrEqual(8);
+    expect(legend.x + legend.width).toBeLessThanOrEqual(outer.x + outer.width);
+    expect(legend.y + legend.height).toBeLessThanOrEqual(outer.y + outer.height);
+    await chart.screenshot({ path: join(SCREENSHOTS, '2b-vslope-1440x900.png') });
+    await page.setViewportSize({ width: 1440, height: 1000 });
+  });
+
+  it('Day 2 vs Day 1: verdicts coloured by harm with words, matched workloads say how they were read, overlays hover in m:ss', async () => {
+    await goTo('Day 2 vs Day 1');
+    await page.waitForSelector('[data-testid="metric-table"]');
+    // Compared against the automatic comparison on rows the override does not touch.
+    for (const id of ['peak_vo2', 've_vco2_slope', 'peak_rer']) {
+      const m = reference.comparison.metrics.find((x) => x.id === id)!;
+      expect(m, id).toBeDefined();
+      const style = verdictStyle(m.verdict, m.adverseBeyondBand);
+      const verdictCell = page.locator(`[data-testid="metric-table"] tr[data-metric="${id}"] td.verdict`);
+      expect(await verdictCell.textContent()).toContain(style.words);
+      const colour = await verdictCell.locator('.chip').evaluate((el) => getComputedStyle(el).backgroundColor);
+      const hex = style.colour.replace('#', '');
+      expect(colour).toBe(`rgb(${parseInt(hex.slice(0, 2), 16)}, ${parseInt(hex.slice(2, 4), 16)}, ${parseInt(hex.slice(4, 6), 16)})`);
+    }
+    expect(await page.locator('[data-testid="matched-reading"]').textContent()).toMatch(/local fit/);
+    const overlay = page.locator('[aria-label="VO₂ against time, both days"]');
+    await overlay.evaluate((el) => el.setAttribute('data-testid', 'overlay-vo2-time'));
+    const h = await hoverPoint('overlay-vo2-time', 'Day 1', 150);
+    expect(h.text).toContain(byHand(h.x));
   });
 
   it('shows the comparison core computes, then overrides day-2 VT1 with a reason and sees it change', async () => {
@@ -139,6 +257,17 @@ describe('browser mode, demo pair', () => {
     await shot('5-day-over-day-after-override');
   });
 
+  it('a report exported before any sign-off is marked as a draft on every page', async () => {
+    await goTo('Sign-off');
+    await page.click('[data-testid="export"]');
+    await page.waitForSelector('[data-testid="export-path"]', { timeout: 120_000 });
+    const path = (await page.locator('[data-testid="export-path"]').textContent())!;
+    draftPath = path;
+    const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [path], { encoding: 'utf8' }))![1]);
+    expect(pages).toBeGreaterThan(3);
+    for (let p = 1; p <= pages; p++) expect(execFileSync('pdftotext', ['-f', String(p), '-l', String(p), path, '-'], { encoding: 'utf8' }), `page ${p}`).toContain('DRAFT');
+  }, 180_000);
+
   it('records a sign-off: reviewer, role and statement required, one entry in the reviewer log', async () => {
     await goTo('Sign-off');
     expect(await page.locator('[data-testid="signoff-status"]').textContent()).toContain('draft');
@@ -164,7 +293,11 @@ describe('browser mode, demo pair', () => {
     await shot('6a-sign-off-preview');
     expect(await page.locator('[data-testid="signer"] option:checked').textContent()).toContain('DEMONSTRATION');
     await page.click('[data-testid="export"]');
-    await page.waitForSelector('[data-testid="export-path"]', { timeout: 120_000 });
+    // A new file, not the draft exported before the sign-off.
+    await page.waitForFunction((before) => {
+      const now = document.querySelector('[data-testid="export-path"]')?.textContent;
+      return now && now !== before;
+    }, draftPath, { timeout: 120_000 });
     const path = (await page.locator('[data-testid="export-path"]').textContent())!;
     expect(path.startsWith(join(bench.dataDir, 'cases'))).toBe(true);
     // Exit 0 is required here; execFileSync throws on any other exit code.
@@ -177,6 +310,17 @@ describe('browser mode, demo pair', () => {
     const text = execFileSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
     expect(text).toContain('Reviewed both tests');
     expect(text).not.toContain('No sign-off statement is recorded');
+    // Signed off: no page says draft any more.
+    expect(text).not.toContain('DRAFT');
+    // Page 1 leads with the finding, then the primary table; the cautions keep their own box.
+    const page1 = execFileSync('pdftotext', ['-f', '1', '-l', '1', path, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    expect(page1.indexOf('Finding')).toBeGreaterThan(0);
+    expect(page1.indexOf('Finding')).toBeLessThan(page1.indexOf('Primary outcome'));
+    // Per-day pages: % predicted, METs, Weber class, ΔVO2/ΔWR, HR at VT1 with its labelled rules of thumb.
+    for (const words of ['% predicted (FRIEND)', 'METs at peak', 'Weber class', 'ΔVO₂/ΔWR', 'Rule of thumb: 55–60 % of age']) expect(text).toContain(words);
+    // Settings in words and units; no raw setting key on any page.
+    expect(text).toContain('VO₂ above 8,000 mL/min is treated as implausible.');
+    expect(text).not.toMatch(/\b(import|clean|thresholds|effort|bootstrap|peaks|compare)\.[a-z]+[A-Z.][A-Za-z.]*/);
 
     await page.click('text=Verify this report');
     await page.waitForSelector('[data-testid="verification"]', { timeout: 120_000 });
@@ -219,5 +363,15 @@ describe('browser mode, demo pair', () => {
     expect(bench.outside).toEqual([]);
     // The preview did open the browser's own PDF viewer (internal files, no network).
     expect(bench.builtIn.length).toBeGreaterThan(0);
+  });
+
+  it(`leaves docs/screenshots as it was unless ${SCREENSHOTS_ENV}=docs asks to refresh it`, () => {
+    if (refreshing) {
+      // Asked to refresh: this file's screenshots were written during this run.
+      for (const name of ['1-intake.png', '2-breakpoints-day1.png', '2b-vslope-1440x900.png', '6a-sign-off-preview.png']) expect(statSync(join(TRACKED, name)).mtimeMs).toBeGreaterThanOrEqual(startedMs - 1000);
+    } else {
+      expect(SCREENSHOTS).not.toBe(TRACKED);
+      expect(trackedHashes()).toEqual(trackedBefore);
+    }
   });
 });

@@ -7,7 +7,7 @@ import { useMemo } from 'react';
 import { bandStatement } from '../../../core/compare/bands';
 import type { Comparison } from '../../../core/compare/compare-tests';
 import { isPrimary } from '../../../core/compare/findings';
-import type { MatchedVariable } from '../../../core/compare/matched';
+import { matchedReadingText, type MatchedVariable } from '../../../core/compare/matched';
 import type { EngineView } from '../engine/protocol';
 import { Chart } from '../charts/Chart';
 import { overlayCharts } from '../charts/overlay-charts';
@@ -113,6 +113,11 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
       </section>
       <section className="panel">
         <h2>Matched workloads</h2>
+        {c.matched.available && (
+          <p className="hint" data-testid="matched-reading">
+            {prose(matchedReadingText(c.matched.windowW))}
+          </p>
+        )}
         {c.matched.available ? (
           <table className="values matched" data-testid="matched-table">
             <thead>
