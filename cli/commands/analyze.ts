@@ -9,7 +9,7 @@ import { resolve } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { summaryJson } from '../../core/analyze/summary-json';
 import { readBreathFile } from '../../core/import/read-table';
-import { backwardTime, implausibleData } from '../../core/import/sanity';
+import { refuseImpossible } from '../../core/import/sanity';
 import { boundedFixed } from '../../core/locale/format-number';
 import { minSec } from '../../core/locale/min-sec';
 import type { BreathTable, TestMetadata } from '../../core/model/breath-table';
@@ -127,9 +127,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const imported = await readBreathFile(bytes, { sourceName: file, settings });
   if (!imported.ok) return badInput(io, imported.error);
 
-  const impossible =
-    implausibleData(imported.value.table.breaths, imported.value.flags, file, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null) ??
-    backwardTime(imported.value.rejected, imported.value.table.breaths.length, file);
+  const impossible = refuseImpossible(imported.value, file);
   if (impossible) return badInput(io, impossible);
   const table: BreathTable = { ...imported.value.table, metadata: { ...imported.value.table.metadata, ...overrides } };
   const analysis = analyzeTest(table, settings, clinical);

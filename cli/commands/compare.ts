@@ -32,7 +32,7 @@ import { parseManifest, type ManifestEntry } from '../../core/compare/manifest';
 import { resultsHeader, resultsRow } from '../../core/compare/results-csv';
 import type { BandTable, MetricRow } from '../../core/compare/types';
 import { readBreathFile } from '../../core/import/read-table';
-import { backwardTime, implausibleData } from '../../core/import/sanity';
+import { refuseImpossible } from '../../core/import/sanity';
 import type { TestAnalysis } from '../../core/model/analysis';
 import { fail, formatLocated, locatedError, ok, type LocatedError, type Result } from '../../core/model/errors';
 import { DEFAULT_SETTINGS, type Settings } from '../../core/model/settings';
@@ -67,9 +67,7 @@ export async function loadAnalysis(path: string, displayName: string, settings: 
   }
   const imported = await readBreathFile(bytes, { sourceName: displayName, settings });
   if (!imported.ok) return imported;
-  const impossible =
-    implausibleData(imported.value.table.breaths, imported.value.flags, displayName, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null) ??
-    backwardTime(imported.value.rejected, imported.value.table.breaths.length, displayName);
+  const impossible = refuseImpossible(imported.value, displayName);
   if (impossible) return fail(impossible);
   try {
     return ok(analyzeTest(imported.value.table, settings, noClinicalInputs()));

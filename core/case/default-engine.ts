@@ -7,7 +7,7 @@ import { analyzeTest } from '../analyze/analyze-test';
 import { valuesAt, valuesAtContext } from '../analyze/values-at';
 import { compareTests, type Comparison } from '../compare/compare-tests';
 import { readBreathBytes } from '../import/read-table';
-import { backwardTime, implausibleTable } from '../import/sanity';
+import { implausibleTable, refuseImpossible } from '../import/sanity';
 import { fail, ok } from '../model/errors';
 import type { Engine } from './engine';
 
@@ -15,9 +15,10 @@ export const defaultEngine: Engine<Comparison> = {
   readTable: (name, bytes, settings, columnMap) => {
     const read = readBreathBytes(bytes, { sourceName: name, settings, mapping: columnMap });
     if (!read.ok) return read;
-    // Time running backwards on many rows is refused here, where the import's set-aside rows are known.
-    const backwards = backwardTime(read.value.rejected, read.value.table.breaths.length, name);
-    return backwards ? fail(backwards) : ok(read.value.table);
+    // Impossible data is refused here first, where the import's flags, columns and set-aside
+    // rows are known, so the message names the column too (core/import/sanity.ts).
+    const impossible = refuseImpossible(read.value, name);
+    return impossible ? fail(impossible) : ok(read.value.table);
   },
   analyzeTest: (table, settings, clinical) => {
     // Impossible data is refused rather than analysed with confidence (core/import/sanity.ts).

@@ -90,6 +90,15 @@ export function impossibleShareNote(breaths: readonly Breath[], settings: Settin
   return `Effort not judged: ${lines.size} of ${breaths.length} breaths (${Math.round((100 * lines.size) / breaths.length)} %, more than ${100 * EFFORT_IMPLAUSIBLE_SHARE} %) have values outside physiology${where}; a recording with so many impossible values cannot show a maximal effort. Check the export, the units and the column map.`;
 }
 
+/**
+ * Every refusal of this module for one import (its flags, columns and set-aside rows), so the
+ * message names the column as well as the line; null when the file may be analysed.
+ */
+export function refuseImpossible(read: { readonly table: BreathTable; readonly flags: readonly RowFlag[]; readonly columns: readonly { readonly variable: string | null; readonly index: number }[]; readonly rejected: readonly LocatedError[] }, file: string): LocatedError | null {
+  const timeColumn = read.columns.find((c) => c.variable === 'timeS')?.index ?? null;
+  return implausibleData(read.table.breaths, read.flags, file, timeColumn) ?? backwardTime(read.rejected, read.table.breaths.length, file);
+}
+
 /** The same check on a table already read (the analysis side, where the import's flags are gone). */
 export function implausibleTable(table: BreathTable, settings: Settings, file = table.sourceName): LocatedError | null {
   return implausibleData(table.breaths, plausibilityFlags(table.breaths, [], [], [], settings.import, file), file);

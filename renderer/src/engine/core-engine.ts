@@ -21,7 +21,8 @@ import { variableLabel } from '../../../core/import/columns';
 import { splitCells } from '../../../core/import/delimiters';
 import type { TestAnalysis } from '../../../core/model/analysis';
 import type { BreathTable } from '../../../core/model/breath-table';
-import { ok, type Result } from '../../../core/model/errors';
+import { fail, ok, type Result } from '../../../core/model/errors';
+import { refuseImpossible } from '../../../core/import/sanity';
 import type { Settings } from '../../../core/model/settings';
 import type { DayNumber } from '../../../core/case/case-file';
 import type { MappingQuestion } from './protocol';
@@ -113,7 +114,12 @@ export function workbenchEngine(mappings: ReadonlyMap<string, ColumnMapping>): W
     readTable: (name, bytes, settings, columnMap) => {
       // The case's own map decides: a preloaded import is used only when it was read with that map.
       const cached = imports.get(importKey(name, bytes, settings, columnMap));
-      if (cached) return cached.ok ? ok(cached.value.table) : cached;
+      if (cached) {
+        if (!cached.ok) return cached;
+        // The same refusal of impossible data as core's readTable (core/import/sanity.ts).
+        const impossible = refuseImpossible(cached.value, name);
+        return impossible ? fail(impossible) : ok(cached.value.table);
+      }
       return defaultEngine.readTable(name, bytes, settings, columnMap);
     },
     analyzeTest: (table, settings, clinical) => {
