@@ -177,6 +177,10 @@ describe('browser mode, demo pair', () => {
     expect(legend.x + legend.width).toBeLessThanOrEqual(outer.x + outer.width);
     expect(legend.y + legend.height).toBeLessThanOrEqual(outer.y + outer.height);
     await chart.screenshot({ path: join(SCREENSHOTS, '2b-vslope-1440x900.png') });
+    // The effort table prints each rule as applied and the combination with its standing (settings defaults).
+    const rerRow = page.locator('.breakpoints table.values tr', { hasText: 'Peak RER' }).last();
+    expect(await rerRow.textContent()).toContain('rule: peak RER ≥ 1.10');
+    expect(await page.locator('.reasons li').first().textContent()).toBe(reference.day1.analysis.effort.reasons[0]);
     await page.setViewportSize({ width: 1440, height: 1000 });
   });
 
