@@ -17,6 +17,7 @@
  */
 import { verdictWords } from './change-interval';
 import type { MetricId, MetricRow, Verdict } from './types';
+import { minSec } from '../locale/min-sec';
 
 export const PRIMARY_IDS: readonly MetricId[] = ['vt1_vo2', 'vt1_work', 'peak_vo2', 'peak_work'];
 
@@ -70,7 +71,7 @@ function vt1Finding(rows: readonly MetricRow[]): Finding {
   const hr = by('vt1_hr');
   if (hr && hr.delta !== null) parts.push(`HR ${signed(hr.delta, 0, ' bpm')}`);
   const time = by('vt1_time');
-  if (time && time.delta !== null) parts.push(`${Math.abs(time.delta).toFixed(0)} s ${time.delta < 0 ? 'sooner' : 'later'} into the ramp`);
+  if (time && time.delta !== null) parts.push(`${minSec(Math.abs(time.delta))} (m:ss) ${time.delta < 0 ? 'sooner' : 'later'} into the ramp`);
   const lead =
     verdict === 'fell'
       ? 'VT1 came earlier on day 2'

@@ -11,6 +11,7 @@ import { isPrimary } from './findings';
 import type { MetricRow } from './types';
 import { formatFixed, formatSigned } from '../locale/format-number';
 import { localeByTag, type ReportLocale } from '../locale/locales';
+import { minSec } from '../locale/min-sec';
 
 export interface PageOneTable {
   readonly header: readonly string[];
@@ -29,12 +30,8 @@ export interface PageOne {
   readonly secondary: PageOneTable;
 }
 
-/** A duration as a person reads it, m:ss (e.g. 452 → '7:32'); '–' when missing. */
-function clock(seconds: number | null): string {
-  if (seconds === null || !Number.isFinite(seconds)) return '–';
-  const whole = Math.round(Math.abs(seconds));
-  return `${seconds < 0 ? '−' : ''}${Math.floor(whole / 60)}:${String(whole % 60).padStart(2, '0')}`;
-}
+/** A duration as a person reads it, m:ss (e.g. 452 → '7:32'), by the one formatter; '–' when missing. */
+const clock = (seconds: number | null): string => minSec(seconds);
 
 function digits(unit: string): number {
   return unit === 'mL/min' || unit === 'W' || unit === 'bpm' || unit === 's' ? 0 : unit === '' ? 2 : 1;
