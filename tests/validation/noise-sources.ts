@@ -34,3 +34,27 @@ for (const [name, change] of variants) {
   const leads = Object.entries(lead).map(([m, e]) => `${m} bias ${median(e).toFixed(1)} (found ${e.length})`).join(', ');
   console.log(`${name.padEnd(42)} VT1 median ${median(abs).toFixed(1)} p95 ${quantile(abs, 0.95).toFixed(1)} bias ${median(cons).toFixed(1)}; ${leads}`);
 }
+
+// Where the leading methods' bias depends on where VT1 lies in the VT1 search window (VO2 at
+// VT1 as a fraction of the window's VO2 range, terciles of the development tests, noise as
+// stated, outliers as drawn): a pull towards the window's middle shows as late estimates when
+// VT1 lies low in the window and early ones when it lies high.
+const rows: { f: number; ve: number; hinge: number }[] = [];
+for (const c of kineticCases('main', 2 * count, FAMILY_B_DEVELOPMENT_FIRST_SEED)) {
+  const { table, truth } = generateKineticTest(c.params, c.seed);
+  const a = analyzeTest(table, DEFAULT_SETTINGS, noClinicalInputs());
+  const ve = a.vt1.methods.find((m) => m.method === 'vslope-ve');
+  const hinge = a.vt1.methods.find((m) => m.method === 'vslope-hinge');
+  if (!ve?.found || !ve.evidence || !hinge?.found) continue;
+  const [x0, x1] = ve.evidence.window;
+  rows.push({ f: (truth.vt1.vo2MlMin - x0) / (x1 - x0), ve: pct(ve.vo2MlMin, truth.vt1.vo2MlMin), hinge: pct(hinge.vo2MlMin, truth.vt1.vo2MlMin) });
+}
+rows.sort((p, q) => p.f - q.f);
+const third = Math.ceil(rows.length / 3);
+for (let i = 0; i < 3; i++) {
+  const part = rows.slice(i * third, (i + 1) * third);
+  if (!part.length) continue;
+  console.log(
+    `VT1 at ${part[0].f.toFixed(2)}–${part[part.length - 1].f.toFixed(2)} of the window (n ${part.length}): vslope-ve bias ${median(part.map((r) => r.ve)).toFixed(1)}, vslope-hinge bias ${median(part.map((r) => r.hinge)).toFixed(1)}`,
+  );
+}
