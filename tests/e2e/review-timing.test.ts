@@ -72,6 +72,16 @@ afterAll(async () => {
   await bench?.close();
 });
 
+describe('the page under test', () => {
+  it("is React's production build, as `npm start` serves it (vitest's NODE_ENV=test must not leak into the build)", () => {
+    const assets = join(ROOT, 'renderer', 'dist', 'assets');
+    const page = readdirSync(assets).filter((f) => /^index-.*\.js$/.test(f));
+    expect(page.length).toBe(1);
+    // A warning text that only React's development build carries.
+    expect(readFileSync(join(assets, page[0]), 'utf8')).not.toContain('Each child in a list should have a unique');
+  });
+});
+
 describe('a 1,500-breath pair', () => {
   const timings: { worker: number; reply: number; values: number; charts: number; record: number }[] = [];
 
@@ -94,7 +104,11 @@ describe('a 1,500-breath pair', () => {
       await page.click('[data-testid="override-apply"]');
       await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), k + 1);
       expect(numberIn((await page.locator('[data-testid="row-vt1"] > :nth-child(3)').textContent())!.split('(')[1])).toBe(t);
-      await page.waitForSelector('[data-testid="charts-ms"]');
+      // The change's own timing (data-revision: its case state), once its charts are drawn too.
+      await page.waitForFunction((seq) => {
+        const timing = document.querySelector('[data-testid="timing"]');
+        return timing?.getAttribute('data-revision') === String(seq + 1) && timing.querySelector('[data-testid="charts-ms"]') !== null;
+      }, k + 1);
       // The record (digest and case text) follows the values; its time is on the save note.
       await page.waitForFunction((seq) => document.querySelector('[data-testid="save-note"]')?.getAttribute('data-revision') === String(seq + 1), k + 1);
       timings.push({

@@ -25,9 +25,8 @@ import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
 import type { ImportResult } from '../../../core/import/types';
 import { workbenchEngine, layoutKeyOf, mappingQuestion, needsMapping, type WorkbenchEngine } from './core-engine';
-import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer, WireDay, WireReply, WireView } from './protocol';
-import type { ProcessedSeries } from '../../../core/model/analysis';
-import type { DayOutcome } from '../../../core/case/recompute';
+import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer, WireReply, WireView } from './protocol';
+import { diffValue } from './view-patch';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -62,18 +61,13 @@ function bytesOf(base64: string): Uint8Array {
   return bytes;
 }
 
-/** The series each day's last posted view carried: the page holds them, so they are not sent again. */
-const sentSeries: { day1: ProcessedSeries | null; day2: ProcessedSeries | null } = { day1: null, day2: null };
+/** The view last posted: the page holds its copy, so the next view is sent as a patch against it. */
+let posted: EngineView<Comparison> | null = null;
 
-function wireDay(key: 'day1' | 'day2', day: DayOutcome): WireDay {
-  const series = day.analysis.series;
-  if (series === sentSeries[key]) return { ...day, analysis: { ...day.analysis, series: null } };
-  sentSeries[key] = series;
-  return day;
-}
-
-function wireView(view: EngineView<Comparison>): WireView<Comparison> {
-  return { ...view, day1: wireDay('day1', view.day1), day2: wireDay('day2', view.day2) };
+function wireView(view: EngineView<Comparison>): WireView {
+  const patch = diffValue(posted, view);
+  posted = view;
+  return patch;
 }
 
 function post(reply: EngineReply<Comparison>): void {
