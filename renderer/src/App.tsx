@@ -175,6 +175,7 @@ export function App({ host }: { host: HostClient }) {
     const revision = view.revision;
     if (started !== null) performance.mark('twofold:values-committed');
     afterPaint(() => {
+      engine.shown(revision);
       if (started !== null) {
         const painted = performance.now();
         performance.measure('twofold:values-painted', { start: started, end: painted });
@@ -182,7 +183,7 @@ export function App({ host }: { host: HostClient }) {
       }
       setChartsView(view);
     });
-  }, [view]);
+  }, [view, engine]);
 
   useLayoutEffect(() => {
     if (!chartsView) return;

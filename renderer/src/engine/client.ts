@@ -2,7 +2,7 @@
  * The page's side of the analysis worker: one promise per request, settled by its view (or
  * error, or mapping question); progress, and the record that follows a view, on the side.
  */
-import type { CaseRecord, EngineReply, EngineRequest, EngineView, WireReply, WireView } from './protocol';
+import type { CaseRecord, EngineReply, EngineRequest, EngineView, PageShown, WireReply, WireView } from './protocol';
 import { applyPatch } from './view-patch';
 import type { LocatedError } from '../../../core/model/errors';
 
@@ -46,6 +46,11 @@ export function startEngine<C>(listeners: EngineListeners<C>) {
     listeners.onStopped();
   });
   return {
+    /** Tells the worker the values of `revision` are painted, so it records them now. */
+    shown(revision: number): void {
+      const message: PageShown = { type: 'shown', revision };
+      worker.postMessage({ id: 0, message });
+    },
     request(message: EngineRequest): Promise<Settled<C>> {
       const id = next++;
       return new Promise((resolve) => {

@@ -87,6 +87,12 @@ export type EngineRequest =
   /** A sign-off entry in the reviewer log (core/case/review.ts `recordSignOff`). */
   | { readonly type: 'sign-off'; readonly statement: string; readonly reviewer: Reviewer; readonly at: string };
 
+/** The page has painted the values of `revision`: the worker may now record them (engine.worker.ts). Not answered. */
+export interface PageShown {
+  readonly type: 'shown';
+  readonly revision: number;
+}
+
 /** A reply as the page sees it (views whole). */
 export type EngineReply<C = unknown> =
   | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
