@@ -38,10 +38,21 @@ export interface RenderTiming {
   readonly startedAt: number;
 }
 
+/** A performance mark of the newest change only (the entry of the change before is cleared). */
+function mark(name: string, startTime?: number): void {
+  performance.clearMarks(name);
+  performance.mark(name, startTime === undefined ? undefined : { startTime });
+}
+
+function measure(name: string, start: number, end: number): void {
+  performance.clearMeasures(name);
+  performance.measure(name, { start, end });
+}
+
 /** Runs `then` in the first task after the next frame is painted (a frame callback, then a message to this page). */
 function afterPaint(then: () => void): void {
   requestAnimationFrame(() => {
-    performance.mark('twofold:frame');
+    mark('twofold:frame');
     const channel = new MessageChannel();
     channel.port1.onmessage = () => {
       channel.port1.close();
@@ -173,12 +184,12 @@ export function App({ host }: { host: HostClient }) {
     changeStarted.current = null;
     const reply = replyAt.current;
     const revision = view.revision;
-    if (started !== null) performance.mark('twofold:values-committed');
+    if (started !== null) mark('twofold:values-committed');
     afterPaint(() => {
       engine.shown(revision);
       if (started !== null) {
         const painted = performance.now();
-        performance.measure('twofold:values-painted', { start: started, end: painted });
+        measure('twofold:values-painted', started, painted);
         setRenderMs({ revision, replyMs: (reply ?? painted) - started, valuesMs: painted - started, chartsMs: null, startedAt: started });
       }
       setChartsView(view);
@@ -193,7 +204,7 @@ export function App({ host }: { host: HostClient }) {
         setRenderMs((r) => {
           if (!r || r.revision !== revision || r.chartsMs !== null) return r;
           const chartsMs = performance.now() - r.startedAt;
-          performance.measure('twofold:charts-drawn', { start: r.startedAt, duration: chartsMs });
+          measure('twofold:charts-drawn', r.startedAt, r.startedAt + chartsMs);
           return { ...r, chartsMs };
         }),
       ),
@@ -297,10 +308,10 @@ export function App({ host }: { host: HostClient }) {
       const input = lastInput.current;
       changeStarted.current = input !== null && input <= now && now - input < 1000 ? input : now;
       lastInput.current = null;
-      performance.mark('twofold:change-input', { startTime: changeStarted.current });
+      mark('twofold:change-input', changeStarted.current);
       const reply = await engine.request(request);
       replyAt.current = performance.now();
-      performance.mark('twofold:reply');
+      mark('twofold:reply');
       settle(reply);
       return reply.type === 'view';
     },
