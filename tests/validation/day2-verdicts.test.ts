@@ -13,8 +13,10 @@
 import { describe, expect, it } from 'vitest';
 import { figures, runPairs, runPairsB } from './day2-pairs';
 
-const aNull = figures(runPairs('null', 200, 20001));
-const aDecline = figures(runPairs('decline', 200, 30001));
+const aNullRun = runPairs('null', 200, 20001);
+const aDeclineRun = runPairs('decline', 200, 30001);
+const aNull = figures(aNullRun.results);
+const aDecline = figures(aDeclineRun.results);
 const bNullRun = runPairsB('null', 200, 40001);
 const bDeclineRun = runPairsB('decline', 200, 45001);
 const bNull = figures(bNullRun.results);
