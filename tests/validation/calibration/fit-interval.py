@@ -1,3 +1,13 @@
+"""Calibration of the threshold interval's weights (core/thresholds/uncertainty.ts,
+INTERVAL_CALIBRATION) on development data only.
+
+Input: the JSON lines of `npx tsx tests/validation/interval-dump.ts 6 200` (development seeds
+of both families' detection grids and of the day-2 pairs). For each threshold: the maximum-
+likelihood fit of ln(found/true) ~ N(0, f^2 + (a*s_boot)^2 + (b*s_methods)^2), each data set
+weighted equally, then the coverage per set for a grid of common scales k and short-ramp
+factors ks, and the earlier weights' coverage on the same data. Needs numpy and scipy.
+Run: python3 tests/validation/calibration/fit-interval.py dev.jsonl
+"""
 import json,sys,numpy as np
 from scipy.optimize import minimize
 rows=[json.loads(l) for l in open(sys.argv[1])]
