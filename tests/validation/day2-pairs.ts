@@ -13,8 +13,10 @@
  *   −20 to −30 % here; the paper's workload at VT −21.3 %), plus the same biological variation.
  *
  * Subjects: peak VO2 1,600–3,000 mL/min, VT1 at 45–62 % of peak, VT2 at 76–86 % (textbook
- * ranges, memory), ramps 10/15/20/25 W/min. Seeds from 20001 are held out: nothing was tuned
- * on them (the method has no tuned parameter: the CVs come from the band preset).
+ * ranges, memory), ramps 10/15/20/25 W/min. Seeds from 20001 (family A) and 40001 (family B)
+ * are held out: nothing was tuned on them. What was tuned (the interval's weights, the peak VO2
+ * floor) used the development pairs only: family A from 9000 (null) and 9300 (decline), family
+ * B from 49000 and 49300 (day2-develop.ts, interval-dump.ts, peak-dump.ts).
  */
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { compareTests, type Comparison } from '../../core/compare/compare-tests';
