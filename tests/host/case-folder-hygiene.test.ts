@@ -1,7 +1,7 @@
 // Case-folder hygiene (issue items: temporary files of killed saves left forever, input names
 // with folders, JSON errors at 0:0, an unreadable raw copy called missing, 0644 files in 0755
 // folders). Permission bits as stat(2) reports them; JSON positions counted in the text.
-import { mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -22,6 +22,14 @@ describe('case folder hygiene', () => {
     expect(statSync(folder).mode & 0o777).toBe(0o700);
     expect(statSync(join(folder, 'twofold-case.json')).mode & 0o777).toBe(0o600);
     expect(statSync(join(folder, 'raw')).mode & 0o777).toBe(0o700);
+  });
+
+  it('a case folder an older version left 0755 is narrowed to 0700 at its next save', () => {
+    const folder = join(mkdtempSync(join(tmpdir(), 'twofold-hygiene-')), 'case');
+    mkdirSync(folder, { mode: 0o755 });
+    chmodSync(folder, 0o755);
+    expect(saveCase(folder, made(), raw).ok).toBe(true);
+    expect(statSync(folder).mode & 0o777).toBe(0o700);
   });
 
   it("a killed save's temporary file is removed on the next open; a live writer's is kept", () => {
