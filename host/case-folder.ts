@@ -127,8 +127,8 @@ export function loadCase(folderOrFile: string): Result<LoadedCase> {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
-  } catch {
-    return fail(locatedError('case-unreadable', path, null, null, 'The case file could not be read (missing, or no permission).'));
+  } catch (error) {
+    return fail(locatedError('case-unreadable', path, null, null, readProblem(error, 'case file')));
   }
   const parsed = caseFromText(text, path);
   if (!parsed.ok) return parsed;

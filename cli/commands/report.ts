@@ -36,6 +36,7 @@ import { formatLocated } from '../../core/model/errors';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { resealOpening, reviewerEntries } from '../../core/case/opening';
 import { outputFileProblem } from '../../host/output-check';
+import { readProblem } from '../../host/read-problem';
 import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
 import { MAX_PASSWORD_CHARS, readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
@@ -276,8 +277,12 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   let certificate = null;
   if (values.sign) {
     const p12Path = resolve(io.cwd, values.sign);
-    if (!existsSync(p12Path)) {
-      io.err(`${p12Path}:0:0: The certificate file does not exist.\n`);
+    // Read before the password is asked for: a folder or an unreadable file is exit 2, at once.
+    let p12: Uint8Array;
+    try {
+      p12 = new Uint8Array(readFileSync(p12Path));
+    } catch (error) {
+      io.err(`${p12Path}:0:0: ${readProblem(error, 'certificate file')}\n`);
       return EXIT_BAD_INPUT;
     }
     const envName = values['pass-env'];
@@ -298,7 +303,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       );
       return EXIT_BAD_INPUT;
     }
-    certificate = { p12: new Uint8Array(readFileSync(p12Path)), passphrase, name: p12Path, kind: 'lab' as const };
+    certificate = { p12, passphrase, name: p12Path, kind: 'lab' as const };
   }
 
   const result = await runReportJob({ caseFile, raw: { day1: day1.bytes, day2: day2.bytes }, caseFolder: folder, outPath: out, reviewer: values.reviewer ?? null, certificate, now });
