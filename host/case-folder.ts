@@ -135,6 +135,8 @@ export function loadCase(folderOrFile: string): Result<LoadedCase> {
   const folder = dirname(path);
   removeStaleTemporaries(folder);
   removeStaleTemporaries(join(folder, 'raw'));
+  // The workbench exports reports into the case folder's reports/ with the same atomic write.
+  removeStaleTemporaries(join(folder, 'reports'));
   const read = (input: RawInput): Result<Uint8Array> => {
     const rawPath = join(folder, input.storedAs);
     let bytes: Uint8Array;

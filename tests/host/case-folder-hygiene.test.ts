@@ -39,9 +39,14 @@ describe('case folder hygiene', () => {
     const live = `.twofold-case.json.${process.pid}.0123456789ab.tmp`;
     writeFileSync(join(folder, dead), 'half');
     writeFileSync(join(folder, live), 'in progress');
+    // A killed export of the workbench leaves its temporary report in reports/.
+    mkdirSync(join(folder, 'reports'));
+    const deadReport = '.twofold-report-20261202-101500.pdf.999999999.0123456789ab.tmp';
+    writeFileSync(join(folder, 'reports', deadReport), 'half a pdf');
     expect(loadCase(folder).ok).toBe(true);
     expect(readdirSync(folder)).not.toContain(dead);
     expect(readdirSync(folder)).toContain(live);
+    expect(readdirSync(join(folder, 'reports'))).toEqual([]);
   });
 
   it('a name with folders is stored bare; a hand-edited one with folders is refused on load', () => {
