@@ -15,7 +15,7 @@ import type { TestAnalysis, ThresholdId, ThresholdResult } from '../model/analys
 import { fail, locatedError, ok, type Result } from '../model/errors';
 import { SOFTWARE_VERSION } from '../version';
 import { columnMapOf, type AuditEntry, type CaseFile, type DayNumber, type RawInput, type RecordedResults, type ThresholdPoint } from './case-file';
-import { canonicalJson } from './canonical-json';
+import { canonicalJsonSha256 } from './canonical-json';
 import type { Engine } from './engine';
 import { flattenLeaves } from './flatten';
 import { followUpNumbers } from './follow-ups';
@@ -127,11 +127,12 @@ export function recordResults<C>({ day1, day2, comparison }: CaseValues<C>, log:
     derived: d.analysis.derived,
     effort: d.analysis.effort.verdict,
   });
-  const everything = canonicalJson({ day1: day1.analysis, day2: day2.analysis, comparison }, 'recomputed result', 'as-string');
-  if (!everything.ok) return everything;
+  // Hashed as it is written: for a test of a million breaths the text runs to hundreds of megabytes.
+  const digest = canonicalJsonSha256({ day1: day1.analysis, day2: day2.analysis, comparison }, 'recomputed result', 'as-string');
+  if (!digest.ok) return digest;
   return ok({
     softwareVersion: SOFTWARE_VERSION,
-    digest: sha256Hex(everything.value),
+    digest: digest.value,
     numbers: flattenLeaves({ day1: headline(day1), day2: headline(day2), comparison, ...followUpNumbers(log) }),
   });
 }
