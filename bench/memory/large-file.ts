@@ -1,6 +1,6 @@
 /**
  * A large breath-by-breath file for the memory measurements (bench/memory.ts and
- * tests/nightly/memory.test.ts): our plain CSV layout, 10 columns, written line by line to
+ * tests/cli/memory-guard.test.ts): our plain CSV layout, 10 columns, written line by line to
  * disk so the writer itself stays small. It is generated at run time and never committed.
  *
  * The model (stated so the analysis has something to find): one long cycle ramp, work rising
@@ -10,7 +10,7 @@
  * gases. At 1,000,000 rows the file is about 55 MB.
  */
 import { openSync, writeSync, closeSync } from 'node:fs';
-import { seededRandom } from '../core/math/random';
+import { seededRandom } from '../../core/math/random';
 
 export const LARGE_ROWS = 1_000_000;
 const HEADER = 'time_s,vo2_ml_min,vco2_ml_min,ve_l_min,hr_bpm,work_w,peto2_mmhg,petco2_mmhg,rr_per_min,vt_l';
