@@ -36,52 +36,42 @@ export function averageBreaths(breaths: readonly Breath[], spec: AveragingSpec):
   }
 }
 
-/**
- * Inclusive index ranges [lo[k], hi[k]] over the breaths, one per point of the series. Held in
- * typed arrays: a test can have a million breaths, and a pair of numbers per breath as small
- * arrays would cost tens of megabytes.
- */
-interface Ranges {
-  readonly lo: Int32Array;
-  readonly hi: Int32Array;
-}
-
 /** Centred time window: each breath's point averages breaths within ± windowS/2 s. */
 export function rollingTimeMean(breaths: readonly Breath[], windowS: number): ProcessedSeries {
   const half = windowS / 2;
-  const n = breaths.length;
-  const ranges: Ranges = { lo: new Int32Array(n), hi: new Int32Array(n) };
-  const timeS = new Array<number>(n);
+  const ranges = indexRanges(breaths.length);
   let lo = 0;
   let hi = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < breaths.length; i++) {
     const t = breaths[i].timeS;
     while (breaths[lo].timeS < t - half) lo++;
     if (hi < i) hi = i;
-    while (hi + 1 < n && breaths[hi + 1].timeS <= t + half) hi++;
+    while (hi + 1 < breaths.length && breaths[hi + 1].timeS <= t + half) hi++;
     ranges.lo[i] = lo;
     ranges.hi[i] = hi;
-    timeS[i] = t;
   }
-  return { ...meansOverRanges(breaths, ranges), timeS };
+  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
 }
 
 /** Fixed bins of binS seconds; the time of each point is its bin's midpoint. */
 export function timeBinMean(breaths: readonly Breath[], binS: number): ProcessedSeries {
-  const los: number[] = [];
-  const his: number[] = [];
+  const bins: [number, number][] = [];
   const mids: number[] = [];
   let start = 0;
   while (start < breaths.length) {
     const bin = Math.floor(breaths[start].timeS / binS);
     let end = start;
     while (end + 1 < breaths.length && Math.floor(breaths[end + 1].timeS / binS) === bin) end++;
-    los.push(start);
-    his.push(end);
+    bins.push([start, end]);
     mids.push((bin + 0.5) * binS);
     start = end + 1;
   }
-  const series = meansOverRanges(breaths, { lo: Int32Array.from(los), hi: Int32Array.from(his) });
+  const ranges = indexRanges(bins.length);
+  bins.forEach(([from, to], k) => {
+    ranges.lo[k] = from;
+    ranges.hi[k] = to;
+  });
+  const series = meansOverRanges(breaths, ranges);
   return { ...series, timeS: mids };
 }
 
@@ -89,57 +79,63 @@ export function timeBinMean(breaths: readonly Breath[], binS: number): Processed
 export function rollingBreathMean(breaths: readonly Breath[], count: number): ProcessedSeries {
   const before = Math.floor((Math.max(1, count) - 1) / 2);
   const after = Math.max(1, count) - 1 - before;
-  const n = breaths.length;
-  const ranges: Ranges = { lo: new Int32Array(n), hi: new Int32Array(n) };
-  const timeS = new Array<number>(n);
-  for (let i = 0; i < n; i++) {
-    ranges.lo[i] = Math.max(0, i - before);
-    ranges.hi[i] = Math.min(n - 1, i + after);
-    timeS[i] = breaths[i].timeS;
-  }
-  return { ...meansOverRanges(breaths, ranges), timeS };
-}
-
-/** Means of every variable over inclusive index ranges, by prefix sums. */
-function meansOverRanges(breaths: readonly Breath[], ranges: Ranges): ProcessedSeries {
-  const out: Record<string, (number | null)[]> = {};
-  const m = ranges.lo.length;
-  // One set of prefix arrays, reused for every variable.
-  const sum = new Float64Array(breaths.length + 1);
-  const count = new Int32Array(breaths.length + 1);
-  for (const key of REQUIRED) {
-    prefixSums(breaths, key, sum, count);
-    const values = new Array<number>(m);
-    for (let k = 0; k < m; k++) {
-      const lo = ranges.lo[k];
-      const hi = ranges.hi[k];
-      values[k] = (sum[hi + 1] - sum[lo]) / (hi - lo + 1);
-    }
-    out[key] = values;
-  }
-  for (const key of OPTIONAL) {
-    prefixSums(breaths, key, sum, count);
-    const values = new Array<number | null>(m);
-    for (let k = 0; k < m; k++) {
-      const lo = ranges.lo[k];
-      const hi = ranges.hi[k];
-      const c = count[hi + 1] - count[lo];
-      values[k] = c === 0 ? null : (sum[hi + 1] - sum[lo]) / c;
-    }
-    out[key] = values;
-  }
-  return out as unknown as ProcessedSeries;
-}
-
-/** Running sums of one variable (absent values count 0) and of how many breaths recorded it. */
-function prefixSums(breaths: readonly Breath[], key: Required | Optional, sum: Float64Array, count: Int32Array): void {
-  sum[0] = 0;
-  count[0] = 0;
+  const ranges = indexRanges(breaths.length);
   for (let i = 0; i < breaths.length; i++) {
-    const v = breaths[i][key];
-    sum[i + 1] = sum[i] + (v ?? 0);
-    count[i + 1] = count[i] + (v === null ? 0 : 1);
+    ranges.lo[i] = Math.max(0, i - before);
+    ranges.hi[i] = Math.min(breaths.length - 1, i + after);
   }
+  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
+}
+
+/** Inclusive index ranges [lo[k], hi[k]], one per output point. */
+interface IndexRanges {
+  readonly lo: Int32Array;
+  readonly hi: Int32Array;
+}
+
+function indexRanges(n: number): IndexRanges {
+  return { lo: new Int32Array(n), hi: new Int32Array(n) };
+}
+
+/**
+ * Means of every variable over inclusive index ranges, by prefix sums: one pass over the
+ * breaths fills every variable's running sums (and counts, for optional ones), then each
+ * range is a difference of two sums.
+ */
+function meansOverRanges(breaths: readonly Breath[], ranges: IndexRanges): ProcessedSeries {
+  const n = breaths.length;
+  const sums = [...REQUIRED, ...OPTIONAL].map(() => new Float64Array(n + 1));
+  const counts = OPTIONAL.map(() => new Int32Array(n + 1));
+  const r = REQUIRED.length;
+  for (let i = 0; i < n; i++) {
+    const b = breaths[i];
+    for (let k = 0; k < r; k++) sums[k][i + 1] = sums[k][i] + (b[REQUIRED[k]] ?? 0);
+    for (let k = 0; k < OPTIONAL.length; k++) {
+      const v = b[OPTIONAL[k]];
+      sums[r + k][i + 1] = sums[r + k][i] + (v ?? 0);
+      counts[k][i + 1] = counts[k][i] + (v === null ? 0 : 1);
+    }
+  }
+  const { lo, hi } = ranges;
+  const points = lo.length;
+  const out: Record<string, (number | null)[]> = {};
+  REQUIRED.forEach((key, k) => {
+    const sum = sums[k];
+    const means: number[] = [];
+    for (let p = 0; p < points; p++) means.push((sum[hi[p] + 1] - sum[lo[p]]) / (hi[p] - lo[p] + 1));
+    out[key] = means;
+  });
+  OPTIONAL.forEach((key, k) => {
+    const sum = sums[r + k];
+    const count = counts[k];
+    const means: (number | null)[] = [];
+    for (let p = 0; p < points; p++) {
+      const c = count[hi[p] + 1] - count[lo[p]];
+      means.push(c === 0 ? null : (sum[hi[p] + 1] - sum[lo[p]]) / c);
+    }
+    out[key] = means;
+  });
+  return out as unknown as ProcessedSeries;
 }
 
 /**
