@@ -2,9 +2,11 @@
  * A throw-away, self-signed certificate for `twofold demo`, as a PKCS#12 file. The RSA key
  * comes from Node's crypto (native, fast); node-forge builds the X.509 certificate and the
  * PKCS#12 container (3DES key bag, the widely readable choice). The subject says plainly that
- * it is a demonstration, and the report marks its signature as not a clinical one.
+ * it is a demonstration, and the report marks its signature as not a clinical one. Its
+ * password is random for each certificate and lives only in memory beside the PKCS#12 bytes:
+ * neither is ever written (the demo writes the public certificate alone).
  */
-import { generateKeyPair } from 'node:crypto';
+import { generateKeyPair, randomBytes } from 'node:crypto';
 import { promisify } from 'node:util';
 import forge from 'node-forge';
 
@@ -18,7 +20,7 @@ export interface DemoCertificate {
 export const DEMO_COMMON_NAME = 'Twofold DEMONSTRATION certificate - not for clinical use';
 
 /** Asynchronous, so the key can be generated (off the main thread) while the case is analysed. */
-export async function demoCertificate(now: Date, passphrase = 'demo'): Promise<DemoCertificate> {
+export async function demoCertificate(now: Date, passphrase = randomBytes(18).toString('base64')): Promise<DemoCertificate> {
   const { privateKey, publicKey } = await promisify(generateKeyPair)('rsa', { modulusLength: 2048 });
   const key = forge.pki.privateKeyFromPem(privateKey.export({ type: 'pkcs1', format: 'pem' }).toString());
   const cert = forge.pki.createCertificate();
