@@ -47,10 +47,9 @@ export function verifySignature(pdf: Uint8Array, file: string): Result<Signature
   if (!(b < c && text[b] === '<' && text[c - 1] === '>' && /^[0-9a-fA-F]*$/.test(text.slice(b + 1, c - 1)))) {
     return problem('signature-gap', 'The unsigned gap of the file is not just the signature value, so the signature cannot be trusted.');
   }
-  const hex = text.slice(b + 1, c - 1).replace(/(00)+$/, '');
   let signed: SignerParts;
   try {
-    signed = signerParts(forge.util.hexToBytes(hex.length % 2 ? `${hex}0` : hex));
+    signed = signerParts(cmsFromGap(text.slice(b + 1, c - 1)));
   } catch (error) {
     return problem('signature-unreadable', `The signature value is not a readable CMS SignedData: ${error instanceof Error ? error.message : String(error)}.`);
   }
@@ -81,6 +80,29 @@ export function verifySignature(pdf: Uint8Array, file: string): Result<Signature
     certificatePem: forge.pki.certificateToPem(cert),
     otherCertificatesPem: signed.others.map((c) => forge.pki.certificateToPem(c)),
   });
+}
+
+/**
+ * The CMS bytes of the /Contents gap: the DER's own outer length (X.690 §8.1.3) says where it
+ * ends; the zero padding after it is not part of it. (Stripping trailing "00" pairs instead
+ * cut the DER short whenever the signature value itself ended in a zero byte, about one
+ * signature in 256, and such a report then failed to verify.)
+ */
+export function cmsFromGap(hex: string): string {
+  const bytes = forge.util.hexToBytes(hex.length % 2 ? `${hex}0` : hex);
+  if (bytes.length < 2) throw new Error('too short for a DER value');
+  const first = bytes.charCodeAt(1);
+  let length = first;
+  let header = 2;
+  if (first & 0x80) {
+    const n = first & 0x7f;
+    if (n === 0 || n > 4 || bytes.length < 2 + n) throw new Error('unreadable DER length');
+    length = 0;
+    for (let k = 0; k < n; k++) length = length * 256 + bytes.charCodeAt(2 + k);
+    header = 2 + n;
+  }
+  if (header + length > bytes.length) throw new Error('the DER value is longer than the signature gap');
+  return bytes.slice(0, header + length);
 }
 
 interface SignerParts {
