@@ -3,9 +3,12 @@
  * blocked in the workbench):
  *
  * - the same file for both days (equal SHA-256 of the raw bytes, when the shell gives them);
- * - the same breath series for both days: at least half of the averaged VO2 and of the VCO2
- *   values of one day found, exactly, among the other day's (two real tests never share averaged values; a copy of
- *   one file under another name, or with edited metadata, does);
+ * - the same breath series for both days: at least half of one day's averaged points found,
+ *   exactly, among the other day's, a point being its VO2, VCO2 and VE together (two real tests
+ *   never share averaged points; a copy of one file under another name, or with edited
+ *   metadata, does). The three values are matched jointly: matched one variable at a time,
+ *   whole-number VO2 values of two different long tests (a million breaths) coincide by chance
+ *   in over half the points;
  * - day 2 starting before (or at the same time as) day 1, unless the user confirms the order
  *   (`allowOrder`: the CLI's --allow-order, the workbench's swap or confirm);
  * - a file's own `# day:` metadata contradicting the slot it was loaded into.
@@ -30,12 +33,18 @@ export interface RefusalInputs {
 
 const SAME_SHARE = 0.5;
 
-function sameSeries(a: readonly number[], b: readonly number[]): boolean {
-  if (a.length === 0 || b.length === 0) return false;
-  const seen = new Set(a);
+type Series = TestAnalysis['series'];
+
+function sameSeries(a: Series, b: Series): boolean {
+  const na = a.vo2MlMin.length;
+  const nb = b.vo2MlMin.length;
+  if (na === 0 || nb === 0) return false;
+  const key = (s: Series, i: number) => `${s.vo2MlMin[i]}|${s.vco2MlMin[i]}|${s.veLMin[i]}`;
+  const seen = new Set<string>();
+  for (let i = 0; i < na; i++) seen.add(key(a, i));
   let equal = 0;
-  for (const v of b) if (seen.has(v)) equal++;
-  return equal >= SAME_SHARE * Math.max(a.length, b.length);
+  for (let i = 0; i < nb; i++) if (seen.has(key(b, i))) equal++;
+  return equal >= SAME_SHARE * Math.max(na, nb);
 }
 
 function statedDay(test: TestAnalysis): string | null {
@@ -50,8 +59,8 @@ export function pairRefusals(day1: TestAnalysis, day2: TestAnalysis, inputs: Ref
   const n2 = day2.sourceName;
   if (inputs.day1Sha256 && inputs.day2Sha256 && inputs.day1Sha256 === inputs.day2Sha256) {
     out.push({ code: 'same-file', message: `The same file was given for both days: ${n1} and ${n2} have the same SHA-256 (${inputs.day1Sha256.slice(0, 16)}…). Load day 1 and day 2 from their own files.` });
-  } else if (sameSeries(day1.series.vo2MlMin, day2.series.vo2MlMin) && sameSeries(day1.series.vco2MlMin, day2.series.vco2MlMin)) {
-    out.push({ code: 'same-series', message: `${n1} and ${n2} hold the same breath series (their averaged VO2 and VCO2 values are identical): one test was loaded for both days.` });
+  } else if (sameSeries(day1.series, day2.series)) {
+    out.push({ code: 'same-series', message: `${n1} and ${n2} hold the same breath series (their averaged VO2, VCO2 and VE values are identical): one test was loaded for both days.` });
   }
   for (const [slot, test] of [[1, day1], [2, day2]] as const) {
     const stated = statedDay(test);
