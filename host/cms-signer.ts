@@ -3,8 +3,8 @@
  * adbe.pkcs7.detached readers expect, ISO 32000-1 §12.8.3.3) with one RSA signer, SHA-256.
  *
  * The arithmetic runs in Node's native crypto (OpenSSL): the digest of the signed bytes and
- * the RSA PKCS#1 v1.5 signature (RFC 8017 §8.2) over the signed attributes. node-forge only
- * opens the PKCS#12 (password, key bag, certificate bags) and writes the ASN.1. Before, all
+ * the RSA PKCS#1 v1.5 signature (RFC 8017 §8.2) over the signed attributes, and opening the
+ * PKCS#12 (pkcs12.ts). node-forge only writes and reads the ASN.1. Before, all
  * of it ran in node-forge's JavaScript big-number code, the largest single cost of a first
  * signed report in a new process.
  *
@@ -14,35 +14,13 @@
  * bytes are the same as before (tests/host/cms-signer.test.ts holds that).
  */
 import { Buffer } from 'node:buffer';
-import { createHash, createPrivateKey, sign, type KeyObject } from 'node:crypto';
+import { createHash, sign } from 'node:crypto';
 import { Signer } from '@signpdf/utils';
 import forge from 'node-forge';
+import { openP12, type P12Contents } from './pkcs12';
 
 const { asn1, pki } = forge;
 const { Class, Type } = asn1;
-
-export interface P12Contents {
-  readonly key: KeyObject;
-  /** The certificate whose public key matches the private key. */
-  readonly signer: forge.pki.Certificate;
-  /** Every certificate in the file, in its order (the chain travels with the signature). */
-  readonly certificates: readonly forge.pki.Certificate[];
-}
-
-/** Opens a PKCS#12 with its password; throws when the password or the contents are wrong. */
-export function openP12(p12: Uint8Array, passphrase: string): P12Contents {
-  const parsed = forge.pkcs12.pkcs12FromAsn1(asn1.fromDer(Buffer.from(p12).toString('binary')), false, passphrase);
-  const certificates = (parsed.getBags({ bagType: pki.oids.certBag })[pki.oids.certBag] ?? []).flatMap((b) => (b.cert ? [b.cert] : []));
-  const rsaKey = (parsed.getBags({ bagType: pki.oids.pkcs8ShroudedKeyBag })[pki.oids.pkcs8ShroudedKeyBag] ?? [])[0]?.key as forge.pki.rsa.PrivateKey | undefined;
-  if (!rsaKey) throw new Error('the file holds no RSA private key');
-  const signer = certificates.find((c) => {
-    const pub = c.publicKey as forge.pki.rsa.PublicKey;
-    return pub.n?.compareTo(rsaKey.n) === 0 && pub.e?.compareTo(rsaKey.e) === 0;
-  });
-  if (!signer) throw new Error('no certificate in the file matches the private key');
-  const der = Buffer.from(asn1.toDer(pki.privateKeyToAsn1(rsaKey)).getBytes(), 'binary');
-  return { key: createPrivateKey({ key: der, format: 'der', type: 'pkcs1' }), signer, certificates };
-}
 
 const node = (tag: number, constructed: boolean, value: string | forge.asn1.Asn1[]) => asn1.create(Class.UNIVERSAL, tag, constructed, value);
 const oid = (id: string) => node(Type.OID, false, asn1.oidToDer(id).getBytes());
@@ -53,6 +31,13 @@ const attribute = (type: string, value: forge.asn1.Asn1) => node(Type.SEQUENCE, 
 function signingTimeValue(at: Date): forge.asn1.Asn1 {
   const year = at.getUTCFullYear();
   return year >= 1950 && year < 2050 ? node(Type.UTCTIME, false, asn1.dateToUtcTime(at)) : node(Type.GENERALIZEDTIME, false, asn1.dateToGeneralizedTime(at));
+}
+
+/** RFC 5652 §10.2.4: the signer's certificate named by its issuer and serial number, as they stand in it (RFC 5280 §4.1). */
+function issuerAndSerialNumber(certificateDer: Buffer): forge.asn1.Asn1 {
+  const tbs = (asn1.fromDer(certificateDer.toString('binary')).value as forge.asn1.Asn1[])[0]!.value as forge.asn1.Asn1[];
+  const fields = tbs[0]!.tagClass === Class.CONTEXT_SPECIFIC ? tbs.slice(1) : tbs; // [0] version is optional
+  return node(Type.SEQUENCE, true, [fields[2]!, fields[0]!]);
 }
 
 /** The DER of a detached SignedData over `content` (the PDF without its /Contents gap). */
@@ -68,7 +53,7 @@ export function detachedSignedData(content: Uint8Array, p12: P12Contents, signin
   const signature = sign('sha256', signedDer, p12.key);
   const signerInfo = node(Type.SEQUENCE, true, [
     node(Type.INTEGER, false, asn1.integerToDer(1).getBytes()),
-    node(Type.SEQUENCE, true, [pki.distinguishedNameToAsn1(p12.signer.issuer), node(Type.INTEGER, false, forge.util.hexToBytes(p12.signer.serialNumber))]),
+    issuerAndSerialNumber(p12.signerDer),
     algorithm(pki.oids.sha256),
     asn1.create(Class.CONTEXT_SPECIFIC, 0, true, attributes),
     algorithm(pki.oids.rsaEncryption),
@@ -78,7 +63,7 @@ export function detachedSignedData(content: Uint8Array, p12: P12Contents, signin
     node(Type.INTEGER, false, asn1.integerToDer(1).getBytes()),
     node(Type.SET, true, [algorithm(pki.oids.sha256)]),
     node(Type.SEQUENCE, true, [oid(pki.oids.data)]),
-    asn1.create(Class.CONTEXT_SPECIFIC, 0, true, p12.certificates.map((c) => pki.certificateToAsn1(c))),
+    asn1.create(Class.CONTEXT_SPECIFIC, 0, true, p12.certificatesDer.map((der) => asn1.fromDer(der.toString('binary')))),
     node(Type.SET, true, [signerInfo]),
   ]);
   const contentInfo = node(Type.SEQUENCE, true, [oid(pki.oids.signedData), asn1.create(Class.CONTEXT_SPECIFIC, 0, true, [signedData])]);
