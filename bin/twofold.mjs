@@ -1,8 +1,9 @@
 #!/usr/bin/env node
-// Entry point of the `twofold` command: runs the compiled command line (dist/cli/), built
-// from the TypeScript sources on the first run and again whenever a source changed
+// Entry point of the `twofold` command: runs the compiled command line (dist/cli/, CommonJS),
+// built from the TypeScript sources on the first run and again whenever a source changed
 // (scripts/cli-build.mjs).
+import { createRequire } from 'node:module';
 import { currentCliBuild } from '../scripts/cli-build.mjs';
 
-const { main } = await import(await currentCliBuild());
+const { main } = createRequire(import.meta.url)(await currentCliBuild());
 process.exitCode = await main(process.argv.slice(2));

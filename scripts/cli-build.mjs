@@ -1,7 +1,14 @@
-// The `twofold` command's compiled JavaScript: cli/main.ts and everything it imports from
-// cli/, core/ and host/, bundled by esbuild into dist/cli/ (one chunk per command, so a
-// command loads only its own code; npm packages other than vega and vega-lite stay outside
-// the bundle and load only when a command imports them).
+// The `twofold` command's compiled JavaScript: cli/main.ts and each command of cli/commands/
+// with everything it imports from cli/, core/ and host/, bundled by esbuild into dist/cli/ as
+// CommonJS, one file per command (main.cjs requires only the command it runs). npm packages
+// other than vega and vega-lite stay outside the bundle and load only when a command requires
+// them.
+//
+// CommonJS, not ES modules, because it starts faster on Node 20: the ES module loader linked
+// the chunks and ran every CommonJS package (papaparse, pdfkit, node-forge...) through its
+// export scanner first; together about 30 ms of CPU on every `twofold analyze` (interleaved
+// runs, docs/performance.md). Code shared by two commands is in both files; a process runs
+// one command.
 //
 // `.npmrc` sets ignore-scripts, so no install step can build it: bin/twofold.mjs calls
 // `currentCliBuild()` at every start, which stats the files the last build was made from
@@ -12,7 +19,7 @@
 // `node scripts/cli-build.mjs` (npm run build:cli) builds it by hand.
 import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
 
 export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const OUT = join(ROOT, 'dist', 'cli');
@@ -76,24 +83,56 @@ function externalPackages() {
   return names.flatMap((n) => [n, `${n}/*`]);
 }
 
+/**
+ * main.ts loads a command with `import('./commands/NAME')`: in the build that is the command's
+ * own file, required when the command runs.
+ */
+const commandsApart = {
+  name: 'commands-apart',
+  setup(build) {
+    build.onResolve({ filter: /^\.\/commands\/[\w-]+$/ }, (args) =>
+      args.importer === join(ROOT, 'cli', 'main.ts') ? { path: `${args.path}.cjs`, external: true } : undefined,
+    );
+  },
+};
+
+/**
+ * vega-canvas's Node build looks for the optional `canvas` package with a top-level await,
+ * which CommonJS cannot hold. Twofold renders SVG without a canvas (the package is not a
+ * dependency, so that lookup always found nothing); its browser build is the same code
+ * without the lookup, and gives the same charts.
+ */
+const vegaWithoutCanvas = {
+  name: 'vega-without-canvas',
+  setup(build) {
+    build.onResolve({ filter: /^vega-canvas$/ }, () => ({ path: join(ROOT, 'node_modules', 'vega-canvas', 'build', 'vega-canvas.browser.js') }));
+  },
+};
+
 /** Bundle the command line now; returns the entry file's path. */
 export async function buildCli() {
   const { build } = await import('esbuild');
   const folder = `b${Date.now().toString(36)}-${process.pid}`;
   const outdir = join(OUT, folder);
+  const commands = readdirSync(join(ROOT, 'cli', 'commands')).filter((f) => f.endsWith('.ts'));
+  const entryPoints = { main: 'cli/main.ts', ...Object.fromEntries(commands.map((f) => [`commands/${f.slice(0, -3)}`, `cli/commands/${f}`])) };
   const result = await build({
     absWorkingDir: ROOT,
-    entryPoints: { main: 'cli/main.ts' },
+    entryPoints,
     outdir,
     bundle: true,
-    splitting: true,
-    format: 'esm',
+    format: 'cjs',
     platform: 'node',
     target: 'node20',
     external: externalPackages(),
+    plugins: [commandsApart, vegaWithoutCanvas],
+    // import() becomes require(), so a package loads as CommonJS, without the ES module loader.
+    supported: { 'dynamic-import': false },
+    // Modules that find files beside themselves (fonts, the demo folder, the batch worker) read import.meta.url.
+    define: { 'import.meta.url': '__moduleUrl' },
+    banner: { js: 'const __moduleUrl = require("node:url").pathToFileURL(__filename).href;' },
     sourcemap: true,
-    outExtension: { '.js': '.mjs' },
-    chunkNames: 'chunks/[name]-[hash]',
+    outExtension: { '.js': '.cjs' },
     metafile: true,
     logLevel: 'warning',
   });
@@ -110,7 +149,7 @@ export async function buildCli() {
     if (s) inputs[path] = s;
   }
   mkdirSync(OUT, { recursive: true });
-  const record = { entry: join(folder, 'main.mjs'), builtAt: new Date().toISOString(), inputs };
+  const record = { entry: join(folder, 'main.cjs'), builtAt: new Date().toISOString(), inputs };
   const tmp = `${RECORD}.${process.pid}.tmp`;
   writeFileSync(tmp, `${JSON.stringify(record)}\n`);
   renameSync(tmp, RECORD);
@@ -118,11 +157,10 @@ export async function buildCli() {
   return join(OUT, record.entry);
 }
 
-/** The current build's entry file URL, building first when it is missing or stale. */
+/** The current build's entry file, building first when it is missing or stale. */
 export async function currentCliBuild() {
   const record = readRecord();
-  const entry = isCurrent(record) ? join(OUT, record.entry) : await buildCli();
-  return pathToFileURL(entry).href;
+  return isCurrent(record) ? join(OUT, record.entry) : await buildCli();
 }
 
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
