@@ -2,8 +2,7 @@
 // Entry point of the `twofold` command: runs the compiled command line (dist/cli/, CommonJS),
 // built from the TypeScript sources on the first run and again whenever a source changed
 // (scripts/cli-build.mjs).
-import { createRequire } from 'node:module';
-import { currentCliBuild } from '../scripts/cli-build.mjs';
+import { currentCliBuild, requireBuilt } from '../scripts/cli-build.mjs';
 
-const { main } = createRequire(import.meta.url)(await currentCliBuild());
+const { main } = requireBuilt(await currentCliBuild());
 process.exitCode = await main(process.argv.slice(2));
