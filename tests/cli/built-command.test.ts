@@ -3,8 +3,9 @@
 // time, and the bin rebuilds when one differs. References: the file system's own stat of
 // each source, and the TypeScript sources run in-process through cli/main.ts.
 import { execFileSync } from 'node:child_process';
-import { readFileSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../cli/main';
 import { io as captureIo } from './capture-io';
@@ -33,4 +34,28 @@ describe('the built command line', () => {
     const strip = (text: string) => JSON.parse(text.replace(/"generatedAt":\s*"[^"]*"/g, '"generatedAt":""'));
     expect(strip(built)).toEqual(strip(io.out()));
   });
+
+  it('a later start compiles from the V8 code cache the first one wrote, with the same output', () => {
+    const file = join(ROOT, 'sample-tests', 'demo', 'qh0417-day2.csv');
+    const run = () => execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), 'analyze', file, '--json'], { encoding: 'utf8', cwd: ROOT }).replace(/"generatedAt":\s*"[^"]*"/g, '');
+    const first = run();
+    const record = JSON.parse(readFileSync(join(ROOT, 'dist', 'cli', 'build.json'), 'utf8')) as { entry: string };
+    const cache = join(ROOT, 'dist', 'cli', dirname(record.entry), 'code-cache');
+    expect(existsSync(cache) && readdirSync(cache).filter((f) => f.endsWith('.v8')).length).toBeGreaterThan(1);
+    expect(run()).toBe(first);
+  });
+
+  it('a batch on two worker threads of the built command gives the rows one worker gives', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'twofold-built-batch-'));
+    for (const day of ['day1', 'day2']) copyFileSync(join(ROOT, 'sample-tests', 'demo', `qh0417-${day}.csv`), join(dir, `${day}.csv`));
+    writeFileSync(join(dir, 'manifest.csv'), ['pair_id,day1_file,day2_file', ...Array.from({ length: 8 }, (_, i) => `P${i},day1.csv,day2.csv`)].join('\n') + '\n');
+    const batch = (workers: number) => {
+      execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), 'compare', '--manifest', 'manifest.csv', '--out', `r${workers}.csv`, '--workers', String(workers)], { cwd: dir, stdio: 'pipe' });
+      return readFileSync(join(dir, `r${workers}.csv`), 'utf8');
+    };
+    const two = batch(2);
+    expect(two.trim().split('\n')).toHaveLength(9);
+    expect(two).toBe(batch(1));
+  });
 });
+
