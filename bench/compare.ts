@@ -18,7 +18,7 @@ import { defaultCycleParams, generateTest, type TestParams } from '../sample-tes
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 
-const BIN = join(dirname(fileURLToPath(import.meta.url)), '..', 'bin', 'twofold.mjs');
+const BIN = join(dirname(fileURLToPath(import.meta.url)), '..', 'bin', 'twofold.cjs');
 
 const DISTINCT = 50;
 const PAIRS = 1000;

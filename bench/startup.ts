@@ -17,7 +17,7 @@ import { generateTest } from '../sample-tests/generator';
 import { longTestParams } from './analysis';
 
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
-const BIN = join(ROOT, 'bin', 'twofold.mjs');
+const BIN = join(ROOT, 'bin', 'twofold.cjs');
 
 function wallMs(args: readonly string[]): number {
   const t = performance.now();

@@ -10,51 +10,23 @@
 // runs, docs/performance.md). Code shared by two commands is in both files; a process runs
 // one command.
 //
-// `.npmrc` sets ignore-scripts, so no install step can build it: bin/twofold.mjs calls
-// `currentCliBuild()` at every start, which stats the files the last build was made from
-// (recorded in dist/cli/build.json) and rebuilds only when one changed or the build is
-// missing. Each build goes to a fresh folder and build.json is replaced by rename, so
+// `.npmrc` sets ignore-scripts, so no install step can build it: at every start the bin
+// (bin/twofold.cjs, through scripts/cli-start.cjs) stats the files the last build was made
+// from (recorded in dist/cli/build.json) and calls buildCli() only when one changed or the
+// build is missing. Each build goes to a fresh folder and build.json is replaced by rename, so
 // processes that start at the same moment never see half a build.
 //
 // `node scripts/cli-build.mjs` (npm run build:cli) builds it by hand.
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { dirname, join, relative, resolve } from 'node:path';
-import { createRequire } from 'node:module';
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import start from './cli-start.cjs';
 
-export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
-const OUT = join(ROOT, 'dist', 'cli');
-const RECORD = join(OUT, 'build.json');
+const { ROOT, OUT, RECORD } = start;
 /** Older build folders are removed once they are this old (a running process may still load chunks from one). */
 const KEEP_OLD_BUILDS_MS = 60 * 60 * 1000;
 
-function stamp(path) {
-  try {
-    const s = statSync(path);
-    return [s.mtimeMs, s.size];
-  } catch {
-    return null;
-  }
-}
-
-function readRecord() {
-  try {
-    return JSON.parse(readFileSync(RECORD, 'utf8'));
-  } catch {
-    return null;
-  }
-}
-
-/** True when the recorded build exists and every file it was made from is unchanged (time and size). */
-function isCurrent(record) {
-  if (!record || typeof record.entry !== 'string' || !record.inputs) return false;
-  if (!existsSync(join(OUT, record.entry))) return false;
-  for (const [path, before] of Object.entries(record.inputs)) {
-    const now = stamp(join(ROOT, path));
-    if (!now || now[0] !== before[0] || now[1] !== before[1]) return false;
-  }
-  return true;
-}
+const { stamp, readRecord, isCurrent } = start;
 
 function removeOldBuilds(keep) {
   let entries;
@@ -167,55 +139,4 @@ export async function currentCliBuild() {
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
   const entry = await buildCli();
   console.log(`built ${relative(ROOT, entry)}`);
-}
-
-/**
- * V8 code cache (Node 20 has no module.enableCompileCache): every CommonJS file a command
- * loads, the build's own and the packages', is compiled with the cached data V8 wrote after
- * an earlier run, so its functions are not parsed and compiled again. The cache is named by
- * the file's content hash and lives in the build's folder (a rebuild starts without one); data
- * V8 rejects (another Node version or flags) is written anew, and a cache that cannot be
- * written or read only costs compile time.
- */
-export function requireBuilt(entry) {
-  const require = createRequire(import.meta.url);
-  const Module = require('node:module');
-  const vm = require('node:vm');
-  const { createHash } = require('node:crypto');
-  const cacheDir = join(dirname(entry), 'code-cache');
-  const fresh = [];
-  const compile = Module.prototype._compile;
-  Module.prototype._compile = function (content, filename) {
-    if (!filename.startsWith(ROOT)) return compile.call(this, content, filename);
-    const hash = createHash('sha256').update(content).digest('hex').slice(0, 32);
-    const cacheFile = join(cacheDir, `${hash}.v8`);
-    let cachedData;
-    try {
-      cachedData = readFileSync(cacheFile);
-    } catch {
-      cachedData = undefined;
-    }
-    const script = new vm.Script(Module.wrap(content), { filename, cachedData, importModuleDynamically: vm.constants.USE_MAIN_CONTEXT_DEFAULT_LOADER });
-    if (!cachedData || script.cachedDataRejected) fresh.push([cacheFile, script]);
-    const mod = this;
-    const requireHere = (id) => mod.require(id);
-    requireHere.resolve = (request, options) => Module._resolveFilename(request, mod, false, options);
-    requireHere.main = process.mainModule;
-    requireHere.cache = Module._cache;
-    return script.runInThisContext({ displayErrors: true }).call(mod.exports, mod.exports, requireHere, mod, filename, dirname(filename));
-  };
-  process.once('exit', () => {
-    if (fresh.length === 0) return;
-    try {
-      mkdirSync(cacheDir, { recursive: true });
-      for (const [file, script] of fresh) {
-        const tmp = `${file}.${process.pid}.tmp`;
-        writeFileSync(tmp, script.createCachedData());
-        renameSync(tmp, file);
-      }
-    } catch {
-      // Not written: the next start compiles again.
-    }
-  });
-  return require(entry);
 }

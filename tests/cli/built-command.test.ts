@@ -14,7 +14,7 @@ const ROOT = join(__dirname, '..', '..');
 
 describe('the built command line', () => {
   it('runs from dist/cli/, built from the current sources (every recorded stamp matches the file now)', () => {
-    const out = execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), '--version'], { encoding: 'utf8', cwd: ROOT });
+    const out = execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.cjs'), '--version'], { encoding: 'utf8', cwd: ROOT });
     expect(out.trim()).toBe(JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')).version);
     const record = JSON.parse(readFileSync(join(ROOT, 'dist', 'cli', 'build.json'), 'utf8')) as { entry: string; inputs: Record<string, [number, number]> };
     expect(Object.keys(record.inputs)).toEqual(expect.arrayContaining(['cli/main.ts', 'cli/commands/analyze.ts', 'core/thresholds/uncertainty.ts', 'host/demo-job.ts']));
@@ -22,13 +22,17 @@ describe('the built command line', () => {
       const s = statSync(join(ROOT, path));
       expect([path, s.mtimeMs, s.size]).toEqual([path, mtimeMs, size]);
     }
-    // No TypeScript is compiled at start-up: the bin does not load tsx.
-    expect(readFileSync(join(ROOT, 'bin', 'twofold.mjs'), 'utf8')).not.toContain('tsx');
+    // No TypeScript is compiled at start-up: neither the bin nor its start-up code loads tsx.
+    for (const file of ['bin/twofold.cjs', 'scripts/cli-start.cjs']) expect(readFileSync(join(ROOT, file), 'utf8')).not.toContain('tsx');
+    // The earlier path runs the same command.
+    expect(execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), '--version'], { encoding: 'utf8', cwd: ROOT })).toBe(out);
+    // The package's command is that bin.
+    expect(JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')).bin.twofold).toBe('bin/twofold.cjs');
   });
 
   it('gives the same analysis as the TypeScript sources run in-process', async () => {
     const file = join(ROOT, 'sample-tests', 'demo', 'qh0417-day1.csv');
-    const built = execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), 'analyze', file, '--json'], { encoding: 'utf8', cwd: ROOT });
+    const built = execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.cjs'), 'analyze', file, '--json'], { encoding: 'utf8', cwd: ROOT });
     const io = captureIo();
     expect(await main(['analyze', file, '--json'], io.io)).toBe(0);
     const strip = (text: string) => JSON.parse(text.replace(/"generatedAt":\s*"[^"]*"/g, '"generatedAt":""'));
@@ -37,7 +41,7 @@ describe('the built command line', () => {
 
   it('a later start compiles from the V8 code cache the first one wrote, with the same output', () => {
     const file = join(ROOT, 'sample-tests', 'demo', 'qh0417-day2.csv');
-    const run = () => execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), 'analyze', file, '--json'], { encoding: 'utf8', cwd: ROOT }).replace(/"generatedAt":\s*"[^"]*"/g, '');
+    const run = () => execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.cjs'), 'analyze', file, '--json'], { encoding: 'utf8', cwd: ROOT }).replace(/"generatedAt":\s*"[^"]*"/g, '');
     const first = run();
     const record = JSON.parse(readFileSync(join(ROOT, 'dist', 'cli', 'build.json'), 'utf8')) as { entry: string };
     const cache = join(ROOT, 'dist', 'cli', dirname(record.entry), 'code-cache');
@@ -50,7 +54,7 @@ describe('the built command line', () => {
     for (const day of ['day1', 'day2']) copyFileSync(join(ROOT, 'sample-tests', 'demo', `qh0417-${day}.csv`), join(dir, `${day}.csv`));
     writeFileSync(join(dir, 'manifest.csv'), ['pair_id,day1_file,day2_file', ...Array.from({ length: 8 }, (_, i) => `P${i},day1.csv,day2.csv`)].join('\n') + '\n');
     const batch = (workers: number) => {
-      execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.mjs'), 'compare', '--manifest', 'manifest.csv', '--out', `r${workers}.csv`, '--workers', String(workers)], { cwd: dir, stdio: 'pipe' });
+      execFileSync(process.execPath, [join(ROOT, 'bin', 'twofold.cjs'), 'compare', '--manifest', 'manifest.csv', '--out', `r${workers}.csv`, '--workers', String(workers)], { cwd: dir, stdio: 'pipe' });
       return readFileSync(join(dir, `r${workers}.csv`), 'utf8');
     };
     const two = batch(2);
