@@ -8,7 +8,7 @@
  * Run: npx tsx bench/run.ts compare
  */
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../core/analyze/analyze-test';
 import { compareTests } from '../core/compare/compare-tests';
@@ -78,7 +78,7 @@ export async function run(): Promise<string[]> {
     for (const workers of workerCounts) {
       const { seconds, code } = await timeBatch(dir, workers);
       const role = workers === 1 ? 'baseline' : 'target < 30 s';
-      lines.push(`batch of ${PAIRS} pairs, ${label} (about ${breaths} breaths per file), \`twofold compare --manifest\`, ${workers} worker${workers > 1 ? ' threads' : ''} (${role}): ${seconds.toFixed(1)} s (exit ${code}), ${((1000 * seconds) / PAIRS).toFixed(1)} ms per pair`);
+      lines.push(`batch of ${PAIRS} pairs, ${label} (about ${breaths} breaths per file), \`twofold compare --manifest\`, ${workers} worker${workers > 1 ? ' threads' : ''} (${role}): ${seconds.toFixed(1)} s (exit ${code}), ${((1000 * seconds) / PAIRS).toFixed(1)} ms per pair (load average after: ${loadavg()[0]!.toFixed(1)})`);
     }
     rmSync(dir, { recursive: true, force: true });
   }
