@@ -5,7 +5,7 @@
  * The arithmetic runs in Node's native crypto (OpenSSL): the digest of the signed bytes and
  * the RSA PKCS#1 v1.5 signature (RFC 8017 §8.2) over the signed attributes, and opening the
  * PKCS#12 (pkcs12.ts). node-forge only writes and reads the ASN.1. Before, all
- * of it ran in node-forge's JavaScript big-number code, the largest single cost of a first
+ * of it ran in node-forge's JavaScript big-number code, one of the largest costs of a first
  * signed report in a new process.
  *
  * The layout is node-forge's pkcs7 signer's as @signpdf/signer-p12 drove it (version 1;
