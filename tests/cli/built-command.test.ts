@@ -2,7 +2,7 @@
 // every source file the bundle was built from is recorded with its size and modification
 // time, and the bin rebuilds when one differs. References: the file system's own stat of
 // each source, and the TypeScript sources run in-process through cli/main.ts.
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
@@ -60,6 +60,23 @@ describe('the built command line', () => {
     const two = batch(2);
     expect(two.trim().split('\n')).toHaveLength(9);
     expect(two).toBe(batch(1));
+  });
+
+  it('twofold analyze on a CSV loads only what it uses: no workbook, PDF, chart, certificate or settings-validation library, no node:crypto', () => {
+    const file = join(ROOT, 'sample-tests', 'demo', 'qh0417-day1.csv');
+    // The command as the bin runs it; at exit, every CommonJS file it loaded and Node's own modules.
+    const probe = `process.on('exit', () => process.stderr.write(JSON.stringify({ files: Object.keys(require.cache), builtins: process.moduleLoadList })));
+      require('./scripts/cli-start.cjs').run(['analyze', ${JSON.stringify(file)}, '--json']);`;
+    const r = spawnSync(process.execPath, ['-e', probe], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.status).toBe(0);
+    const { files, builtins } = JSON.parse(r.stderr) as { files: string[]; builtins: string[] };
+    expect(files.some((f) => f.includes('papaparse'))).toBe(true);
+    for (const heavy of ['exceljs', 'pdfkit', 'fontkit', 'vega', 'node-forge', 'zod', 'esbuild', 'tsx']) expect([heavy, files.filter((f) => f.includes(`node_modules/${heavy}`))]).toEqual([heavy, []]);
+    expect(builtins.filter((m) => /^NativeModule (crypto|internal\/crypto)/.test(m))).toEqual([]);
+    // Of the build, only the entry and the command's own file, with no bundled package in it.
+    const built = files.filter((f) => f.includes(join('dist', 'cli')));
+    expect(built.map((f) => f.split(/[\\/]/).at(-1)).sort()).toEqual(['analyze.cjs', 'main.cjs']);
+    expect(readFileSync(built.find((f) => f.endsWith('analyze.cjs'))!, 'utf8')).not.toMatch(/\/\/ node_modules\//);
   });
 });
 
