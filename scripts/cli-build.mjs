@@ -44,15 +44,11 @@ function removeOldBuilds(keep) {
 }
 
 /**
- * npm packages bundled into the build: each is many small modules (vega and vega-lite some
- * hundred ES modules, zod 95 files, node-forge 42, @signpdf 25) whose loading, one resolve,
- * read and compile per file, cost more than one bundled file: for vega about twice as long,
- * and bundling the others took about 0.2 s of CPU off a `twofold demo` (interleaved runs,
- * docs/performance.md). The @signpdf packages go in together, as signpdf checks its signer
- * with `instanceof` against its own utils. Every other package stays outside (its own files,
- * loaded when required); so do packages that read files beside themselves (pdfkit's font data).
+ * npm packages bundled into the build: vega and vega-lite are some hundred small ES modules
+ * whose loading (resolve, read, parse each) took about twice as long as one bundled file, on
+ * every report. Every other package stays outside (its own files, loaded when imported).
  */
-const BUNDLED_PACKAGES = new Set(['vega', 'vega-lite', 'zod', 'node-forge', '@signpdf/signpdf', '@signpdf/placeholder-plain', '@signpdf/utils', '@noble/hashes']);
+const BUNDLED_PACKAGES = new Set(['vega', 'vega-lite']);
 
 function externalPackages() {
   const manifest = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
