@@ -11,10 +11,10 @@
 // VT1 median |error| ≤ 3 %, p95 ≤ 10 %, median signed error within ±1.5 %; VT2 ≤ 3 %, ≤ 8 %,
 // ±1.5 %; work rate at VT1 and VT2 (cycle tests) median ≤ 4 %, p95 ≤ 12 %; the threshold
 // interval covers the truth in 93–97 % of tests in every family and condition.
-// Only the requirements met on the held-out seeds are asserted here as requirements. The unmet
-// ones are NOT asserted (a failing test would break CI); their measured figures are written in
-// docs/validation.md ("Against the requirement") and in the lead's report. A few plain bounds
-// below are marked "not the requirement": they hold the result against regression only.
+// Every requirement met on the held-out seeds is a plain assertion below. An unmet one is not
+// asserted as a requirement (it would fail); it is a regression guard whose name carries the
+// measured held-out figure and says "not the requirement", with a round bound above that figure.
+// The figures are written in docs/validation.md ("Against the requirement").
 import { describe, expect, it } from 'vitest';
 import { heldOutSets } from './heldout';
 import { measureAll, summarise, type Summary } from './measure';
@@ -80,17 +80,22 @@ describe('bounds that are not the requirement (regression guards, round figures)
       expect(r.vt2CoveragePct).toBeGreaterThanOrEqual(90);
     }
   });
-  it('main grids: VT1 median ≤ 5 % and p95 ≤ 12 %; VT1 bias within ±2 % (requirement: 3 %, 10 %, ±1.5 %)', () => {
-    for (const name of ['family 1, main', 'family B, main']) {
-      expect(s(name).vt1Median).toBeLessThanOrEqual(5);
-      expect(s(name).vt1P95).toBeLessThanOrEqual(12);
-      expect(Math.abs(s(name).vt1Bias)).toBeLessThanOrEqual(2);
-    }
+  // Each unmet accuracy target, with the held-out figure measured on 2026-12-02 in its name
+  // (docs/validation.md): a round bound above it, so that a regression fails; none of these
+  // bounds is the requirement.
+  it('family B VT1 median |error| 4.1 % (requirement ≤ 3 %, not met): guard ≤ 5 %, not the requirement', () =>
+    expect(s('family B, main').vt1Median).toBeLessThanOrEqual(5));
+  it('VT1 p95 10.7 % (family 1) and 10.8 % (family B) (requirement ≤ 10 %, not met): guard ≤ 12 %, not the requirement', () => {
+    for (const name of ['family 1, main', 'family B, main']) expect(s(name).vt1P95).toBeLessThanOrEqual(12);
   });
-  it('main grids: VT2 p95 ≤ 10 % (requirement: 8 %)', () => {
-    for (const name of ['family 1, main', 'family B, main']) expect(s(name).vt2P95).toBeLessThanOrEqual(10);
-  });
-  it('main grids: work rate at VT1 median ≤ 7 % (requirement: 4 %; p95 not bounded here)', () => {
+  it('family B VT1 median signed error −1.7 % (requirement within ±1.5 %, not met): guard within ±2.5 %, not the requirement', () =>
+    expect(Math.abs(s('family B, main').vt1Bias)).toBeLessThanOrEqual(2.5));
+  it('family B VT2 p95 8.4 % (requirement ≤ 8 %, not met): guard ≤ 10 %, not the requirement', () =>
+    expect(s('family B, main').vt2P95).toBeLessThanOrEqual(10));
+  it('work rate at VT1 median 4.1 % (family 1) and 5.9 % (family B) (requirement ≤ 4 %, not met): guard ≤ 7 %, not the requirement', () => {
     for (const name of ['family 1, main', 'family B, main']) expect(s(name).work1Median).toBeLessThanOrEqual(7);
+  });
+  it('work rate at VT1 p95 23.1 % (family 1) and 18.8 % (family B) (requirement ≤ 12 %, not met): guard ≤ 30 %, not the requirement', () => {
+    for (const name of ['family 1, main', 'family B, main']) expect(s(name).work1P95).toBeLessThanOrEqual(30);
   });
 });

@@ -35,7 +35,7 @@ for (const [name, cases] of sets) {
   console.log('');
   console.log(methodTable(results));
   if (process.env.WORST) {
-    const worst = [...results].sort((a, b) => b.vt1ErrPct - a.vt1ErrPct).slice(0, 6);
+    const worst = [...results].sort((a, b) => b.vt1ErrPct - a.vt1ErrPct).slice(0, Number(process.env.WORST) > 1 ? Number(process.env.WORST) : 6);
     for (const r of worst) console.log(`worst VT1 ${r.vt1SignedPct.toFixed(1)} % VT2 ${r.vt2SignedPct.toFixed(1)} %: ${r.c.label} seed ${r.c.seed}; ${Object.entries(r.methods).map(([m, v]) => `${m} ${v === null ? '—' : v.toFixed(1)}`).join(', ')}`);
   }
 }
