@@ -6,7 +6,9 @@
  * and that same protocol breathed k times as densely: the breaths of k independently seeded
  * runs of the generator merged in time order (k = 1 … 66), so the physiology and the length
  * of the test stay fixed and only the number of breaths grows. Time per breath of
- * `analyzeTest`, median of several runs after a warm-up, CPU time of this process.
+ * `analyzeTest`, CPU time of this process (all its threads, garbage collection included),
+ * the median of 9 batches (5 with the bootstrap) of about 30,000 breaths' worth of runs each,
+ * after a warm-up.
  */
 import { availableParallelism, loadavg } from 'node:os';
 import { analyzeTest, noClinicalInputs } from '../core/analyze/analyze-test';
@@ -31,17 +33,37 @@ export function denseTable(k: number): BreathTable {
   return { ...runs[0], breaths };
 }
 
-function cpuMsPerRun(table: BreathTable, settings: Settings, runs: number): number {
+/**
+ * CPU ms of one `analyzeTest` of the table: the median over `batches` batches, each of enough
+ * runs to take about `batchBreaths` breaths' worth of work (so a small table is not timed
+ * below the clock's resolution and one pause in a short run does not decide its figure).
+ */
+export function cpuMsPerRun(table: BreathTable, settings: Settings, batches = 9, batchBreaths = 30_000): number {
   const clinical = noClinicalInputs();
+  const runs = Math.max(1, Math.ceil(batchBreaths / table.breaths.length));
   analyzeTest(table, settings, clinical);
   const cpu: number[] = [];
-  for (let i = 0; i < runs; i++) {
+  for (let i = 0; i < batches; i++) {
     const c0 = process.cpuUsage();
-    analyzeTest(table, settings, clinical);
+    for (let r = 0; r < runs; r++) analyzeTest(table, settings, clinical);
     const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000);
+    cpu.push((c.user + c.system) / 1000 / runs);
   }
   return median(cpu);
+}
+
+/** Settings with the bootstrap off (the batch, `band`). */
+export const NO_BOOTSTRAP: Settings = { ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap: { ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates: 0 } } };
+
+/** µs of CPU per breath of `analyzeTest` at each density, after warming the code up on a mid-sized table. */
+export function usPerBreath(densities: readonly number[], settings: Settings, batches = 9): { breaths: number; usPerBreath: number }[] {
+  const warm = denseTable(4);
+  for (let i = 0; i < 10; i++) analyzeTest(warm, settings, noClinicalInputs());
+  return densities.map((k) => {
+    const table = denseTable(k);
+    const n = table.breaths.length;
+    return { breaths: n, usPerBreath: (1000 * cpuMsPerRun(table, settings, batches)) / n };
+  });
 }
 
 export interface ScalingRow {
@@ -51,16 +73,9 @@ export interface ScalingRow {
 }
 
 export function measureScaling(densities: readonly number[] = DENSITIES): ScalingRow[] {
-  const off: Settings = { ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap: { ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates: 0 } } };
-  // Warm the code up on a mid-sized table first, so the smallest size is not timed cold.
-  const warm = denseTable(4);
-  for (let i = 0; i < 5; i++) analyzeTest(warm, DEFAULT_SETTINGS, noClinicalInputs());
-  return densities.map((k) => {
-    const table = denseTable(k);
-    const n = table.breaths.length;
-    const runs = k <= 8 ? 15 : k <= 32 ? 7 : 5;
-    return { breaths: n, withoutUsPerBreath: (1000 * cpuMsPerRun(table, off, runs)) / n, withUsPerBreath: (1000 * cpuMsPerRun(table, DEFAULT_SETTINGS, runs)) / n };
-  });
+  const without = usPerBreath(densities, NO_BOOTSTRAP);
+  const withIt = usPerBreath(densities, DEFAULT_SETTINGS, 5);
+  return without.map((r, i) => ({ breaths: r.breaths, withoutUsPerBreath: r.usPerBreath, withUsPerBreath: withIt[i].usPerBreath }));
 }
 
 /** Largest deviation of the per-breath costs from their mean, % of the mean. */

@@ -1,18 +1,18 @@
-// Reads vitest's JSON report and prints the plain summary line CI reads: `N passed, N failed`.
+// Reads vitest's JSON reports (one or more files) and prints the plain summary line CI reads: `N passed, N failed`.
 // A suite that failed to load counts as a failure; skipped tests are named, never hidden.
 import { readFileSync, existsSync } from 'node:fs';
 
-const file = process.argv[2];
-if (!existsSync(file)) {
-  console.log('vitest wrote no report');
+const files = process.argv.slice(2);
+const missing = files.filter((f) => !existsSync(f));
+if (files.length === 0 || missing.length > 0) {
+  console.log(`vitest wrote no report${missing.length ? `: ${missing.join(', ')}` : ''}`);
   console.log('0 passed, 1 failed');
   process.exit(1);
 }
-const report = JSON.parse(readFileSync(file, 'utf8'));
 let passed = 0;
 let failed = 0;
 let skipped = 0;
-for (const suite of report.testResults ?? []) {
+for (const suite of files.flatMap((f) => JSON.parse(readFileSync(f, 'utf8')).testResults ?? [])) {
   const tests = suite.assertionResults ?? [];
   if (suite.status === 'failed' && tests.every((t) => t.status !== 'failed')) {
     failed += 1;

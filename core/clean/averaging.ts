@@ -39,7 +39,7 @@ export function averageBreaths(breaths: readonly Breath[], spec: AveragingSpec):
 /** Centred time window: each breath's point averages breaths within ± windowS/2 s. */
 export function rollingTimeMean(breaths: readonly Breath[], windowS: number): ProcessedSeries {
   const half = windowS / 2;
-  const ranges: [number, number][] = [];
+  const ranges = indexRanges(breaths.length);
   let lo = 0;
   let hi = 0;
   for (let i = 0; i < breaths.length; i++) {
@@ -47,24 +47,30 @@ export function rollingTimeMean(breaths: readonly Breath[], windowS: number): Pr
     while (breaths[lo].timeS < t - half) lo++;
     if (hi < i) hi = i;
     while (hi + 1 < breaths.length && breaths[hi + 1].timeS <= t + half) hi++;
-    ranges.push([lo, hi]);
+    ranges.lo[i] = lo;
+    ranges.hi[i] = hi;
   }
   return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
 }
 
 /** Fixed bins of binS seconds; the time of each point is its bin's midpoint. */
 export function timeBinMean(breaths: readonly Breath[], binS: number): ProcessedSeries {
-  const ranges: [number, number][] = [];
+  const bins: [number, number][] = [];
   const mids: number[] = [];
   let start = 0;
   while (start < breaths.length) {
     const bin = Math.floor(breaths[start].timeS / binS);
     let end = start;
     while (end + 1 < breaths.length && Math.floor(breaths[end + 1].timeS / binS) === bin) end++;
-    ranges.push([start, end]);
+    bins.push([start, end]);
     mids.push((bin + 0.5) * binS);
     start = end + 1;
   }
+  const ranges = indexRanges(bins.length);
+  bins.forEach(([from, to], k) => {
+    ranges.lo[k] = from;
+    ranges.hi[k] = to;
+  });
   const series = meansOverRanges(breaths, ranges);
   return { ...series, timeS: mids };
 }
@@ -73,35 +79,63 @@ export function timeBinMean(breaths: readonly Breath[], binS: number): Processed
 export function rollingBreathMean(breaths: readonly Breath[], count: number): ProcessedSeries {
   const before = Math.floor((Math.max(1, count) - 1) / 2);
   const after = Math.max(1, count) - 1 - before;
-  const ranges: [number, number][] = breaths.map((_, i) => [Math.max(0, i - before), Math.min(breaths.length - 1, i + after)]);
+  const ranges = indexRanges(breaths.length);
+  for (let i = 0; i < breaths.length; i++) {
+    ranges.lo[i] = Math.max(0, i - before);
+    ranges.hi[i] = Math.min(breaths.length - 1, i + after);
+  }
   return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
 }
 
-/** Means of every variable over inclusive index ranges, by prefix sums. */
-function meansOverRanges(breaths: readonly Breath[], ranges: readonly (readonly [number, number])[]): ProcessedSeries {
-  const out: Record<string, (number | null)[]> = {};
-  for (const key of REQUIRED) {
-    const prefix = prefixSums(breaths.map((b) => b[key]));
-    out[key] = ranges.map(([lo, hi]) => (prefix.sum[hi + 1] - prefix.sum[lo]) / (hi - lo + 1));
-  }
-  for (const key of OPTIONAL) {
-    const prefix = prefixSums(breaths.map((b) => b[key]));
-    out[key] = ranges.map(([lo, hi]) => {
-      const n = prefix.count[hi + 1] - prefix.count[lo];
-      return n === 0 ? null : (prefix.sum[hi + 1] - prefix.sum[lo]) / n;
-    });
-  }
-  return out as unknown as ProcessedSeries;
+/** Inclusive index ranges [lo[k], hi[k]], one per output point. */
+interface IndexRanges {
+  readonly lo: Int32Array;
+  readonly hi: Int32Array;
 }
 
-function prefixSums(values: readonly (number | null)[]): { sum: number[]; count: number[] } {
-  const sum = [0];
-  const count = [0];
-  for (const v of values) {
-    sum.push(sum[sum.length - 1] + (v ?? 0));
-    count.push(count[count.length - 1] + (v === null ? 0 : 1));
+function indexRanges(n: number): IndexRanges {
+  return { lo: new Int32Array(n), hi: new Int32Array(n) };
+}
+
+/**
+ * Means of every variable over inclusive index ranges, by prefix sums: one pass over the
+ * breaths fills every variable's running sums (and counts, for optional ones), then each
+ * range is a difference of two sums.
+ */
+function meansOverRanges(breaths: readonly Breath[], ranges: IndexRanges): ProcessedSeries {
+  const n = breaths.length;
+  const sums = [...REQUIRED, ...OPTIONAL].map(() => new Float64Array(n + 1));
+  const counts = OPTIONAL.map(() => new Int32Array(n + 1));
+  const r = REQUIRED.length;
+  for (let i = 0; i < n; i++) {
+    const b = breaths[i];
+    for (let k = 0; k < r; k++) sums[k][i + 1] = sums[k][i] + (b[REQUIRED[k]] ?? 0);
+    for (let k = 0; k < OPTIONAL.length; k++) {
+      const v = b[OPTIONAL[k]];
+      sums[r + k][i + 1] = sums[r + k][i] + (v ?? 0);
+      counts[k][i + 1] = counts[k][i] + (v === null ? 0 : 1);
+    }
   }
-  return { sum, count };
+  const { lo, hi } = ranges;
+  const points = lo.length;
+  const out: Record<string, (number | null)[]> = {};
+  REQUIRED.forEach((key, k) => {
+    const sum = sums[k];
+    const means: number[] = [];
+    for (let p = 0; p < points; p++) means.push((sum[hi[p] + 1] - sum[lo[p]]) / (hi[p] - lo[p] + 1));
+    out[key] = means;
+  });
+  OPTIONAL.forEach((key, k) => {
+    const sum = sums[r + k];
+    const count = counts[k];
+    const means: (number | null)[] = [];
+    for (let p = 0; p < points; p++) {
+      const c = count[hi[p] + 1] - count[lo[p]];
+      means.push(c === 0 ? null : (sum[hi[p] + 1] - sum[lo[p]]) / c);
+    }
+    out[key] = means;
+  });
+  return out as unknown as ProcessedSeries;
 }
 
 /**

@@ -16,7 +16,6 @@
 import type { Breath } from '../model/breath-table';
 import type { RemovedBreath } from '../model/analysis';
 import type { OutlierSpec } from '../model/settings';
-import { mean, sampleSd } from '../math/stats';
 
 export interface OutlierResult {
   readonly kept: readonly Breath[];
@@ -34,26 +33,44 @@ export function removeOutliers(breaths: readonly Breath[], spec: OutlierSpec): O
   const half = Math.max(1, Math.floor(spec.windowBreaths / 2));
   const kept: Breath[] = [];
   const removed: RemovedBreath[] = [];
+  // Each checked variable as one contiguous column, read many times over by the windows,
+  // filled in one pass over the breaths (each breath's fields are fetched from memory once).
+  const columns = CHECKED.map(() => new Float64Array(breaths.length));
   for (let i = 0; i < breaths.length; i++) {
-    const found = firstOutlier(breaths, i, half, spec.limitSd);
+    const b = breaths[i];
+    for (let c = 0; c < CHECKED.length; c++) columns[c][i] = b[CHECKED[c].key];
+  }
+  for (let i = 0; i < breaths.length; i++) {
+    const found = firstOutlier(breaths, columns, i, half, spec.limitSd);
     if (found) removed.push(found);
     else kept.push(breaths[i]);
   }
   return { kept, removed };
 }
 
-function firstOutlier(breaths: readonly Breath[], i: number, half: number, limitSd: number): RemovedBreath | null {
+/**
+ * The first checked variable in which breath i lies beyond the limit. The mean and the sample
+ * SD (n − 1) of the neighbours are summed in the order of core/math/stats `mean` and
+ * `sampleSd`, so they are the same numbers, without a neighbour array per breath.
+ */
+function firstOutlier(breaths: readonly Breath[], columns: readonly Float64Array[], i: number, half: number, limitSd: number): RemovedBreath | null {
   // At the ends of the recording the window shifts inward, so every breath is judged
   // against the same number of neighbours.
   const from = Math.max(0, Math.min(i - half, breaths.length - 1 - 2 * half));
   const to = Math.min(breaths.length - 1, from + 2 * half);
   // Fewer than three neighbours give no usable spread.
   if (to - from < 3) return null;
-  for (const { key, label, unit } of CHECKED) {
-    const neighbours: number[] = [];
-    for (let j = from; j <= to; j++) if (j !== i) neighbours.push(breaths[j][key]);
-    const m = mean(neighbours);
-    const sd = sampleSd(neighbours);
+  // The window always holds breath i itself, which is left out.
+  const n = to - from;
+  for (let c = 0; c < CHECKED.length; c++) {
+    const { key, label, unit } = CHECKED[c];
+    const column = columns[c];
+    let sum = 0;
+    for (let j = from; j <= to; j++) if (j !== i) sum += column[j];
+    const m = sum / n;
+    let squares = 0;
+    for (let j = from; j <= to; j++) if (j !== i) squares += (column[j] - m) * (column[j] - m);
+    const sd = Math.sqrt(squares / (n - 1));
     const value = breaths[i][key];
     const distance = Math.abs(value - m);
     if (distance > 0 && distance > limitSd * sd) {
@@ -64,7 +81,7 @@ function firstOutlier(breaths: readonly Breath[], i: number, half: number, limit
         variable: key,
         value,
         reason:
-          `${label} ${round(value)} ${unit} lies ${sds} SD from the mean of its ${neighbours.length} ` +
+          `${label} ${round(value)} ${unit} lies ${sds} SD from the mean of its ${n} ` +
           `neighbouring breaths (${round(m)} ${unit}); the limit is ${limitSd} SD.`,
       };
     }

@@ -8,17 +8,29 @@
  *   band              c ± 1.96 · σ                       (a reproduced test, from biology alone)
  *   limits            c ± z · √(σ² + m²)                 (biology and measurement together)
  *
- * Calls: `fell` when r lies below the lower limit, `rose` above the upper limit. For a
- * secondary metric the limit uses z = 1.96 (a stable person lands beyond it in about 2.5 % of
- * pairs on each side when the intervals are calibrated); for the four primary outcomes it uses
- * z = 2.241, the one-sided 1.25 % point (Bonferroni over four outcomes), so that a stable
- * person is called lower on any primary outcome in at most about 5 % of pairs;
- * `held` when the whole change interval lies inside the band; otherwise `open` (the interval
- * straddles a band edge, or measurement is too uncertain to place the change). Report words:
- * reproduced / lower on day 2 / higher on day 2 / undetermined.
+ * Calls: `fell` when r lies below the lower limit, `rose` above the upper limit; `held` when the
+ * whole change interval lies inside the band; otherwise `open` (the interval straddles a band
+ * edge, or measurement is too uncertain to place the change). Report words: reproduced / lower
+ * on day 2 / higher on day 2 / undetermined.
+ *
+ * z, one rule for all facets of one finding (findings.ts): every value read at VT1 (VO2, VO2/kg,
+ * workload, HR, time, ventilatory equivalents) uses the VT1 finding's z, every peak value the
+ * peak finding's z, so a secondary facet is never "lower" where the primary one beside it,
+ * with the same change and the same interval, is "undetermined". The z of a finding
+ * (`Z_FINDING`) keeps a stable person's chance of a false "lower on day 2" on any of the four
+ * primary outcomes at or under 5 %: 2.5 % per finding (Bonferroni over the two findings, which
+ * holds whatever their correlation), and within a finding the two primary facets (VO2 and
+ * workload, read at the same breakpoint or the same end of test) are taken as bivariate normal
+ * with correlation ρ = 0.8, for which P(either below −z) = 2.5 % at z = 2.152 (Bonferroni
+ * within the finding would need 2.241 and ignores that the facets move together). On the
+ * development null pairs of both generator families the two facets' standardized changes
+ * correlated by 0.94–0.97 (between the two findings 0.10–0.14; docs/validation.md); ρ = 0.8 is
+ * rounded down, so the rule stays at or under 2.5 % per finding
+ * for any correlation from 0.8 up (a lower ρ than assumed would raise it, at ρ = 0 to 3.1 %).
+ * Values that belong to no finding (VT2, VE/VCO2 slope, OUES) use z = 1.96: shown, never counted.
  *
  * Example: VO2 at VT1 1200 → 950 mL/min (r = −0.234, −20.8 %), s1 = s2 = 0.03, CV 6 %:
- * σ = 0.0824, m = 0.0424, lower limit exp(−2.2414 · 0.0927) − 1 = −18.8 % (primary) → fell.
+ * σ = 0.0824, m = 0.0424, lower limit exp(−2.152 · 0.0927) − 1 = −18.1 % (a VT1 facet) → fell.
  */
 import { Z95 } from './bands';
 import type { AppliedBand, ChangeInterval, Verdict } from './types';
@@ -42,8 +54,13 @@ export interface ChangeCall {
   readonly interval: ChangeInterval;
 }
 
-/** One-sided 1.25 % normal quantile (5 % / 4 primary outcomes, Bonferroni): Φ⁻¹(0.9875). */
-export const Z_PRIMARY = 2.2414;
+/**
+ * A finding's z: 1 − Φ₂(z, z; ρ = 0.8) = 2.5 % for a standard bivariate normal (the chance that
+ * either of two facets correlated by 0.8 lands below −z), z = 2.152 (computed numerically;
+ * tests/core/compare/change-interval.test.ts recomputes it). For comparison: one outcome at
+ * 2.5 %, 1.960; Bonferroni over four outcomes, 2.241.
+ */
+export const Z_FINDING = 2.152;
 
 export function changeCall(day1: number, day2: number, day1Sd: number | null, day2Sd: number | null, band: AppliedBand, measurement: string, zCall: number = Z95): ChangeCall | null {
   if (!(day1 > 0) || !(day2 > 0)) return null;

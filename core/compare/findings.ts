@@ -10,12 +10,17 @@
  * secondary: shown, never counted as a finding, never in the headline.
  *
  * One threshold's shift is one finding: the VO2, workload, HR and time read at VT1 are facets
- * of the same breakpoint, so they are stated together in one sentence. The finding's call:
+ * of the same breakpoint, so they are stated together in one sentence, and every facet is
+ * called with the same rule, the finding's z (change-interval.ts `Z_FINDING`), so VO2/kg at VT1
+ * is never "lower" while VO2 at VT1 is "undetermined". Peak values likewise (the peak finding,
+ * with the exercise duration). The finding's call:
  * lower on day 2 when a primary facet is lower and none is higher; higher when the reverse;
  * reproduced when every primary facet reproduced; undetermined otherwise (one facet
  * undetermined, or the facets disagree in direction).
  */
-import { verdictWords } from './change-interval';
+import { verdictWords, Z_FINDING } from './change-interval';
+import { Z95 } from './bands';
+import type { MetricDefinition } from './metric-catalog';
 import type { MetricId, MetricRow, Verdict } from './types';
 
 export const PRIMARY_IDS: readonly MetricId[] = ['vt1_vo2', 'vt1_work', 'peak_vo2', 'peak_work'];
@@ -25,6 +30,18 @@ export function isPrimary(id: MetricId): boolean {
 }
 
 export type FindingId = 'vt1' | 'peak';
+
+/** The finding a metric is a facet of: read at VT1, or at the peak of a maximal test; null for the rest (VT2, slopes). */
+export function findingOf(def: Pick<MetricDefinition, 'threshold' | 'gate'>): FindingId | null {
+  if (def.threshold === 'vt1') return 'vt1';
+  if (def.threshold === null && def.gate === 'maximal') return 'peak';
+  return null;
+}
+
+/** The z a metric is called with: its finding's, or 1.96 for a value outside the findings. */
+export function findingZ(def: Pick<MetricDefinition, 'threshold' | 'gate'>): number {
+  return findingOf(def) === null ? Z95 : Z_FINDING;
+}
 
 export interface Finding {
   readonly id: FindingId;

@@ -11,8 +11,8 @@
  */
 import type { TestAnalysis } from '../model/analysis';
 import { bandFor, DEFAULT_BAND_TABLE } from './bands';
-import { changeCall, verdictWords, Z_PRIMARY } from './change-interval';
-import { isPrimary } from './findings';
+import { changeCall, verdictWords } from './change-interval';
+import { findingZ } from './findings';
 import { measurementSd } from './measurement';
 import { METRICS, type MetricDefinition } from './metric-catalog';
 import type { BandTable, MetricRow } from './types';
@@ -57,7 +57,7 @@ export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: T
   if (deltaPct === null) return notComparable('day 1 value is zero, so no percent change exists');
   const m1 = measurementSd(day1, def.id);
   const m2 = measurementSd(day2, def.id);
-  const call = changeCall(v1 as number, v2 as number, m1.sd, m2.sd, band, m1.how, isPrimary(def.id) ? Z_PRIMARY : undefined);
+  const call = changeCall(v1 as number, v2 as number, m1.sd, m2.sd, band, m1.how, findingZ(def));
   if (call === null) return notComparable('a value is not positive, so no change ratio exists');
 
   const { verdict, interval: iv } = call;

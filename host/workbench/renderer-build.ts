@@ -28,10 +28,22 @@ export function rendererIsStale(root: string): boolean {
   return SOURCES.some((s) => newestMtimeMs(join(root, s)) > builtAt);
 }
 
-/** Runs the Vite build of renderer/ (quietly) and returns the output folder. */
+/**
+ * Runs the Vite build of renderer/ (quietly) and returns the output folder. Always a
+ * production build: Vite takes NODE_ENV from the environment when it is set (vitest sets
+ * "test"), and would then bundle React's development build and its development JSX, several
+ * times slower to render, into a page that `npm start` later serves as it is.
+ */
 export async function buildRenderer(root: string): Promise<string> {
   const { build } = await import('vite');
-  await build({ configFile: join(root, 'renderer', 'vite.config.ts'), logLevel: 'warn' });
+  const nodeEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ configFile: join(root, 'renderer', 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+  } finally {
+    if (nodeEnv === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = nodeEnv;
+  }
   return rendererDist(root);
 }
 

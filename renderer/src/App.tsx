@@ -29,6 +29,39 @@ import { RecoveryCalls } from './screens/RecoveryCalls';
 
 type View = EngineView<Comparison>;
 
+/** Times of one change on screen, ms from its input; `startedAt` on the page's clock. */
+export interface RenderTiming {
+  readonly revision: number;
+  readonly replyMs: number;
+  readonly valuesMs: number;
+  readonly chartsMs: number | null;
+  readonly startedAt: number;
+}
+
+/** A performance mark of the newest change only (the entry of the change before is cleared). */
+function mark(name: string, startTime?: number): void {
+  performance.clearMarks(name);
+  performance.mark(name, startTime === undefined ? undefined : { startTime });
+}
+
+function measure(name: string, start: number, end: number): void {
+  performance.clearMeasures(name);
+  performance.measure(name, { start, end });
+}
+
+/** Runs `then` in the first task after the next frame is painted (a frame callback, then a message to this page). */
+function afterPaint(then: () => void): void {
+  requestAnimationFrame(() => {
+    mark('twofold:frame');
+    const channel = new MessageChannel();
+    channel.port1.onmessage = () => {
+      channel.port1.close();
+      then();
+    };
+    channel.port2.postMessage(null);
+  });
+}
+
 const SCREENS: readonly { id: Screen; command: CommandId; label: string }[] = [
   { id: 'intake', command: 'go.intake', label: 'Intake' },
   { id: 'breakpoints', command: 'go.breakpoints', label: 'Breakpoints' },
@@ -63,8 +96,12 @@ export function App({ host }: { host: HostClient }) {
   const [reviewer, setReviewerState] = useState<Reviewer>(loadReviewer);
   const [saveNote, setSaveNote] = useState<string>('No case open');
   const [exportState, setExportState] = useState<ExportState>({ signers: [], signerId: null, result: null, verification: null });
-  const [renderMs, setRenderMs] = useState<{ replyMs: number; valuesMs: number; chartsMs: number | null } | null>(null);
+  // The charts draw this view: the values' view, one painted frame later (see the timing below).
+  const [chartsView, setChartsView] = useState<View | null>(null);
+  const [renderMs, setRenderMs] = useState<RenderTiming | null>(null);
   const replyAt = useRef<number | null>(null);
+  /** The timestamp of the newest click or key press (the event's own time, ms on the page's clock). */
+  const lastInput = useRef<number | null>(null);
   const [previewUrl, setPreviewUrl] = useState<string | null>(null);
   // Numbers and dates on screen and in the report built from here (ui/locale.tsx).
   const [locale, setLocaleState] = useState<string>(initialLocale);
@@ -124,17 +161,55 @@ export function App({ host }: { host: HostClient }) {
     localStorage.setItem(REVIEWER_KEY, JSON.stringify(next));
   };
 
-  // From a reviewer's action to the screen: values in the DOM (layout effect, after React's
-  // commit), then charts redrawn (the frame after every chart's effect has run).
+  useEffect(() => {
+    const note = (event: Event) => {
+      lastInput.current = event.timeStamp;
+    };
+    window.addEventListener('click', note, true);
+    window.addEventListener('keydown', note, true);
+    return () => {
+      window.removeEventListener('click', note, true);
+      window.removeEventListener('keydown', note, true);
+    };
+  }, []);
+
+  // From a reviewer's action to the screen (performance marks and measures named `twofold:`):
+  // the start is the click's or key press's own event time; the values are painted at the first
+  // task after the frame that follows the commit of their view (afterPaint). Only then do the
+  // charts take the new view, so their data and plotly's redraw never delay that frame; the
+  // charts' time is taken the same way after their own commit.
   useLayoutEffect(() => {
-    if (changeStarted.current === null || !view) return;
+    if (!view) return;
     const started = changeStarted.current;
     changeStarted.current = null;
-    const valuesMs = performance.now() - started;
-    const replyMs = (replyAt.current ?? performance.now()) - started;
-    setRenderMs({ replyMs, valuesMs, chartsMs: null });
-    requestAnimationFrame(() => setTimeout(() => setRenderMs({ replyMs, valuesMs, chartsMs: performance.now() - started }), 0));
-  }, [view]);
+    const reply = replyAt.current;
+    const revision = view.revision;
+    if (started !== null) mark('twofold:values-committed');
+    afterPaint(() => {
+      engine.shown(revision);
+      if (started !== null) {
+        const painted = performance.now();
+        measure('twofold:values-painted', started, painted);
+        setRenderMs({ revision, replyMs: (reply ?? painted) - started, valuesMs: painted - started, chartsMs: null, startedAt: started });
+      }
+      setChartsView(view);
+    });
+  }, [view, engine]);
+
+  useLayoutEffect(() => {
+    if (!chartsView) return;
+    const revision = chartsView.revision;
+    afterPaint(() =>
+      setTimeout(() =>
+        setRenderMs((r) => {
+          if (!r || r.revision !== revision || r.chartsMs !== null) return r;
+          const chartsMs = performance.now() - r.startedAt;
+          measure('twofold:charts-drawn', r.startedAt, r.startedAt + chartsMs);
+          return { ...r, chartsMs };
+        }),
+      ),
+    );
+  }, [chartsView]);
 
   const settle = useCallback((reply: Settled<Comparison>) => {
     setBusy(null);
@@ -164,6 +239,7 @@ export function App({ host }: { host: HostClient }) {
       setSummary(opened.summary);
       setFiles({ day1: opened.day1, day2: opened.day2, caseJson: opened.caseJson });
       setView(null);
+      setChartsView(null);
       setRecord(null);
       setReviewDay(1);
       setRenderMs(null);
@@ -227,9 +303,15 @@ export function App({ host }: { host: HostClient }) {
   const act = useCallback(
     async (request: EngineRequest): Promise<boolean> => {
       if (!summary) return false;
-      changeStarted.current = performance.now();
+      const now = performance.now();
+      // The input that asked for this change, when there was one just now (a command from the host's menu has none).
+      const input = lastInput.current;
+      changeStarted.current = input !== null && input <= now && now - input < 1000 ? input : now;
+      lastInput.current = null;
+      mark('twofold:change-input', changeStarted.current);
       const reply = await engine.request(request);
       replyAt.current = performance.now();
+      mark('twofold:reply');
       settle(reply);
       return reply.type === 'view';
     },
@@ -405,7 +487,7 @@ export function App({ host }: { host: HostClient }) {
       <main className="screen" data-screen={screen}>
         {screen === 'intake' && <Intake host={host} chooseRef={chooseInput} question={question} onStart={startCase} onOpen={openCase} onAnswerMapping={answerMapping} onError={setError} />}
         {screen === 'breakpoints' && view && (
-          <Breakpoints view={view} day={reviewDay} onDay={setReviewDay} onSet={setThreshold} onWithdraw={withdraw} active={pending} renderMs={renderMs} />
+          <Breakpoints view={view} chartsView={chartsView} day={reviewDay} onDay={setReviewDay} onSet={setThreshold} onWithdraw={withdraw} active={pending} renderMs={renderMs} />
         )}
         {screen === 'dayover' && view && <DayOver view={view} />}
         {screen === 'recovery' && view && <RecoveryCalls view={view} onSubmit={(request) => (needReviewer() ? Promise.resolve(false) : act({ ...request, reviewer, at: new Date().toISOString() }))} />}

@@ -1,6 +1,7 @@
 /**
  * Reviewing a long test through the page: files chosen through the file inputs, the time
- * from an override to the updated values (target under 50 ms for a 1,500-breath test),
+ * from an override to the updated values painted (target: 95th percentile at most 50 ms over
+ * 30 overrides of a 1,500-breath test, asserted when other work leaves the machine idle),
  * undo, redo and withdrawal, autosave after every change (also two changes in quick
  * succession), and the mapping step for an export whose units the importer had to infer.
  * References: data generated from the project's stated physiological model with known
@@ -39,6 +40,56 @@ const p95 = (values: number[]) => [...values].sort((a, b) => a - b)[Math.ceil(0.
 /** Overrides timed (issue 14: the 95th percentile over at least 30). */
 const N = 30;
 
+/**
+ * CPU time used so far by the whole machine and by this test process with its descendants
+ * (the browser-mode host runs in this process; Chromium and its renderer are its children),
+ * in clock ticks of Linux's /proc (proc(5): /proc/stat, /proc/[pid]/stat fields utime, stime,
+ * cutime, cstime); null where /proc cannot be read.
+ */
+function cpuTicks(): { machineBusy: number; ours: number } | null {
+  try {
+    // user nice system idle iowait irq softirq steal: everything but idle and iowait is busy.
+    const [user, nice, system, , , irq, softirq, steal = 0] = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
+    const children = new Map<number, number[]>();
+    const own = new Map<number, number>();
+    for (const entry of readdirSync('/proc')) {
+      if (!/^\d+$/.test(entry)) continue;
+      let text: string;
+      try {
+        text = readFileSync(`/proc/${entry}/stat`, 'utf8');
+      } catch {
+        continue; // exited meanwhile
+      }
+      // Fields after the command name (which may hold spaces, inside parentheses): state, ppid, …
+      const f = text.slice(text.lastIndexOf(')') + 2).split(' ');
+      const pid = Number(entry);
+      const ppid = Number(f[1]);
+      children.set(ppid, [...(children.get(ppid) ?? []), pid]);
+      // utime, stime, cutime, cstime: fields 14–17 of the line, 12–15 after the name.
+      own.set(pid, Number(f[11]) + Number(f[12]) + Number(f[13]) + Number(f[14]));
+    }
+    let ours = 0;
+    for (const queue = [process.pid]; queue.length; ) {
+      const pid = queue.pop()!;
+      ours += own.get(pid) ?? 0;
+      queue.push(...(children.get(pid) ?? []));
+    }
+    return { machineBusy: user + nice + system + irq + softirq + steal, ours };
+  } catch {
+    return null;
+  }
+}
+
+/** Linux's clock ticks per second for /proc times (USER_HZ, 100 on every mainstream build; getconf CLK_TCK). */
+const TICKS_PER_S = 100;
+/**
+ * Other work (everything outside this test's processes) using less than this many cores on
+ * average during the timed overrides counts as an idle machine, where the timing requirement
+ * is asserted (our choice: a quarter of this 2-core machine). Above it the machine is shared,
+ * the figure is still printed, and only a regression guard is asserted.
+ */
+const IDLE_OTHER_CORES = 0.5;
+
 /** The one case in the data folder as saved on disk, once its log has `entries` reviewer entries after its opening entry 0 (autosave follows the values). */
 async function savedCase(entries: number): Promise<LoadedCase> {
   const casesDir = join(bench.dataDir, 'cases');
@@ -72,6 +123,16 @@ afterAll(async () => {
   await bench?.close();
 });
 
+describe('the page under test', () => {
+  it("is React's production build, as `npm start` serves it (vitest's NODE_ENV=test must not leak into the build)", () => {
+    const assets = join(ROOT, 'renderer', 'dist', 'assets');
+    const page = readdirSync(assets).filter((f) => /^index-.*\.js$/.test(f));
+    expect(page.length).toBe(1);
+    // A warning text that only React's development build carries.
+    expect(readFileSync(join(assets, page[0]), 'utf8')).not.toContain('Each child in a list should have a unique');
+  });
+});
+
 describe('a 1,500-breath pair', () => {
   const timings: { worker: number; reply: number; values: number; charts: number; record: number }[] = [];
 
@@ -87,6 +148,8 @@ describe('a 1,500-breath pair', () => {
     await page.locator('.day-tab', { hasText: 'Day 2' }).click();
 
     const ramp = day2.truth.phases;
+    const cpuBefore = cpuTicks();
+    const wallBefore = performance.now();
     for (let k = 0; k < N; k++) {
       const t = Math.round(ramp.incrementalStartS + 300 + 10 * k);
       await page.fill('[data-testid="override-value"]', String(t));
@@ -94,7 +157,11 @@ describe('a 1,500-breath pair', () => {
       await page.click('[data-testid="override-apply"]');
       await page.waitForFunction((seq) => document.querySelector('[data-testid="row-vt1"]')?.textContent?.includes(`reviewer (entry ${seq})`), k + 1);
       expect(numberIn((await page.locator('[data-testid="row-vt1"] > :nth-child(3)').textContent())!.split('(')[1])).toBe(t);
-      await page.waitForSelector('[data-testid="charts-ms"]');
+      // The change's own timing (data-revision: its case state), once its charts are drawn too.
+      await page.waitForFunction((seq) => {
+        const timing = document.querySelector('[data-testid="timing"]');
+        return timing?.getAttribute('data-revision') === String(seq + 1) && timing.querySelector('[data-testid="charts-ms"]') !== null;
+      }, k + 1);
       // The record (digest and case text) follows the values; its time is on the save note.
       await page.waitForFunction((seq) => document.querySelector('[data-testid="save-note"]')?.getAttribute('data-revision') === String(seq + 1), k + 1);
       timings.push({
@@ -105,7 +172,12 @@ describe('a 1,500-breath pair', () => {
         charts: numberIn(await page.locator('[data-testid="charts-ms"]').textContent()),
       });
     }
+    const cpuAfter = cpuTicks();
+    const wallS = (performance.now() - wallBefore) / 1000;
+    // Cores used on average by work outside this test while the overrides were timed.
+    const otherCores = cpuBefore && cpuAfter ? (cpuAfter.machineBusy - cpuBefore.machineBusy - (cpuAfter.ours - cpuBefore.ours)) / TICKS_PER_S / wallS : null;
     const figures = {
+      otherCores,
       breaths: day2.table.breaths.length,
       overrides: timings.length,
       workerMs: median(timings.map((x) => x.worker)),
@@ -119,20 +191,27 @@ describe('a 1,500-breath pair', () => {
     mkdirSync(join(ROOT, '.test-results'), { recursive: true });
     writeFileSync(join(ROOT, '.test-results', 'workbench-timing.json'), `${JSON.stringify({ figures, timings }, null, 2)}\n`);
     const load = (await import('node:os')).loadavg()[0].toFixed(1);
+    const idle = otherCores === null || otherCores < IDLE_OTHER_CORES;
+    const otherText = otherCores === null ? 'other work not measurable (no /proc)' : `other work ${otherCores.toFixed(2)} cores`;
     console.log(
-      `override → values on screen, ${figures.breaths} breaths, ${figures.overrides} overrides: p95 ${figures.valuesP95Ms.toFixed(1)} ms (target ≤ 50), median ${figures.valuesMs.toFixed(1)} ms, max ${figures.valuesMaxMs.toFixed(1)} ms; ` +
-        `worker ${figures.workerMs} ms, charts ${figures.chartsMs} ms; record after the values ${figures.recordMs} ms; load average ${load}`,
+      `override → values painted, ${figures.breaths} breaths, ${figures.overrides} overrides: p95 ${figures.valuesP95Ms.toFixed(1)} ms (target ≤ 50), median ${figures.valuesMs.toFixed(1)} ms, max ${figures.valuesMaxMs.toFixed(1)} ms; ` +
+        `worker ${figures.workerMs} ms, charts ${figures.chartsMs} ms; record after the values ${figures.recordMs} ms; load average ${load}, ${otherText}; ` +
+        (idle ? 'requirement asserted' : `machine shared (other work ≥ ${IDLE_OTHER_CORES} cores): requirement NOT asserted, regression guard only`),
     );
-    // The target (issue 14): from action to values on screen at most 50 ms in 95 % of
-    // overrides. docs/workbench.md gives the measured figures and where the time goes. The
-    // worker's share (the values, without the digest and case text) measured 4–8 ms, 30–44 ms
-    // with them: a bound of 20 ms keeps the digest off that path.
-    // NOT MET on this machine: p95 100.9 ms (median well under it) on the merged main with the
-    // other suites idle, 280–560 ms under load (docs/performance.md). The requirement stays
-    // 50 ms; this assertion is only a regression guard against a slow path coming back (the
-    // digest or the case text before the values), not the requirement.
+    // What is timed (App.tsx): from the click on "Set" (the click event's own time) to the
+    // first task after the frame that follows the commit of the new values (a frame callback,
+    // then a message to the page): the values are painted by then. The charts take the new
+    // view only after that, and the record (digest, case text) waits for it in the worker.
     expect(figures.overrides).toBeGreaterThanOrEqual(30);
-    expect(figures.valuesP95Ms).toBeLessThanOrEqual(400);
+    if (idle) {
+      // The requirement (issue 14): override → values on screen at most 50 ms in 95 % of overrides.
+      expect(figures.valuesP95Ms).toBeLessThanOrEqual(50);
+    } else {
+      // Not the requirement: a regression guard while other work shares the cores (the
+      // figure above says what was measured and how loaded the machine was).
+      expect(figures.valuesP95Ms).toBeLessThanOrEqual(400);
+    }
+    // The worker's share (the values, without the digest and case text) measured 4–10 ms, 30–44 ms with them: 20 ms keeps the digest off that path.
     expect(figures.workerMs).toBeLessThan(20);
     expect(figures.replyMs).toBeLessThanOrEqual(figures.valuesMs);
 

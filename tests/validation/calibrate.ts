@@ -3,6 +3,8 @@
  * b (between-method SD) and a floor f (% of the consensus VO2), the coverage of
  * consensus ± 1.96·√((a·s_boot)² + (b·s_methods)² + (f·VO2)²) per family and condition.
  * Run: npx tsx tests/validation/calibrate.ts [seedsPerCell] [families, e.g. 1,B]
+ * The released weights come from the likelihood fit instead (interval-dump.ts, then
+ * calibration/fit-interval.py); this grid search stays as a check of any candidate weights.
  */
 import { DEVELOPMENT_FIRST_SEED, hardCases, mainCases } from './cases';
 import { family1, measureAll, type CaseResult, type TruthCase } from './measure';

@@ -13,8 +13,10 @@
  *   −20 to −30 % here; the paper's workload at VT −21.3 %), plus the same biological variation.
  *
  * Subjects: peak VO2 1,600–3,000 mL/min, VT1 at 45–62 % of peak, VT2 at 76–86 % (textbook
- * ranges, memory), ramps 10/15/20/25 W/min. Seeds from 20001 are held out: nothing was tuned
- * on them (the method has no tuned parameter: the CVs come from the band preset).
+ * ranges, memory), ramps 10/15/20/25 W/min. Seeds from 20001 (family A) and 40001 (family B)
+ * are held out: nothing was tuned on them. What was tuned (the interval's weights, the peak VO2
+ * floor) used the development pairs only: family A from 9000 (null) and 9300 (decline), family
+ * B from 49000 and 49300 (day2-develop.ts, interval-dump.ts, peak-dump.ts).
  */
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { compareTests, type Comparison } from '../../core/compare/compare-tests';
@@ -40,7 +42,8 @@ export interface PairResult {
   readonly comparison: Comparison;
 }
 
-function pairParams(seed: number, kind: PairKind): [TestParams, TestParams] {
+/** Family A: the two days' generator parameters of one pair (seeded, so the oracle sees the same pairs). */
+export function pairParams(seed: number, kind: PairKind): [TestParams, TestParams] {
   const r = seededRandom(seed * 104729 + 3);
   const z = normalRandom(r);
   const base = defaultCycleParams();
@@ -79,16 +82,24 @@ export function settingsWithReplicates(replicates: number | null): Settings {
   return { ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap: { ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates } } };
 }
 
-export function runPairs(kind: PairKind, count: number, firstSeed: number, family: Family = FAMILY_A, settings: Settings = DEFAULT_SETTINGS): PairResult[] {
+/** Family A pairs; a seed whose parameters the model cannot simulate is skipped and counted (none among the held-out seeds). */
+export function runPairs(kind: PairKind, count: number, firstSeed: number, family: Family = FAMILY_A, settings: Settings = DEFAULT_SETTINGS): { results: PairResult[]; skipped: number } {
   const out: PairResult[] = [];
-  for (let i = 0; i < count; i++) {
-    const seed = firstSeed + i;
+  let skipped = 0;
+  for (let seed = firstSeed; out.length < count; seed++) {
     const [p1, p2] = pairParams(seed, kind);
-    const a1 = analyzeTest(family(p1, 2 * seed), settings, noClinicalInputs());
-    const a2 = analyzeTest(family(p2, 2 * seed + 1), settings, noClinicalInputs());
+    let tables: [BreathTable, BreathTable];
+    try {
+      tables = [family(p1, 2 * seed), family(p2, 2 * seed + 1)];
+    } catch {
+      skipped++;
+      continue;
+    }
+    const a1 = analyzeTest(tables[0], settings, noClinicalInputs());
+    const a2 = analyzeTest(tables[1], settings, noClinicalInputs());
     out.push({ kind, seed, comparison: compareTests(a1, a2, DEFAULT_SETTINGS) });
   }
-  return out;
+  return { results: out, skipped };
 }
 
 export interface PairFigures {
@@ -133,21 +144,27 @@ export function figures(results: readonly PairResult[]): PairFigures {
  * rates, the protocol unchanged. A day-2 parameter set the model cannot simulate (a threshold
  * no longer crossed) is skipped and counted, never hidden.
  */
+/** Family B: the two days' parameters of one pair; the seed's base subject from the 'main' grid. */
+export function pairParamsB(seed: number, kind: PairKind): [KineticParams, KineticParams] {
+  const base = kineticCase('main', seed).params;
+  const r = seededRandom(seed * 7877 + 11);
+  const z = normalRandom(r);
+  const day = (vt1Factor: number, peakFactor: number): KineticParams => {
+    const b1 = Math.exp(z() * Math.log(1 + BIO_CV.vt1));
+    const bp = Math.exp(z() * Math.log(1 + BIO_CV.peak));
+    const peak = Math.round(base.vo2PeakMlMin * peakFactor * bp);
+    return { ...base, vo2PeakMlMin: peak, vt1Vo2MlMin: Math.round(base.vt1Vo2MlMin * vt1Factor * b1), vt2Vo2MlMin: Math.min(Math.round(base.vt2Vo2MlMin * peakFactor * bp), peak - 50) };
+  };
+  const p1 = day(1, 1);
+  const p2 = kind === 'null' ? day(1, 1) : day(1 + KELLER_2014.vt1Vo2Pct / 100, 1 + KELLER_2014.peakVo2Pct / 100);
+  return [p1, p2];
+}
+
 export function runPairsB(kind: PairKind, count: number, firstSeed: number, settings: Settings = DEFAULT_SETTINGS): { results: PairResult[]; skipped: number } {
   const out: PairResult[] = [];
   let skipped = 0;
   for (let seed = firstSeed; out.length < count; seed++) {
-    const base = kineticCase('main', seed).params;
-    const r = seededRandom(seed * 7877 + 11);
-    const z = normalRandom(r);
-    const day = (vt1Factor: number, peakFactor: number): KineticParams => {
-      const b1 = Math.exp(z() * Math.log(1 + BIO_CV.vt1));
-      const bp = Math.exp(z() * Math.log(1 + BIO_CV.peak));
-      const peak = Math.round(base.vo2PeakMlMin * peakFactor * bp);
-      return { ...base, vo2PeakMlMin: peak, vt1Vo2MlMin: Math.round(base.vt1Vo2MlMin * vt1Factor * b1), vt2Vo2MlMin: Math.min(Math.round(base.vt2Vo2MlMin * peakFactor * bp), peak - 50) };
-    };
-    const p1 = day(1, 1);
-    const p2 = kind === 'null' ? day(1, 1) : day(1 + KELLER_2014.vt1Vo2Pct / 100, 1 + KELLER_2014.peakVo2Pct / 100);
+    const [p1, p2] = pairParamsB(seed, kind);
     const stamp = (table: BreathTable, n: 1 | 2): BreathTable => ({
       ...table,
       sourceName: `pairB-${seed}-day${n}`,

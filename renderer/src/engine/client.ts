@@ -2,9 +2,8 @@
  * The page's side of the analysis worker: one promise per request, settled by its view (or
  * error, or mapping question); progress, and the record that follows a view, on the side.
  */
-import type { CaseRecord, EngineReply, EngineRequest, EngineView, WireDay, WireReply, WireView } from './protocol';
-import type { DayOutcome } from '../../../core/case/recompute';
-import type { ProcessedSeries } from '../../../core/model/analysis';
+import type { CaseRecord, EngineReply, EngineRequest, EngineView, PageShown, WireReply, WireView } from './protocol';
+import { applyPatch } from './view-patch';
 import type { LocatedError } from '../../../core/model/errors';
 
 type Aside = 'progress' | 'record' | 'record-failed';
@@ -24,14 +23,14 @@ export function startEngine<C>(listeners: EngineListeners<C>) {
   const worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'twofold-engine' });
   let next = 1;
   const pending = new Map<number, (reply: Settled<C>) => void>();
-  // Each day's series as last received: the worker leaves out one that has not changed.
-  const series: { day1: ProcessedSeries | null; day2: ProcessedSeries | null } = { day1: null, day2: null };
-  const wholeDay = (key: 'day1' | 'day2', day: WireDay): DayOutcome => {
-    if (day.analysis.series) series[key] = day.analysis.series;
-    if (!series[key]) throw new Error('the analysis worker left out a series the page never received');
-    return { ...day, analysis: { ...day.analysis, series: series[key] } };
+  // The view as last received: the worker sends each next view as a patch against it.
+  let received: EngineView<C> | null = null;
+  const whole = (patch: WireView): EngineView<C> => {
+    const view = applyPatch(received, patch);
+    if (!view) throw new Error('the analysis worker sent a change to a view the page never received');
+    received = view;
+    return view;
   };
-  const whole = (view: WireView<C>): EngineView<C> => ({ ...view, day1: wholeDay('day1', view.day1), day2: wholeDay('day2', view.day2) });
   worker.addEventListener('message', (event: MessageEvent<WireReply<C>>) => {
     const wire = event.data;
     const reply: EngineReply<C> = wire.type === 'view' || wire.type === 'record-failed' ? { ...wire, view: whole(wire.view) } : wire;
@@ -47,6 +46,11 @@ export function startEngine<C>(listeners: EngineListeners<C>) {
     listeners.onStopped();
   });
   return {
+    /** Tells the worker the values of `revision` are painted, so it records them now. */
+    shown(revision: number): void {
+      const message: PageShown = { type: 'shown', revision };
+      worker.postMessage({ id: 0, message });
+    },
     request(message: EngineRequest): Promise<Settled<C>> {
       const id = next++;
       return new Promise((resolve) => {

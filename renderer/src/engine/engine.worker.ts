@@ -6,10 +6,13 @@
  * Undo withdraws the newest override still in force (a logged withdrawal, reason "undo");
  * redo records that override again with its first reason. The log only ever grows.
  *
- * A change is answered with its view as soon as the values are computed, and then, in the
- * same task (so no later request can come between), with its record: the digest of the
- * whole result and the case text to autosave. Those two take most of the recompute's time
- * and the screen does not need them. A change becomes the open case only once recorded.
+ * A change is answered with its view as soon as the values are computed, and then with its
+ * record: the digest of the whole result and the case text to autosave. Those two take most of
+ * the recompute's time and the screen does not need them, so they wait until the page reports
+ * the values painted ('shown'), at the latest `RECORD_WAIT_MS`, and always run before the next
+ * request is handled (no later request can come between a change and its record). On a
+ * machine whose cores are busy, the digest then does not compete with the page's paint. A
+ * change becomes the open case only once recorded.
  */
 /// <reference lib="webworker" />
 import { columnMapOf, type CaseFile, type DayNumber } from '../../../core/case/case-file';
@@ -25,9 +28,8 @@ import type { Comparison } from '../../../core/compare/compare-tests';
 import { parseMapping, type ColumnMapping } from '../../../core/import/mapping';
 import type { ImportResult } from '../../../core/import/types';
 import { workbenchEngine, layoutKeyOf, mappingQuestion, needsMapping, type WorkbenchEngine } from './core-engine';
-import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, Reviewer, WireDay, WireReply, WireView } from './protocol';
-import type { ProcessedSeries } from '../../../core/model/analysis';
-import type { DayOutcome } from '../../../core/case/recompute';
+import type { CaseRecord, DayImportNotes, EngineReply, EngineRequest, EngineView, PageShown, Reviewer, WireReply, WireView } from './protocol';
+import { diffValue } from './view-patch';
 
 declare const self: DedicatedWorkerGlobalScope;
 
@@ -62,18 +64,13 @@ function bytesOf(base64: string): Uint8Array {
   return bytes;
 }
 
-/** The series each day's last posted view carried: the page holds them, so they are not sent again. */
-const sentSeries: { day1: ProcessedSeries | null; day2: ProcessedSeries | null } = { day1: null, day2: null };
+/** The view last posted: the page holds its copy, so the next view is sent as a patch against it. */
+let posted: EngineView<Comparison> | null = null;
 
-function wireDay(key: 'day1' | 'day2', day: DayOutcome): WireDay {
-  const series = day.analysis.series;
-  if (series === sentSeries[key]) return { ...day, analysis: { ...day.analysis, series: null } };
-  sentSeries[key] = series;
-  return day;
-}
-
-function wireView(view: EngineView<Comparison>): WireView<Comparison> {
-  return { ...view, day1: wireDay('day1', view.day1), day2: wireDay('day2', view.day2) };
+function wireView(view: EngineView<Comparison>): WireView {
+  const patch = diffValue(posted, view);
+  posted = view;
+  return patch;
 }
 
 function post(reply: EngineReply<Comparison>): void {
@@ -186,12 +183,32 @@ function applyChange(id: number, change: (state: OpenCase) => { ok: true; value:
   const changed = { revision: ++revisions, caseFile: next.value, redo: redoAfter(state) };
   post({ id, type: 'view', view: viewOf({ ...changed, imports: state.imports, values: values.value }, performance.now() - started) });
 
-  const recordStarted = performance.now();
-  const recorded = recordResults(values.value, next.value.log);
-  if (!recorded.ok) return post({ id, type: 'record-failed', error: recorded.error, view: viewOf({ ...state, values: state.outcome }, performance.now() - started) });
-  const kept: OpenCase = { ...state, ...changed, outcome: { ...values.value, recorded: recorded.value } };
-  open = kept;
-  post({ id, type: 'record', record: recordOf(kept, recordStarted) });
+  deferRecord(() => {
+    const recordStarted = performance.now();
+    const recorded = recordResults(values.value, next.value.log);
+    if (!recorded.ok) return post({ id, type: 'record-failed', error: recorded.error, view: viewOf({ ...state, values: state.outcome }, performance.now() - started) });
+    const kept: OpenCase = { ...state, ...changed, outcome: { ...values.value, recorded: recorded.value } };
+    open = kept;
+    post({ id, type: 'record', record: recordOf(kept, recordStarted) });
+  });
+}
+
+/** The longest a change's record waits for the page to report its values painted, ms (our choice: a hidden page paints nothing). */
+export const RECORD_WAIT_MS = 100;
+let pendingRecord: { run: () => void; timer: ReturnType<typeof setTimeout> } | null = null;
+
+function deferRecord(run: () => void): void {
+  recordNow();
+  pendingRecord = { run, timer: setTimeout(recordNow, RECORD_WAIT_MS) };
+}
+
+/** Records the change waiting for its record, if any. */
+function recordNow(): void {
+  const pending = pendingRecord;
+  if (!pending) return;
+  pendingRecord = null;
+  clearTimeout(pending.timer);
+  pending.run();
 }
 
 const stamp = (reviewer: Reviewer, at: string) => ({ who: reviewer.who, role: reviewer.role, at });
@@ -240,10 +257,12 @@ function crashed(id: number, error: unknown): void {
   post({ id, type: 'error', error: { code: 'analysis-crashed', file: 'analysis worker', line: null, column: null, message: `The analysis failed unexpectedly: ${error instanceof Error ? error.message : String(error)}` } });
 }
 
-self.addEventListener('message', (event: MessageEvent<{ id: number; message: EngineRequest }>) => {
+self.addEventListener('message', (event: MessageEvent<{ id: number; message: EngineRequest | PageShown }>) => {
   const { id, message } = event.data;
   try {
-    handle(id, message);
+    // A waiting record comes first: the page has painted its values, or a new request needs the recorded case.
+    recordNow();
+    if (message.type !== 'shown') handle(id, message);
   } catch (error) {
     crashed(id, error);
   }

@@ -3,15 +3,17 @@
  * core engine; the page sends intents and receives whole views to draw.
  *
  * Each state of the case has a revision number, increasing across the worker's life. A
- * change is answered in two messages: first its view (the values to draw), then its record
+ * change is answered in two messages: first its view (the values to draw, as a patch of what
+ * changed), then its record
  * (digest and case text, to autosave). The revision ties a record to its view, and lets
  * autosave refuse a case text older than one it has already written.
  */
 import type { FilePayload } from '../../../host/workbench/api';
 import type { LocatedError } from '../../../core/model/errors';
-import type { ProcessedSeries, TestAnalysis, ThresholdId } from '../../../core/model/analysis';
+import type { ThresholdId } from '../../../core/model/analysis';
 import type { AuditEntry, DayNumber } from '../../../core/case/case-file';
 import type { DayOutcome } from '../../../core/case/recompute';
+import type { Patch } from './view-patch';
 
 export interface Reviewer {
   readonly who: string;
@@ -54,18 +56,12 @@ export interface EngineView<C = unknown> {
 }
 
 /**
- * A view as the worker sends it: only what changed. A day's processed series (most of a
- * view's bytes) that is the same as in the previous view sent is left out (null), and the
- * page's client puts back its copy (client.ts); an override changes values, not the series.
+ * A view as the worker sends it: only what changed. The worker posts a patch of the view
+ * against the one it posted before (view-patch.ts), and the page's client applies it to its
+ * copy (client.ts): an override sends the moved threshold's values, the comparison rows that
+ * changed, the new log entry and the counters, not both days' analyses again.
  */
-export interface WireDay extends Omit<DayOutcome, 'analysis'> {
-  readonly analysis: Omit<TestAnalysis, 'series'> & { readonly series: ProcessedSeries | null };
-}
-export interface WireView<C = unknown> extends Omit<EngineView<C>, 'day1' | 'day2'> {
-  readonly day1: WireDay;
-  readonly day2: WireDay;
-}
-
+export type WireView = Patch | null;
 /** A case state's recorded form: what autosave writes, posted after the view of the same revision. */
 export interface CaseRecord {
   /** The shell's name for the case, as given when it was opened. */
@@ -91,6 +87,12 @@ export type EngineRequest =
   /** A sign-off entry in the reviewer log (core/case/review.ts `recordSignOff`). */
   | { readonly type: 'sign-off'; readonly statement: string; readonly reviewer: Reviewer; readonly at: string };
 
+/** The page has painted the values of `revision`: the worker may now record them (engine.worker.ts). Not answered. */
+export interface PageShown {
+  readonly type: 'shown';
+  readonly revision: number;
+}
+
 /** A reply as the page sees it (views whole). */
 export type EngineReply<C = unknown> =
   | { readonly id: number; readonly type: 'view'; readonly view: EngineView<C> }
@@ -108,5 +110,5 @@ export type EngineReply<C = unknown> =
 /** A reply as the worker posts it: views carry only what changed (WireView). */
 export type WireReply<C = unknown> =
   | Exclude<EngineReply<C>, { type: 'view' | 'record-failed' }>
-  | { readonly id: number; readonly type: 'view'; readonly view: WireView<C> }
-  | { readonly id: number; readonly type: 'record-failed'; readonly error: LocatedError; readonly view: WireView<C> };
+  | { readonly id: number; readonly type: 'view'; readonly view: WireView }
+  | { readonly id: number; readonly type: 'record-failed'; readonly error: LocatedError; readonly view: WireView };

@@ -18,12 +18,14 @@ import { ReviewerMark } from '../ui/reviewer-mark';
 
 interface Props {
   readonly view: EngineView<Comparison>;
+  /** The view the charts draw: the values' view once its values are painted (App.tsx); the values' own view when absent. */
+  readonly chartsView?: EngineView<Comparison> | null;
   readonly day: 1 | 2;
   readonly onDay: (day: 1 | 2) => void;
   readonly onSet: (day: 1 | 2, threshold: ThresholdId, givenAs: 'time' | 'vo2', value: number, reason: string) => Promise<void>;
   readonly onWithdraw: (seq: number, reason: string) => Promise<void>;
   readonly active: ReadonlyMap<OverrideKey, ActiveOverride>;
-  readonly renderMs: { readonly replyMs: number; readonly valuesMs: number; readonly chartsMs: number | null } | null;
+  readonly renderMs: { readonly revision: number; readonly replyMs: number; readonly valuesMs: number; readonly chartsMs: number | null } | null;
 }
 
 function ValuesRow({ label, at }: { label: string; at: ValuesAt | null }) {
@@ -44,8 +46,10 @@ function ValuesRow({ label, at }: { label: string; at: ValuesAt | null }) {
   );
 }
 
-export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, renderMs }: Props) {
+export function Breakpoints({ view, chartsView, day, onDay, onSet, onWithdraw, active, renderMs }: Props) {
   const outcome = day === 1 ? view.day1 : view.day2;
+  const drawn = chartsView ?? view;
+  const chartDay = day === 1 ? drawn.day1 : drawn.day2;
   const a = outcome.analysis;
   const [threshold, setThreshold] = useState<ThresholdId>('vt1');
   const [givenAs, setGivenAs] = useState<'time' | 'vo2'>('time');
@@ -53,7 +57,7 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
   const [reason, setReason] = useState('');
   const [withdrawReason, setWithdrawReason] = useState<Record<number, string>>({});
 
-  const charts = useMemo(() => ({ vslope: vSlopeChart(outcome), eq: equivalentsChart(outcome), et: endTidalChart(outcome) }), [outcome]);
+  const charts = useMemo(() => ({ vslope: vSlopeChart(chartDay), eq: equivalentsChart(chartDay), et: endTidalChart(chartDay) }), [chartDay]);
   const pick = (as: 'time' | 'vo2') => (x: number) => {
     setGivenAs(as);
     setValue(as === 'time' ? clock(x) : String(Math.round(x)));
@@ -137,7 +141,7 @@ export function Breakpoints({ view, day, onDay, onSet, onWithdraw, active, rende
               Set day {day} {threshold.toUpperCase()}
             </button>
             {/* Measurements for the timing tests: kept out of sight and out of the accessibility tree. */}
-            <p className="timing visually-hidden" data-testid="timing" aria-hidden="true">
+            <p className="timing visually-hidden" data-testid="timing" data-revision={renderMs?.revision} aria-hidden="true">
               Recomputed in <span data-testid="worker-ms">{fmt(view.updateMs, 1)}</span> ms (analysis worker)
               {renderMs && (
                 <>

@@ -37,10 +37,10 @@ describe('compareTests', () => {
     const lab = { origin: 'lab-stated' as const, description: 'band stated by the lab: x', population: 'p', retestInterval: '24 h', statistic: 's', source: 'x', entries: { vt1_vo2: { cvPct: 15, source: 'lab audit 2025' } } };
     const row = compareTests(day1, day2, DEFAULT_SETTINGS, lab).metrics.find((m) => m.id === 'vt1_vo2')!;
     expect(row.band).toMatchObject({ origin: 'lab-stated', cvPct: 15 });
-    // CV 15 %: band edge exp(−1.96·√2·ln 1.15) − 1 = −32.16 %; primary limit
-    // exp(−2.2414·√2·ln 1.15) − 1 = exp(−0.44302) − 1 = −35.79 %. −33.3 % lies between → undetermined
+    // CV 15 %: band edge exp(−1.96·√2·ln 1.15) − 1 = −32.16 %; the VT1 finding's limit
+    // exp(−2.152·√2·ln 1.15) − 1 = exp(−0.42535) − 1 = −34.65 %. −33.3 % lies between → undetermined
     expect(row.band!.lowPct).toBeCloseTo(-32.16, 1);
-    expect(row.interval!.limitLowPct).toBeCloseTo(-35.79, 1);
+    expect(row.interval!.limitLowPct).toBeCloseTo(-34.65, 1);
     expect(row.verdict).toBe('open');
   });
 });

@@ -53,10 +53,26 @@ describe('compareMetrics', () => {
     const d2 = { ...wide(1200), vt1: { ...wide(1200).vt1, ci95Vo2MlMin: [900, 1500] as const } };
     const row = find(compareMetrics(d1, d2), 'vt1_vo2');
     // s1 = ln(1900/1100)/3.92 = 0.1394, s2 = ln(1500/900)/3.92 = 0.1303, m = 0.1908;
-    // primary limit = −2.2414·√(0.0824² + 0.1908²) = −2.2414 · 0.2078 = −0.4658 → −37.2 %;
+    // the VT1 finding's limit = −2.152·√(0.0824² + 0.1908²) = −2.152 · 0.2078 = −0.4473 → −36.1 %;
     // r = ln 0.8 = −0.223 → not lower
     expect(row.verdict).toBe('open');
-    expect(row.interval!.limitLowPct).toBeCloseTo(-37.2, 0);
+    expect(row.interval!.limitLowPct).toBeCloseTo(-36.1, 0);
+  });
+
+  it('one rule for the facets of one finding: VO2/kg at VT1 gets the call of VO2 at VT1', () => {
+    // Same change (body mass unchanged: −20 %), same interval, same CV (6 %): a change between
+    // the secondary 1.96 limit and the finding's 2.152 limit was once "lower" for VO2/kg and
+    // "undetermined" for VO2. s = 0.05 per day, m = 0.0707: limits
+    // exp(−1.96·√(0.0824² + 0.0707²)) − 1 = −19.1 % and exp(−2.152·0.10859) − 1 = −20.8 %.
+    const at = (vo2: number) => {
+      const a = buildAnalysis({ vt1: { vo2MlMin: vo2, vo2MlKgMin: vo2 / 70, workW: 100 } });
+      return { ...a, vt1: { ...a.vt1, ci95Vo2MlMin: [vo2 * Math.exp(-1.96 * 0.05), vo2 * Math.exp(1.96 * 0.05)] as const } };
+    };
+    const rows = compareMetrics(at(1500), at(1500 * 0.8));
+    expect(find(rows, 'vt1_vo2').interval!.limitLowPct).toBeCloseTo(-20.8, 0);
+    expect(find(rows, 'vt1_vo2').verdict).toBe('open');
+    expect(find(rows, 'vt1_vo2_kg').verdict).toBe(find(rows, 'vt1_vo2').verdict);
+    expect(find(rows, 'vt1_vo2_kg').interval!.limitLowPct).toBeCloseTo(find(rows, 'vt1_vo2').interval!.limitLowPct, 9);
   });
 
   it('peak metrics are not comparable when either test was not maximal; threshold metrics still are', () => {
