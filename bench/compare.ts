@@ -3,7 +3,7 @@
  * `twofold compare --manifest` (read, import, analyse both days, compare, write the CSV).
  * The batch reuses 50 generated pairs (sample-tests/generator) written to a temp dir, each
  * listed 20 times in the manifest; every row is still read and analysed afresh.
- * The batch runs through the built command line (bin/twofold.mjs) in a new process, one
+ * The batch runs through the built command line (bin/twofold.cjs) in a new process, one
  * worker (the baseline) against one worker thread per core.
  * Run: npx tsx bench/run.ts compare
  */
