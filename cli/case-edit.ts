@@ -51,9 +51,9 @@ export async function withCaseFolder(io: CliIo, arg: string, lock: boolean, body
     return EXIT_BAD_INPUT;
   }
   const open = async (): Promise<number> => {
-    const textBefore = readFileSync(path, 'utf8');
     const loaded = loadCase(folder);
     if (!loaded.ok) return badInput(io, loaded.error);
+    const textBefore = readFileSync(path, 'utf8');
     return body({ folder, path, textBefore, caseFile: loaded.value.caseFile, raw: loaded.value.raw });
   };
   if (!lock) return open();

@@ -11,6 +11,7 @@ import { columnMapOf, type CaseFile, type DayNumber } from '../core/case/case-fi
 import { canonicalJson } from '../core/case/canonical-json';
 import { parseMapping, type ColumnMapping } from '../core/import/mapping';
 import { formatLocated } from '../core/model/errors';
+import { readProblem } from '../host/read-problem';
 
 export type GivenMaps = Readonly<Record<DayNumber, ColumnMapping | null>>;
 
@@ -22,7 +23,13 @@ export function readMapFlags(values: Readonly<Record<string, unknown>>, cwd: str
     if (typeof flag !== 'string') continue;
     const path = resolve(cwd, flag);
     if (!existsSync(path)) return { ok: false, message: `${path}:0:0: The column map file given with --day${day}-map does not exist.` };
-    const parsed = parseMapping(readFileSync(path, 'utf8'), path);
+    let text: string;
+    try {
+      text = readFileSync(path, 'utf8');
+    } catch (error) {
+      return { ok: false, message: `${path}:0:0: ${readProblem(error, `column map file given with --day${day}-map`)}` };
+    }
+    const parsed = parseMapping(text, path);
     if (!parsed.ok) return { ok: false, message: formatLocated(parsed.error) };
     maps[day] = parsed.value;
   }

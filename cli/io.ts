@@ -1,3 +1,5 @@
+import { readPasswordLine } from '../host/password';
+
 /** The terminal as the command line sees it; tests pass their own to capture output. */
 export interface CliIo {
   readonly out: (text: string) => void;
@@ -6,6 +8,8 @@ export interface CliIo {
   readonly cwd: string;
   /** True when stderr is an interactive terminal (progress bars, prompts). */
   readonly interactive: boolean;
+  /** The first line of standard input (a password given with --pass-stdin); undefined when empty. */
+  readonly stdinLine?: () => Promise<string | undefined>;
 }
 
 export const EXIT_OK = 0;
@@ -19,6 +23,7 @@ export function processIo(): CliIo {
     env: process.env,
     cwd: process.cwd(),
     interactive: Boolean(process.stderr.isTTY),
+    stdinLine: () => readPasswordLine(process.stdin),
   };
 }
 

@@ -4,7 +4,7 @@
  * different bytes is refused. The case file is replaced atomically. Loading validates the
  * case (schema and hash chain) and checks each raw copy against its recorded SHA-256.
  */
-import { existsSync, mkdirSync, readdirSync, readFileSync, unlinkSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, readdirSync, readFileSync, statSync, unlinkSync } from 'node:fs';
 import { readProblem } from './read-problem';
 import { dirname, join } from 'node:path';
 import type { CaseFile, RawInput } from '../core/case/case-file';
@@ -31,14 +31,28 @@ export function storeRaw(folder: string, input: RawInput, bytes: Uint8Array): Re
     if (sha256Hex(existing) === input.sha256) return ok(target);
     return fail(locatedError('raw-exists-different', target, null, null, `The case folder already holds a different file at ${input.storedAs}; raw files are never replaced, so nothing was written.`));
   }
-  mkdirSync(dirname(target), { recursive: true, mode: 0o700 });
+  privateFolder(dirname(target));
   writeFileAtomic(target, bytes);
   return ok(target);
 }
 
+/**
+ * Makes `folder` (and any missing parent) readable by this user only, 0700. A folder that
+ * already exists with wider bits (made by an older version, or by hand) is narrowed to 0700,
+ * as far as the file system lets this user change it.
+ */
+export function privateFolder(folder: string): void {
+  mkdirSync(folder, { recursive: true, mode: 0o700 });
+  try {
+    if ((statSync(folder).mode & 0o777) !== 0o700) chmodSync(folder, 0o700);
+  } catch {
+    // Not this user's folder, or a file system without POSIX bits: the files are still 0600.
+  }
+}
+
 export function saveCase(folder: string, caseFile: CaseFile, raw: RawBytes): Result<string> {
   // Case folders 0700 and files 0600 (writeFileAtomic): clinical data, readable by this user only.
-  mkdirSync(folder, { recursive: true, mode: 0o700 });
+  privateFolder(folder);
   const cut = logOnDiskNotContinued(caseFilePath(folder), caseFile);
   if (cut) return fail(cut);
   for (const [input, bytes] of [[caseFile.inputs.day1, raw.day1], [caseFile.inputs.day2, raw.day2]] as const) {
@@ -113,14 +127,16 @@ export function loadCase(folderOrFile: string): Result<LoadedCase> {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
-  } catch {
-    return fail(locatedError('case-unreadable', path, null, null, 'The case file could not be read (missing, or no permission).'));
+  } catch (error) {
+    return fail(locatedError('case-unreadable', path, null, null, readProblem(error, 'case file')));
   }
   const parsed = caseFromText(text, path);
   if (!parsed.ok) return parsed;
   const folder = dirname(path);
   removeStaleTemporaries(folder);
   removeStaleTemporaries(join(folder, 'raw'));
+  // The workbench exports reports into the case folder's reports/ with the same atomic write.
+  removeStaleTemporaries(join(folder, 'reports'));
   const read = (input: RawInput): Result<Uint8Array> => {
     const rawPath = join(folder, input.storedAs);
     let bytes: Uint8Array;

@@ -3,7 +3,8 @@
  * does the arithmetic (the RSA key, the certificate's SHA-256 with RSA signature, the
  * PKCS#12's encryption and MAC: pkcs12.ts); node-forge only lays out the X.509 fields. The
  * subject says plainly that it is a demonstration, and the report marks its signature as not
- * a clinical one.
+ * a clinical one. Its password is random for each certificate and lives only in memory beside
+ * the PKCS#12 bytes: neither is ever written (the demo writes the public certificate alone).
  */
 import { Buffer } from 'node:buffer';
 import { generateKeyPair, randomBytes, sign } from 'node:crypto';
@@ -21,7 +22,7 @@ export interface DemoCertificate {
 export const DEMO_COMMON_NAME = 'Twofold DEMONSTRATION certificate - not for clinical use';
 
 /** Asynchronous, so the key can be generated (off the main thread) while the case is analysed. */
-export async function demoCertificate(now: Date, passphrase = 'demo'): Promise<DemoCertificate> {
+export async function demoCertificate(now: Date, passphrase = randomBytes(18).toString('base64')): Promise<DemoCertificate> {
   const { privateKey, publicKey } = await promisify(generateKeyPair)('rsa', { modulusLength: 2048 });
   const cert = forge.pki.createCertificate();
   cert.publicKey = forge.pki.publicKeyFromPem(publicKey.export({ type: 'spki', format: 'pem' }).toString());

@@ -18,7 +18,9 @@ export function outputFileProblem(path: string): string | null {
     accessSync(folder, constants.W_OK);
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
-    return code === 'ENOENT' ? `The folder of this output, ${folder}, does not exist.` : `The folder of this output, ${folder}, cannot be written (no permission).`;
+    if (code === 'ENOENT') return `The folder of this output, ${folder}, does not exist.`;
+    if (code === 'ENOTDIR') return `The folder of this output, ${folder}, runs through a file that is not a folder.`;
+    return `The folder of this output, ${folder}, cannot be written (no permission).`;
   }
   return null;
 }
@@ -32,6 +34,7 @@ export function outputFolderProblem(path: string): string | null {
     return null;
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOTDIR') return 'This output folder runs through a file that is not a folder.';
     if (code !== 'ENOENT') return 'This output folder cannot be written (no permission).';
   }
   return outputFileProblem(path);

@@ -34,7 +34,8 @@ async function viteBuild(configFile, mode) {
 }
 
 const dataDir = process.env.TWOFOLD_DATA_DIR ?? join(process.env.XDG_DATA_HOME ?? join(homedir(), '.local', 'share'), 'twofold');
-mkdirSync(dataDir, { recursive: true });
+// Cases, certificates and mappings: this user's only (0700).
+mkdirSync(dataDir, { recursive: true, mode: 0o700 });
 
 register();
 const { ensureRenderer } = await import('../host/workbench/renderer-build.ts');

@@ -12,7 +12,8 @@ import { readBreathFile } from '../../core/import/read-table';
 import { implausibleData } from '../../core/import/sanity';
 import type { BreathTable, TestMetadata } from '../../core/model/breath-table';
 import type { ClinicalInputs, TestAnalysis, ThresholdResult } from '../../core/model/analysis';
-import { formatLocated, locatedError, type LocatedError } from '../../core/model/errors';
+import { fail, formatLocated, locatedError, type LocatedError, type Result } from '../../core/model/errors';
+import type { ImportResult } from '../../core/import/types';
 import { DEFAULT_SETTINGS, type Settings } from '../../core/model/settings';
 import { numberFlag, parseFlags } from '../args';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
@@ -120,9 +121,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   }
 
   const file = positionals[0];
-  const bytes = readBytes(resolve(io.cwd, file), file);
-  if (!(bytes instanceof Uint8Array)) return badInput(io, bytes);
-  const imported = await readBreathFile(bytes, { sourceName: file, settings });
+  const imported = await importFile(resolve(io.cwd, file), file, settings);
   if (!imported.ok) return badInput(io, imported.error);
 
   const impossible = implausibleData(imported.value.table.breaths, imported.value.flags, file, imported.value.columns.find((c) => c.variable === 'timeS')?.index ?? null);
@@ -136,6 +135,13 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     io.out(readable(analysis, importNotes));
   }
   return EXIT_OK;
+}
+
+/** Reads and imports the breath file in a frame of its own, so its bytes are released once the table is read. */
+async function importFile(path: string, shown: string, settings: Settings): Promise<Result<ImportResult>> {
+  const bytes = readBytes(path, shown);
+  if (!(bytes instanceof Uint8Array)) return fail(bytes);
+  return readBreathFile(bytes, { sourceName: shown, settings });
 }
 
 function badInput(io: CliIo, error: LocatedError): number {

@@ -7,7 +7,8 @@
  * `twofold compare --band` reads. An unreadable pair is reported with its place and skipped.
  * Exit 0 when the run completed, 2 for bad input, 1 otherwise.
  */
-import { writeFile } from 'node:fs/promises';
+import { writeFileAtomic } from '../../host/atomic-write';
+import { outputFileProblem } from '../../host/output-check';
 import { resolve } from 'node:path';
 import { repeatStats, type RepeatPair, type RepeatStats } from '../../core/compare/band-stats';
 import { writeDerivedBandFile } from '../../core/compare/band-file';
@@ -39,6 +40,14 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   }
   if (positionals.length !== 1) throw new UsageError(`expected one manifest file\n${USAGE}`);
   if (values.out === undefined) throw new UsageError(`--out FILE is required\n${USAGE}`);
+  // The band file's destination is checked before any test is analysed.
+  {
+    const outProblem = outputFileProblem(resolve(io.cwd, values.out));
+    if (outProblem) {
+      io.err(`${resolve(io.cwd, values.out)}:0:0: ${outProblem} Nothing was written.\n`);
+      return EXIT_BAD_INPUT;
+    }
+  }
   const settings = await loadSettings(values.settings, io);
   if (!settings.ok) {
     io.err(`${formatLocated(settings.error)}\n`);
@@ -89,7 +98,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const used = pairs.value.length - skipped;
   const text = writeDerivedBandFile(stats, `${used} repeat pairs from ${positionals[0]}`);
   try {
-    await writeFile(resolve(io.cwd, values.out), text);
+    writeFileAtomic(resolve(io.cwd, values.out), text);
   } catch (error) {
     io.err(`twofold band: cannot write ${values.out}: ${(error as Error).message}\n`);
     return EXIT_OTHER;

@@ -14,7 +14,9 @@
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { readFile, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
+import { writeFileAtomic } from '../../host/atomic-write';
+import { outputFileProblem } from '../../host/output-check';
 import { availableParallelism } from 'node:os';
 import { dirname, resolve } from 'node:path';
 import { createRequire } from 'node:module';
@@ -309,7 +311,7 @@ async function runBatch(manifestPath: string, outPath: string, settings: Setting
   const skipped = results.filter((r) => r.error !== null);
   for (const r of skipped) io.err(`skipped ${r.error}\n`);
   try {
-    await writeFile(resolve(io.cwd, outPath), `${[resultsHeader(), ...results.map((r) => r.row)].join('\n')}\n`);
+    writeFileAtomic(resolve(io.cwd, outPath), `${[resultsHeader(), ...results.map((r) => r.row)].join('\n')}\n`);
   } catch (error) {
     io.err(`twofold compare: cannot write ${outPath}: ${(error as Error).message}\n`);
     return EXIT_OTHER;
@@ -348,6 +350,14 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (values.manifest !== undefined) {
     if (positionals.length > 0) throw new UsageError(`give either --manifest or two files, not both\n${USAGE}`);
     if (values.out === undefined) throw new UsageError(`--manifest needs --out FILE for the results\n${USAGE}`);
+    // The results file's destination is checked before any pair is analysed.
+    {
+      const outProblem = outputFileProblem(resolve(io.cwd, values.out));
+      if (outProblem) {
+        io.err(`${resolve(io.cwd, values.out)}:0:0: ${outProblem} Nothing was written.\n`);
+        return EXIT_BAD_INPUT;
+      }
+    }
     if (values.json) throw new UsageError('--json is for a single pair; a batch writes its results to --out');
     const workers = values.workers === undefined ? availableParallelism() : Number(values.workers);
     if (!Number.isInteger(workers) || workers < 1) throw new UsageError(`--workers expects a whole number of at least 1, got '${values.workers}'`);

@@ -5,7 +5,9 @@
  * and can save the column map it used so the next file from the same cart imports with
  * no questions. Exit 0 when the file was read, 2 for bad input, 1 for anything else.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { writeFileAtomic } from '../../host/atomic-write';
+import { outputFileProblem } from '../../host/output-check';
 import { resolve } from 'node:path';
 import { formatLocated, type LocatedError } from '../../core/model/errors';
 import { mappingFromImport, parseMapping, serializeMapping, type ColumnMapping } from '../../core/import/mapping';
@@ -114,6 +116,15 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   }
   if (positionals.length !== 1) throw new UsageError(`expects one breath file\n${USAGE}`);
   const file = positionals[0];
+  // The column map's destination is checked before the file is read, so a bad path is exit 2.
+  if (values['save-mapping']) {
+    const target = resolve(io.cwd, values['save-mapping']);
+    const outProblem = outputFileProblem(target);
+    if (outProblem) {
+      io.err(`${target}:0:0: ${outProblem}\n`);
+      return EXIT_BAD_INPUT;
+    }
+  }
 
   let mapping: ColumnMapping | null = null;
   if (values.mapping) {
@@ -144,7 +155,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const save = values['save-mapping'];
   if (save) {
     try {
-      writeFileSync(resolve(io.cwd, save), serializeMapping(mappingFromImport(result.value)));
+      writeFileAtomic(resolve(io.cwd, save), serializeMapping(mappingFromImport(result.value)));
     } catch (error) {
       io.err(`twofold inspect: cannot write the column map to ${save}: ${error instanceof Error ? error.message : String(error)}\n`);
       return EXIT_OTHER;

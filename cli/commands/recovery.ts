@@ -32,6 +32,7 @@ import type { Result } from '../../core/model/errors';
 import { parseFlags } from '../args';
 import { badInput, nowStamp, saveRecorded, withCaseFolder, type OpenedCase } from '../case-edit';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
+import { readProblem } from '../../host/read-problem';
 
 const USAGE = `usage: twofold recovery CASE_FOLDER --test 1|2 --hours H --by WHO --how in-person|phone|form
                         --usual yes|no [--rate DOMAIN=N ...] [--note TEXT]
@@ -191,8 +192,8 @@ function record(io: CliIo, opened: OpenedCase, values: Values, mode: ReturnType<
     let text: string;
     try {
       text = readFileSync(sheetPath, 'utf8');
-    } catch {
-      io.err(`${sheetPath}:0:0: The follow-up sheet cannot be read (missing, or no permission).\n`);
+    } catch (error) {
+      io.err(`${sheetPath}:0:0: ${readProblem(error, 'follow-up sheet')}\n`);
       return EXIT_BAD_INPUT;
     }
     const rows = readFollowUpSheet(text, sheetPath);

@@ -1,15 +1,17 @@
 /**
  * `twofold report`: build the PDF report of a pair, and sign it with the lab's certificate.
  *
- *   twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
+ *   twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 [--pass-stdin | --pass-env VAR]]
  *                  [--reviewer "Name, credential"] [--paper a4|letter] [--locale TAG]
  *                  [--dayN-rest-hr BPM --dayN-lactate MMOL --dayN-rpe N
  *                   --dayN-fev1-l L | --dayN-mvv-l-min L_MIN] [--amend-clinical]
  *
  * The case folder (default: REPORT-case/ beside the report) holds twofold-case.json and the
  * raw copies; an existing case is reopened (its reviewer log kept) and must be of the same two
- * files. The certificate password comes from the environment variable named by --pass-env,
- * or from a prompt on an interactive terminal; never from the command line.
+ * files. The certificate password comes from a prompt on an interactive terminal (no echo),
+ * the first line of standard input (--pass-stdin) or the environment variable named by
+ * --pass-env; never from the command line, and it is never written anywhere (docs/report.md
+ * weighs the three).
  *
  * Clinical inputs (what the lab recorded beside each breath file) go into the case's
  * `clinical.day1` / `clinical.day2`. A reopened case keeps the inputs it recorded; a flag
@@ -34,15 +36,16 @@ import { formatLocated } from '../../core/model/errors';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { resealOpening, reviewerEntries } from '../../core/case/opening';
 import { outputFileProblem } from '../../host/output-check';
+import { readProblem } from '../../host/read-problem';
 import { CASE_FILE_NAME, caseFilePath, loadCase } from '../../host/case-folder';
-import { readPassword } from '../../host/password';
+import { MAX_PASSWORD_CHARS, readPassword } from '../../host/password';
 import { readRaw, runReportJob } from '../../host/report-job';
 import { numberFlag, parseFlags } from '../args';
 import { differingMaps, readMapFlags } from '../column-maps';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 import { localeFromEnvironment, REPORT_LOCALES, resolveLocale } from '../../core/locale/locales';
 
-const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 --pass-env VAR]
+const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] [--sign FILE.p12 [--pass-stdin | --pass-env VAR]]
                       [--reviewer "Name, credential"] [--paper a4|letter] [--locale TAG]
                       [--day1-rest-hr BPM] [--day1-lactate MMOL] [--day1-rpe N]
                       [--day1-fev1-l L | --day1-mvv-l-min L_MIN]   (and the same for --day2-…)
@@ -52,8 +55,9 @@ const USAGE = `usage: twofold report DAY1 DAY2 --out REPORT.pdf [--case FOLDER] 
   --case FOLDER     the case folder (or its twofold-case.json) to reopen or create
                     (default: REPORT-case/ beside the report)
   --sign FILE.p12   sign with this PKCS#12 certificate (the lab's)
+  --pass-stdin      read the certificate password from the first line of standard input
   --pass-env VAR    read the certificate password from environment variable VAR
-                    (without it, Twofold asks on the terminal)
+                    (without either, Twofold asks on the terminal, without echo)
   --reviewer TEXT   "Name, credential" printed in the signature block
   --paper a4|letter page size for a new case (default a4)
   --locale TAG      decimal mark, thousands separator and date order of the report's
@@ -167,6 +171,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     case: { type: 'string' },
     sign: { type: 'string' },
     'pass-env': { type: 'string' },
+    'pass-stdin': { type: 'boolean' },
     reviewer: { type: 'string' },
     paper: { type: 'string' },
     'amend-clinical': { type: 'boolean' },
@@ -183,6 +188,8 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 2 || !values.out) throw new UsageError(`expected DAY1 DAY2 and --out\n\n${USAGE}`);
   if (values.paper !== undefined && values.paper !== 'a4' && values.paper !== 'letter') throw new UsageError(`--paper expects a4 or letter, got '${values.paper}'`);
   if (values['pass-env'] && !values.sign) throw new UsageError('--pass-env needs --sign FILE.p12');
+  if (values['pass-stdin'] && !values.sign) throw new UsageError('--pass-stdin needs --sign FILE.p12');
+  if (values['pass-stdin'] && values['pass-env']) throw new UsageError('give either --pass-stdin or --pass-env, not both');
   const givenLocale = values.locale === undefined ? null : resolveLocale(values.locale);
   if (values.locale !== undefined && givenLocale === null) throw new UsageError(`--locale: Twofold has no number and date format for '${values.locale}' (known: ${REPORT_LOCALES.map((l) => l.tag).join(', ')})`);
   const given: Record<DayNumber, GivenClinical> = { 1: givenClinical(values, 1), 2: givenClinical(values, 2) };
@@ -270,16 +277,33 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   let certificate = null;
   if (values.sign) {
     const p12Path = resolve(io.cwd, values.sign);
-    if (!existsSync(p12Path)) {
-      io.err(`${p12Path}:0:0: The certificate file does not exist.\n`);
+    // Read before the password is asked for: a folder or an unreadable file is exit 2, at once.
+    let p12: Uint8Array;
+    try {
+      p12 = new Uint8Array(readFileSync(p12Path));
+    } catch (error) {
+      io.err(`${p12Path}:0:0: ${readProblem(error, 'certificate file')}\n`);
       return EXIT_BAD_INPUT;
     }
-    const passphrase = values['pass-env'] ? io.env[values['pass-env']] : io.interactive ? await readPassword(`Password for ${basename(p12Path)}: `) : undefined;
-    if (passphrase === undefined) {
-      io.err(values['pass-env'] ? `twofold report: the environment variable ${values['pass-env']} is not set.\n` : 'twofold report: no terminal to ask for the certificate password; use --pass-env VAR.\n');
+    const envName = values['pass-env'];
+    const passphrase = envName
+      ? io.env[envName]
+      : values['pass-stdin']
+        ? await io.stdinLine?.()
+        : io.interactive
+          ? await readPassword(`Password for ${basename(p12Path)}: `)
+          : undefined;
+    if (passphrase === undefined || passphrase === '') {
+      io.err(
+        envName
+          ? `twofold report: the environment variable ${envName} is not set or empty.\n`
+          : values['pass-stdin']
+            ? `twofold report: --pass-stdin: standard input held no password line (empty, or longer than ${MAX_PASSWORD_CHARS} characters).\n`
+            : 'twofold report: no terminal to ask for the certificate password; use --pass-stdin or --pass-env VAR.\n',
+      );
       return EXIT_BAD_INPUT;
     }
-    certificate = { p12: new Uint8Array(readFileSync(p12Path)), passphrase, name: p12Path, kind: 'lab' as const };
+    certificate = { p12, passphrase, name: p12Path, kind: 'lab' as const };
   }
 
   const result = await runReportJob({ caseFile, raw: { day1: day1.bytes, day2: day2.bytes }, caseFolder: folder, outPath: out, reviewer: values.reviewer ?? null, certificate, now });

@@ -38,8 +38,8 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
     const path = issue.path.map(String).join('.');
-    const last = issue.path[issue.path.length - 1];
-    return fail(locatedError('case-invalid', file, typeof last === 'string' ? lineOfKey(text, last, 0) : null, null, `The case file's field ${path || '(top level)'} is not valid: ${issue.message}.`));
+    const place = placeOfPath(text, issue.path);
+    return fail(locatedError('case-invalid', file, place?.line ?? null, place?.column ?? null, `The case file's field ${path || '(top level)'} is not valid: ${issue.message}.`));
   }
   const read = parsed.data as CaseFile;
   // A case file from before opening entries, with an empty log, is migrated (opening.ts).
@@ -59,6 +59,24 @@ function lineColumn(text: string, offset: number): { line: number; column: numbe
 function lineOfKey(text: string, key: string, from: number): number | null {
   const i = text.indexOf(`"${key}":`, from);
   return i < 0 ? null : lineColumn(text, i).line;
+}
+
+/**
+ * Line and column (1-based) of the key a schema issue names, found by following its path
+ * key by key through the text (each key searched after the one before; array indices are
+ * stepped over), so `inputs.day2.name` points at day 2's name, not day 1's. Null when the
+ * path has no key (an issue with the whole file) or a key is not in the text.
+ */
+function placeOfPath(text: string, path: readonly PropertyKey[]): { line: number; column: number } | null {
+  let at = 0;
+  let found = -1;
+  for (const key of path) {
+    if (typeof key !== 'string') continue;
+    found = text.indexOf(`"${key}":`, at);
+    if (found < 0) return null;
+    at = found + key.length + 3;
+  }
+  return found < 0 ? null : lineColumn(text, found);
 }
 
 /** Line of the log entry numbered `seq`, as `caseToText` lays it out. */

@@ -22,7 +22,7 @@
 import type { ProcessedSeries, TestAnalysis } from '../model/analysis';
 import type { Settings } from '../model/settings';
 import { linearFit } from '../math/linear-fit';
-import { mean } from '../math/stats';
+import { maxOf, mean, minOf } from '../math/stats';
 
 export type MatchedVariable = 'vo2MlMin' | 'hrBpm' | 'veLMin' | 'rer' | 'veVco2';
 export const MATCHED_VARIABLES: readonly MatchedVariable[] = ['vo2MlMin', 'hrBpm', 'veLMin', 'rer', 'veVco2'];
@@ -103,7 +103,7 @@ function readAtWork(ramp: RampSeries, variable: MatchedVariable, targetW: number
     }
   }
   if (xs.length === 0) return { value: null, reading: 'none' };
-  const spread = Math.max(...xs) - Math.min(...xs);
+  const spread = maxOf(xs) - minOf(xs);
   const fit = xs.length >= FIT_MIN_POINTS && spread >= FIT_MIN_SPREAD * halfW ? linearFit(xs, ys) : null;
   if (fit) return { value: fit.intercept + fit.slope * targetW, reading: 'local-fit' };
   return { value: mean(ys), reading: 'window-mean' };

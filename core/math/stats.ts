@@ -30,3 +30,21 @@ export function quantile(values: readonly number[], p: number): number {
 export function median(values: readonly number[]): number {
   return quantile(values, 0.5);
 }
+
+/**
+ * The smallest value, as `Math.min(...values)` gives it (NaN if any value is NaN, Infinity
+ * when empty), without spreading the array into call arguments, which overflows the call
+ * stack for arrays of a few hundred thousand values.
+ */
+export function minOf(values: ArrayLike<number>): number {
+  let m = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < values.length; i++) m = Math.min(m, values[i]);
+  return m;
+}
+
+/** The largest value, as `Math.max(...values)` gives it, for arrays of any length (see minOf). */
+export function maxOf(values: ArrayLike<number>): number {
+  let m = Number.NEGATIVE_INFINITY;
+  for (let i = 0; i < values.length; i++) m = Math.max(m, values[i]);
+  return m;
+}

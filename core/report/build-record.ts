@@ -72,7 +72,7 @@ export function parseBuildRecord(text: string, file: string): Result<BuildRecord
  */
 export function logShortenedFrom(caseFile: Pick<CaseFile, 'log'>, head: LogHead): string | null {
   if (caseFile.log.length < head.entries) {
-    return `The case's reviewer log has ${caseFile.log.length} entries, but a report made from it recorded ${head.entries}: entries were removed after that report was made.`;
+    return `The case's reviewer log has ${caseFile.log.length} ${caseFile.log.length === 1 ? 'entry' : 'entries'}, but a report made from it recorded ${head.entries}: entries were removed after that report was made.`;
   }
   if (head.entries > 0 && caseFile.log[head.entries - 1].hash !== head.lastHash) {
     return `The case's reviewer log entry ${head.entries} is not the one a report made from it recorded (hash ${String(head.lastHash).slice(0, 12)}…): the history was rewritten after that report was made.`;

@@ -15,6 +15,8 @@ import type { ThresholdPoint } from '../case/case-file';
 import type { ReportLocale } from '../locale/locales';
 import { DAY_STYLE, INK, SERIES_STYLE, THRESHOLD_STYLE, VSLOPE_STYLE, type LineStyle } from '../palette';
 import { vslopeView } from './vslope-view';
+import { maxOf, minOf } from '../math/stats';
+import { drawingStep, everyNth, thinnedNote } from './thin';
 
 /** The days' colours, from the shared palette (kept under this name for existing callers). */
 export const DAY_COLORS = { day1: DAY_STYLE[1].colour, day2: DAY_STYLE[2].colour } as const;
@@ -115,16 +117,22 @@ export function vslopeSpec(a: TestAnalysis, used: ChartThresholds, title: string
     dashes.push([...style.dash]);
   }
   const marks: Mark[] = view.vt1Vo2MlMin !== null ? [{ value: view.vt1Vo2MlMin, label: `VT1 ${Math.round(view.vt1Vo2MlMin)}`, style: THRESHOLD_STYLE.vt1 }] : [];
+  const step = drawingStep([view.analysed.length + view.outside.length]);
+  const analysed = everyNth(view.analysed, step);
+  const outside = everyNth(view.outside, step);
+  const note = thinnedNote(step, analysed.length + outside.length, view.analysed.length + view.outside.length);
+  const subtitle = view.fitLabel ? [`fit: ${view.fitLabel}`, 'faint points: ramp above VT2, not fitted'] : ['no V-slope fit found'];
+  if (note) subtitle.push(note);
   const x = { field: 'vo2', type: 'quantitative', title: 'VO₂ (mL/min)', scale };
   const y = { field: 'vco2', type: 'quantitative', title: 'VCO₂ (mL/min)', scale };
   return {
     width: size,
     height: size,
-    title: { text: title, subtitle: view.fitLabel ? [`fit: ${view.fitLabel}`, 'faint points: ramp above VT2, not fitted'] : ['no V-slope fit found'], subtitleFontSize: 7, subtitleColor: '#5b6575' },
+    title: { text: title, subtitle, subtitleFontSize: 7, subtitleColor: '#5b6575' },
     config: { ...CONFIG, legend: { ...CONFIG.legend, orient: 'bottom', direction: 'vertical', symbolType: 'stroke', symbolStrokeWidth: 1.6, labelLimit: 220 } },
     layer: [
-      { data: { values: view.outside.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 5, filled: true, color: VSLOPE_STYLE.outside, clip: true }, encoding: { x, y } },
-      { data: { values: view.analysed.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 6, filled: true, opacity: 0.5, color: VSLOPE_STYLE.analysed, clip: true }, encoding: { x, y } },
+      { data: { values: outside.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 5, filled: true, color: VSLOPE_STYLE.outside, clip: true }, encoding: { x, y } },
+      { data: { values: analysed.map(([v, c]) => ({ vo2: v, vco2: c })) }, mark: { type: 'point', size: 6, filled: true, opacity: 0.5, color: VSLOPE_STYLE.analysed, clip: true }, encoding: { x, y } },
       {
         data: { values: lineRows },
         mark: { type: 'line', strokeWidth: 1.5, clip: true },
@@ -144,7 +152,10 @@ export function vslopeSpec(a: TestAnalysis, used: ChartThresholds, title: string
 /** Two series of one day against time (min), with VT1 and VT2 marked. */
 function againstTimeSpec(a: TestAnalysis, used: ChartThresholds, title: string, yTitle: string, series: { name: string; values: readonly (number | null)[]; style: LineStyle }[], width: number, height: number): Spec {
   const rows: Row[] = [];
-  for (const i of incrementalIndices(a)) {
+  const ramp = incrementalIndices(a);
+  const step = drawingStep([ramp.length]);
+  const drawn = everyNth(ramp, step);
+  for (const i of drawn) {
     for (const s of series) {
       const v = s.values[i];
       if (v !== null && Number.isFinite(v)) rows.push({ t: a.series.timeS[i], value: v, series: s.name });
@@ -154,12 +165,13 @@ function againstTimeSpec(a: TestAnalysis, used: ChartThresholds, title: string, 
   if (used.vt1) marks.push({ value: used.vt1.timeS, label: 'VT1', style: THRESHOLD_STYLE.vt1 });
   if (used.vt2) marks.push({ value: used.vt2.timeS, label: 'VT2', style: THRESHOLD_STYLE.vt2 });
   const ts = rows.map((r) => r.t as number);
-  const lo = ts.length > 0 ? Math.min(...ts) : 0;
-  const hi = ts.length > 0 ? Math.max(...ts) : 60;
+  const lo = ts.length > 0 ? minOf(ts) : 0;
+  const hi = ts.length > 0 ? maxOf(ts) : 60;
+  const note = thinnedNote(step, drawn.length, ramp.length);
   return {
     width,
     height,
-    title,
+    title: note ? { text: title, subtitle: note, subtitleFontSize: 7, subtitleColor: '#5b6575' } : title,
     config: CONFIG,
     layer: [
       {
@@ -196,21 +208,28 @@ export function endTidalSpec(a: TestAnalysis, used: ChartThresholds, title: stri
 /** One variable of both days against workload, over each incremental phase up to its highest load (the fall of the averaged load into recovery is left out). */
 export function overlaySpec(day1: TestAnalysis, day2: TestAnalysis, variable: 'vo2MlMin' | 'hrBpm', title: string, width: number, height: number): Spec {
   const rows: Row[] = [];
-  for (const [name, a] of [['day 1', day1], ['day 2', day2]] as const) {
+  const ramps = ([['day 1', day1], ['day 2', day2]] as const).map(([name, a]) => {
     const ramp = incrementalIndices(a);
     let top = -1;
     for (const i of ramp) if (top < 0 || (a.series.workW[i] ?? -Infinity) > (a.series.workW[top] ?? -Infinity)) top = i;
-    for (const i of ramp) {
-      if (i > top) break;
+    return { name, a, upToTop: ramp.filter((i) => i <= top) };
+  });
+  const step = drawingStep(ramps.map((r) => r.upToTop.length));
+  let drawnCount = 0;
+  for (const { name, a, upToTop } of ramps) {
+    const drawn = everyNth(upToTop, step);
+    drawnCount += drawn.length;
+    for (const i of drawn) {
       const w = a.series.workW[i];
       const v = a.series[variable][i];
       if (w !== null && v !== null && Number.isFinite(w) && Number.isFinite(v)) rows.push({ work: w, value: v, day: name, t: a.series.timeS[i] });
     }
   }
+  const note = thinnedNote(step, drawnCount, ramps.reduce((n, r) => n + r.upToTop.length, 0));
   return {
     width,
     height,
-    title,
+    title: note ? { text: title, subtitle: note, subtitleFontSize: 7, subtitleColor: '#5b6575' } : title,
     config: CONFIG,
     data: { values: rows },
     mark: { type: 'line', strokeWidth: 1.2 },

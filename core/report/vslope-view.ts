@@ -9,6 +9,7 @@
  */
 import type { ThresholdPoint } from '../case/case-file';
 import type { LineSegment, MethodOutcome, TestAnalysis } from '../model/analysis';
+import { maxOf, minOf } from '../math/stats';
 
 export interface VslopeLine {
   readonly part: 'below' | 'above';
@@ -63,7 +64,7 @@ export function vslopeView(a: TestAnalysis, used: { readonly vt1: ThresholdPoint
   const segments = fit ? [...fit.evidence.segments].sort((p, q) => p.x0 - q.x0) : [];
   const lines = segments.length >= 2 ? [lineOf('below', segments[0]), lineOf('above', segments[segments.length - 1])] : [];
   const all = [...analysed, ...outside].flat();
-  const lo = all.length > 0 ? Math.min(...all) : 0;
-  const hi = all.length > 0 ? Math.max(...all) : 1000;
+  const lo = all.length > 0 ? minOf(all) : 0;
+  const hi = all.length > 0 ? maxOf(all) : 1000;
   return { analysed, outside, windowS: [start, upper], lines, fitLabel: fit ? fit.label : null, range: roundOut(lo, hi), vt1Vo2MlMin: used.vt1?.vo2MlMin ?? null };
 }

@@ -24,6 +24,7 @@ import { sharedKnotFit } from './shared-knot';
 import { locallySmoothed, locallySmoothedVo2 } from './smooth-vo2';
 import { vslopeSlopeReason } from './vslope-hinge';
 import { windowPoints } from './window';
+import { maxOf, minOf } from '../math/stats';
 
 /** Half-width of the VO2 smoother, s (our choice, on development seeds). */
 export const SMOOTH_HALF_WIDTH_S = 60;
@@ -90,6 +91,6 @@ export const detect: Detector = (input) => {
     found: true,
     timeS,
     vo2MlMin: fit.knot,
-    evidence: hingeEvidence('vo2MlMin', 'vco2MlMin', [Math.min(...x), Math.max(...x)], { knot: fit.knot, intercept: co2.intercept, slopeBefore: co2.slopeBefore, slopeAfter: co2.slopeAfter, rss: co2.rss, n: fit.n }),
+    evidence: hingeEvidence('vo2MlMin', 'vco2MlMin', [minOf(x), maxOf(x)], { knot: fit.knot, intercept: co2.intercept, slopeBefore: co2.slopeBefore, slopeAfter: co2.slopeAfter, rss: co2.rss, n: fit.n }),
   };
 };

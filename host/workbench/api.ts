@@ -42,6 +42,11 @@ export const signerInfo = z.object({
   label: z.string(),
   /** True for the built-in demonstration certificate: reports signed with it say so. */
   demonstration: z.boolean(),
+  /**
+   * True when signing needs the certificate's password and the workbench does not hold it:
+   * the password is asked for and kept in the host's memory only while the workbench is open.
+   */
+  needsPassword: z.boolean(),
 });
 export type SignerInfo = z.infer<typeof signerInfo>;
 
@@ -124,7 +129,9 @@ export const HOST_METHODS = {
   },
   /** Builds the report from the saved case, signs it, writes it into the case folder. */
   exportReport: {
-    request: z.object({ caseId, signerId: signerInfo.shape.id, reviewer: z.string().min(1).max(200), locale: z.string().max(35).optional() }),
+    // password: the lab certificate's, when the host does not hold it yet (listSigners says);
+    // kept in memory only, never written.
+    request: z.object({ caseId, signerId: signerInfo.shape.id, reviewer: z.string().min(1).max(200), locale: z.string().max(35).optional(), password: z.string().min(1).max(1024).optional() }),
     response: z.object({ fileName: z.string(), path: z.string(), bytes: z.number().int(), demonstration: z.boolean() }),
   },
   /** Checks a signed report: either one in a case folder, or bytes the user chose. */

@@ -34,9 +34,11 @@ export function findChromium(candidates: readonly string[] = ['/usr/bin/chromium
   return candidates.find((path) => existsSync(path)) ?? null;
 }
 
-/** Opens the address as an app window; returns null when there is no Chromium or no display. */
-export function openAppWindow(url: string, env: Readonly<Record<string, string | undefined>>): ChildProcess | null {
-  const chromium = findChromium();
+/**
+ * Opens the address as an app window; returns null when there is no Chromium or no display.
+ * `chromium`: the browser to start (found on this machine unless given).
+ */
+export function openAppWindow(url: string, env: Readonly<Record<string, string | undefined>>, chromium: string | null = findChromium()): ChildProcess | null {
   if (!chromium || !(env.DISPLAY || env.WAYLAND_DISPLAY)) return null;
   const profile = mkdtempSync(join(tmpdir(), 'twofold-chromium-'));
   const launch = writeLaunchPage(url);

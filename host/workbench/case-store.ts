@@ -11,7 +11,7 @@
  * (schema and hash chain) before it replaces the file atomically: a damaged or forged case
  * never reaches the disk, and a kill mid-save leaves the previous version intact.
  */
-import { mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { readdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BridgeError, CaseSummary, FilePayload } from './api';
 import type { ClinicalInputs } from '../../core/model/analysis';
@@ -20,7 +20,7 @@ import { newCase } from '../../core/case/new-case';
 import { sha256Hex } from '../../core/case/sha256';
 import { caseFromText, caseToText } from '../../core/case/case-text';
 import { reviewerEntries } from '../../core/case/opening';
-import { loadCase, saveCase } from '../case-folder';
+import { loadCase, privateFolder, saveCase } from '../case-folder';
 import { writeFileAtomic } from '../atomic-write';
 
 export interface CaseStoreDeps {
@@ -73,7 +73,7 @@ export function createCaseStore(deps: CaseStoreDeps) {
       const folder = folderOf(caseId);
       const raw = { day1: bytesOf(day1), day2: bytesOf(day2) };
       const caseFile = newCase(now.toISOString(), { name: day1.name, bytes: raw.day1 }, { name: day2.name, bytes: raw.day2 }, settings, clinical);
-      mkdirSync(join(folder, 'reports'), { recursive: true });
+      privateFolder(join(folder, 'reports'));
       const saved = saveCase(folder, caseFile, raw);
       if (!saved.ok) return saved;
       writeInfo(caseId, { title, savedAt: now.toISOString() });

@@ -4,7 +4,8 @@
  * verifying belong to core/report and host/, wired in `wiring.ts`) and turns every failure
  * into a located error value for the renderer.
  */
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { privateFolder } from '../case-folder';
 import { join } from 'node:path';
 import type { BridgeError, FilePayload, HostReply, HostService, SignerInfo } from './api';
 import { createCaseStore } from './case-store';
@@ -24,6 +25,8 @@ export interface ReportRequest {
   /** Where the signed PDF is written (atomically). */
   readonly outPath: string;
   readonly signerId: string;
+  /** The certificate's password as the user typed it for this export, if they did. */
+  readonly password?: string;
   readonly reviewer: string;
   readonly now: Date;
   /** The number and date format the report is written in (core/locale/); absent keeps the case's. */
@@ -95,9 +98,9 @@ export function createWorkbenchService(deps: ServiceDeps): HostService {
         const stamp = now.toISOString().slice(0, 19).replace(/[-:]/g, '').replace('T', '-');
         const fileName = `twofold-report-${stamp}${demonstration ? '-DEMONSTRATION' : ''}.pdf`;
         const dir = cases.reportsDir(r.caseId);
-        mkdirSync(dir, { recursive: true });
+        privateFolder(dir);
         const path = join(dir, fileName);
-        const built = await deps.report.build({ folder: cases.folderOf(r.caseId), outPath: path, signerId: r.signerId, reviewer: r.reviewer, now, locale: r.locale });
+        const built = await deps.report.build({ folder: cases.folderOf(r.caseId), outPath: path, signerId: r.signerId, password: r.password, reviewer: r.reviewer, now, locale: r.locale });
         if (!built.ok) return built;
         return ok({ fileName, path, bytes: built.bytes, demonstration: built.demonstration });
       }),

@@ -8,13 +8,16 @@
  * so a report can be checked against it (`twofold verify --trust` that file). Verifying in the
  * workbench trusts the certificates in `<dataDir>/trust/*.pem` (the lab's CA or its own
  * certificates, placed there by the lab) and this session's demonstration certificate, and
- * nothing else. A lab certificate is a PKCS#12 file
- * `<dataDir>/certificates/<id>.p12` with its passphrase in `<id>.passphrase` beside it.
+ * nothing else. A lab certificate is a PKCS#12 file `<dataDir>/certificates/<id>.p12`. Its
+ * password is never on disk: the renderer asks for it once, and the host keeps it in this
+ * process's memory (a Map, gone when the workbench closes) after it has signed with it. A
+ * password file an older version kept beside the certificate (`<id>.passphrase`) is refused:
+ * never read, and named in the signer's label so the lab deletes it (docs/workbench.md).
  */
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { FilePayload, HostService, SignerInfo } from './api';
+import type { BridgeError, FilePayload, HostService, SignerInfo } from './api';
 import { createWorkbenchService, type ReportPort } from './service';
 import type { Certificate } from '../report-job';
 import { demoCertificate, type DemoCertificate } from '../demo-certificate';
@@ -43,7 +46,7 @@ export function createReportPort(dataDir: string, now: () => Date, limitMs?: num
   let demo: Promise<DemoCertificate> | null = null;
   const demoCert = (): Promise<DemoCertificate> => {
     demo ??= demoCertificate(now()).then((made) => {
-      mkdirSync(certDir, { recursive: true });
+      mkdirSync(certDir, { recursive: true, mode: 0o700 });
       writeFileSync(join(certDir, 'demo-certificate.pem'), made.certificatePem);
       return made;
     });
@@ -53,31 +56,49 @@ export function createReportPort(dataDir: string, now: () => Date, limitMs?: num
     if (!existsSync(certDir)) return [];
     return readdirSync(certDir)
       .filter((n) => n.endsWith('.p12') && /^[a-z0-9-]{1,60}\.p12$/.test(n) && n !== `${DEMO_ID}.p12`)
-      .map((n) => n.slice(0, -4))
-      .filter((id) => existsSync(join(certDir, `${id}.passphrase`)));
+      .map((n) => n.slice(0, -4));
   };
-  const certificate = async (id: string): Promise<Certificate | null> => {
+  /** Passwords the user typed, by certificate id: memory only, for as long as the workbench runs. */
+  const passwords = new Map<string, string>();
+  const storedPasswordFile = (id: string) => existsSync(join(certDir, `${id}.passphrase`));
+  const certificate = async (id: string, typed: string | undefined): Promise<Certificate | BridgeError> => {
     if (id === DEMO_ID) {
       const c = await demoCert();
       return { p12: c.p12, passphrase: c.passphrase, name: 'demonstration certificate', kind: 'demonstration' };
     }
-    if (!labIds().includes(id)) return null;
-    return { p12: new Uint8Array(readFileSync(join(certDir, `${id}.p12`))), passphrase: readFileSync(join(certDir, `${id}.passphrase`), 'utf8').trim(), name: id, kind: 'lab' };
+    const file = join(certDir, `${id}.p12`);
+    if (!labIds().includes(id)) return { code: 'no-certificate', file, line: null, column: null, message: `There is no certificate '${id}'.` };
+    const passphrase = typed ?? passwords.get(id);
+    if (passphrase === undefined) {
+      const old = storedPasswordFile(id) ? ` The password file ${id}.passphrase beside it is no longer read (a password is never kept on disk): delete it.` : '';
+      return { code: 'password-needed', file, line: null, column: null, message: `Enter the password of certificate '${id}'. The workbench keeps it in memory until it closes and never writes it to disk.${old}` };
+    }
+    return { p12: new Uint8Array(readFileSync(file)), passphrase, name: id, kind: 'lab' };
   };
 
   return {
     async signers(): Promise<SignerInfo[]> {
       return [
-        ...labIds().map((id) => ({ id, label: `Lab certificate ${id}`, demonstration: false })),
-        { id: DEMO_ID, label: 'Twofold demonstration certificate (made for this session)', demonstration: true },
+        ...labIds().map((id) => ({
+          id,
+          label: `Lab certificate ${id}${storedPasswordFile(id) ? ` (its old password file ${id}.passphrase is not read: delete it)` : ''}`,
+          demonstration: false,
+          needsPassword: !passwords.has(id),
+        })),
+        { id: DEMO_ID, label: 'Twofold demonstration certificate (made for this session)', demonstration: true, needsPassword: false },
       ];
     },
     async build(input) {
-      const cert = await certificate(input.signerId);
-      if (!cert) return { ok: false, error: { code: 'no-certificate', file: join(certDir, `${input.signerId}.p12`), line: null, column: null, message: `There is no certificate '${input.signerId}' with its passphrase file.` } };
+      const cert = await certificate(input.signerId, input.password);
+      if (!('p12' in cert)) return { ok: false, error: cert };
       const run = await runOffThread('report', { folder: input.folder, outPath: input.outPath, reviewer: input.reviewer, certificate: cert, nowIso: input.now.toISOString(), locale: input.locale }, limitMs);
       if (!run.done) return stopped(input.folder, run.why);
-      if (!run.value.ok) return run.value;
+      if (!run.value.ok) {
+        // A password that did not open the certificate is not kept.
+        if (cert.kind === 'lab' && run.value.error.code === 'sign-failed') passwords.delete(input.signerId);
+        return run.value;
+      }
+      if (cert.kind === 'lab') passwords.set(input.signerId, cert.passphrase);
       return { ok: true, bytes: run.value.value.bytes, demonstration: cert.kind === 'demonstration' };
     },
     async verify(bytes, fileName) {

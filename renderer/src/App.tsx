@@ -96,6 +96,8 @@ export function App({ host }: { host: HostClient }) {
   const [reviewer, setReviewerState] = useState<Reviewer>(loadReviewer);
   const [saveNote, setSaveNote] = useState<string>('No case open');
   const [exportState, setExportState] = useState<ExportState>({ signers: [], signerId: null, result: null, verification: null });
+  // A lab certificate's password while it is typed; cleared when the export sends it.
+  const [certificatePassword, setCertificatePassword] = useState('');
   // The charts draw this view: the values' view, one painted frame later (see the timing below).
   const [chartsView, setChartsView] = useState<View | null>(null);
   const [renderMs, setRenderMs] = useState<RenderTiming | null>(null);
@@ -345,10 +347,15 @@ export function App({ host }: { host: HostClient }) {
     if (!summary || needReviewer()) return;
     const signerId = exportState.signerId;
     if (!signerId) return setError({ code: 'no-signer', file: 'certificates', line: null, column: null, message: 'Choose a certificate to sign with.' });
+    const needsPassword = exportState.signers.find((s) => s.id === signerId)?.needsPassword ?? false;
+    const password = needsPassword && certificatePassword ? certificatePassword : undefined;
+    setCertificatePassword('');
     setBusy({ stage: 'Building and signing the report', fraction: 0.3 });
     await untilSaved();
-    const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})`, locale });
+    const reply = await host.call('exportReport', { caseId: summary.caseId, signerId, reviewer: `${reviewer.who} (${reviewer.role})`, locale, ...(password ? { password } : {}) });
     setBusy(null);
+    // The host now holds the password, or dropped a wrong one: the list says which.
+    await refreshSigners();
     if (!reply.ok) return setError(reply.error);
     setExportState((s) => ({ ...s, result: reply.value, verification: null }));
   };
@@ -499,6 +506,8 @@ export function App({ host }: { host: HostClient }) {
             reviewer={reviewer}
             onSigner={(signerId) => setExportState((s) => ({ ...s, signerId }))}
             onExport={() => void runCommand('report.export', ctx)}
+            password={certificatePassword}
+            onPassword={setCertificatePassword}
             onVerifyExported={(fileName) => void verify({ caseId: summary.caseId, fileName })}
             onChooseReport={() => void runCommand('report.verify', ctx)}
             onPreview={() => void preview()}

@@ -67,11 +67,12 @@ describe('twofold inspect', () => {
     expect(d.err()).toMatch(/^bad-map\.json:1:\d+: The column map is not valid JSON/);
   });
 
-  test('usage mistakes exit 2; an unwritable map path exits 1', async () => {
+  test('usage mistakes exit 2; a map path in a missing folder is bad input too, exit 2, before the file is read', async () => {
     const a = capture(dir);
     expect(await main(['inspect'], a.io)).toBe(2);
     const b = capture(dir);
-    expect(await main(['inspect', 'good.csv', '--save-mapping', join(dir, 'no', 'such', 'dir', 'm.json')], b.io)).toBe(1);
+    expect(await main(['inspect', 'good.csv', '--save-mapping', join(dir, 'no', 'such', 'dir', 'm.json')], b.io)).toBe(2);
+    expect(b.err()).toContain(`${join(dir, 'no', 'such', 'dir', 'm.json')}:0:0: The folder of this output, ${join(dir, 'no', 'such', 'dir')}, does not exist.`);
   });
 
   test('the installed command runs through bin/twofold.cjs', () => {

@@ -1,7 +1,7 @@
 // Case-folder hygiene (issue items: temporary files of killed saves left forever, input names
 // with folders, JSON errors at 0:0, an unreadable raw copy called missing, 0644 files in 0755
 // folders). Permission bits as stat(2) reports them; JSON positions counted in the text.
-import { mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -24,6 +24,14 @@ describe('case folder hygiene', () => {
     expect(statSync(join(folder, 'raw')).mode & 0o777).toBe(0o700);
   });
 
+  it('a case folder an older version left 0755 is narrowed to 0700 at its next save', () => {
+    const folder = join(mkdtempSync(join(tmpdir(), 'twofold-hygiene-')), 'case');
+    mkdirSync(folder, { mode: 0o755 });
+    chmodSync(folder, 0o755);
+    expect(saveCase(folder, made(), raw).ok).toBe(true);
+    expect(statSync(folder).mode & 0o777).toBe(0o700);
+  });
+
   it("a killed save's temporary file is removed on the next open; a live writer's is kept", () => {
     const folder = join(mkdtempSync(join(tmpdir(), 'twofold-hygiene-')), 'case');
     saveCase(folder, made(), raw);
@@ -31,9 +39,14 @@ describe('case folder hygiene', () => {
     const live = `.twofold-case.json.${process.pid}.0123456789ab.tmp`;
     writeFileSync(join(folder, dead), 'half');
     writeFileSync(join(folder, live), 'in progress');
+    // A killed export of the workbench leaves its temporary report in reports/.
+    mkdirSync(join(folder, 'reports'));
+    const deadReport = '.twofold-report-20261202-101500.pdf.999999999.0123456789ab.tmp';
+    writeFileSync(join(folder, 'reports', deadReport), 'half a pdf');
     expect(loadCase(folder).ok).toBe(true);
     expect(readdirSync(folder)).not.toContain(dead);
     expect(readdirSync(folder)).toContain(live);
+    expect(readdirSync(join(folder, 'reports'))).toEqual([]);
   });
 
   it('a name with folders is stored bare; a hand-edited one with folders is refused on load', () => {

@@ -26,6 +26,13 @@ interface Props {
   readonly reviewer: Reviewer;
   readonly onSigner: (id: string) => void;
   readonly onExport: () => void;
+  /**
+   * The lab certificate's password as typed, when the host asked for it (the signer's
+   * needsPassword). It stays in the page's memory until the export sends it, then only in
+   * the host's; nothing writes it down.
+   */
+  readonly password: string;
+  readonly onPassword: (password: string) => void;
   readonly onVerifyExported: (fileName: string) => void;
   readonly onChooseReport: () => void;
   readonly onPreview: () => void;
@@ -51,8 +58,9 @@ function describe(action: EngineView['log'][number]['action']): string {
   }
 }
 
-export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onVerifyExported, onChooseReport, onPreview, previewUrl, onSignOff }: Props) {
+export function SignOff({ view, digest, state, reviewer, onSigner, onExport, password, onPassword, onVerifyExported, onChooseReport, onPreview, previewUrl, onSignOff }: Props) {
   const signer = state.signers.find((s) => s.id === state.signerId) ?? null;
+  const askPassword = signer !== null && signer.needsPassword;
   return (
     <div className="signoff">
       <Caution />
@@ -124,6 +132,13 @@ export function SignOff({ view, digest, state, reviewer, onSigner, onExport, onV
               ))}
             </select>
           </label>
+          {askPassword && (
+            <label className="field">
+              Certificate password
+              <input type="password" data-testid="certificate-password" autoComplete="off" value={password} onChange={(e) => onPassword(e.target.value)} />
+              <span className="hint">Asked once; kept in memory while the workbench is open, never written to disk.</span>
+            </label>
+          )}
           {signer?.demonstration && <p className="demo-note">This certificate is for demonstration: the report will say so on every page and must not be filed as evidence.</p>}
           <p>
             Reviewer: <strong>{reviewer.who || '(enter your name at the top right)'}</strong> {reviewer.role && `(${reviewer.role})`}

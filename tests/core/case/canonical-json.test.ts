@@ -3,7 +3,7 @@
 // test vector for "abc" and against Node's own crypto.
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { canonicalJson } from '../../../core/case/canonical-json';
+import { canonicalJson, canonicalJsonSha256 } from '../../../core/case/canonical-json';
 import { sha256Hex } from '../../../core/case/sha256';
 
 describe('canonicalJson', () => {
@@ -29,6 +29,27 @@ describe('canonicalJson', () => {
     if (!r.ok) expect(r.error.message).toContain('$.a[1]');
     const lenient = canonicalJson({ a: [1, Number.NaN] }, 'x', 'as-string');
     expect(lenient.ok && lenient.value).toBe('{"a":[1,"NaN"]}');
+  });
+});
+
+describe('canonicalJsonSha256', () => {
+  it('is Node crypto’s SHA-256 of the canonical text, across many chunks and multi-byte characters', () => {
+    // Reference: Node's own crypto over the whole text at once.
+    const value = { reason: 'VO₂ réglé 😀', series: Array.from({ length: 40_000 }, (_, i) => ({ t: i / 3, note: i % 997 === 0 ? 'Δ😀' : null })) };
+    const text = canonicalJson(value);
+    expect(text.ok).toBe(true);
+    if (!text.ok) return;
+    expect(text.value.length).toBeGreaterThan(4 * 65_536);
+    const digest = canonicalJsonSha256(value);
+    expect(digest.ok && digest.value).toBe(createHash('sha256').update(text.value, 'utf8').digest('hex'));
+  });
+
+  it('refuses what canonicalJson refuses, with the same path', () => {
+    const r = canonicalJsonSha256({ a: [{ b: 1 }, { b: Number.POSITIVE_INFINITY }] });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.error.message).toContain('$.a[1].b');
+    const lenient = canonicalJsonSha256({ a: [1, Number.NaN] }, 'x', 'as-string');
+    expect(lenient.ok && lenient.value).toBe(createHash('sha256').update('{"a":[1,"NaN"]}').digest('hex'));
   });
 });
 
