@@ -1,8 +1,6 @@
 #!/usr/bin/env node
-// Entry point of the `twofold` command: runs the compiled command line (dist/cli/), built
-// from the TypeScript sources on the first run and again whenever a source changed
-// (scripts/cli-build.mjs).
-import { currentCliBuild } from '../scripts/cli-build.mjs';
+// The `twofold` command under its earlier path; bin/twofold.cjs is the command (package.json
+// "bin"), which Node starts without its ES module loader.
+import { createRequire } from 'node:module';
 
-const { main } = await import(await currentCliBuild());
-process.exitCode = await main(process.argv.slice(2));
+createRequire(import.meta.url)('./twofold.cjs');

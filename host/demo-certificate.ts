@@ -1,14 +1,16 @@
 /**
- * A throw-away, self-signed certificate for `twofold demo`, as a PKCS#12 file. The RSA key
- * comes from Node's crypto (native, fast); node-forge builds the X.509 certificate and the
- * PKCS#12 container (3DES key bag, the widely readable choice). The subject says plainly that
- * it is a demonstration, and the report marks its signature as not a clinical one. Its
- * password is random for each certificate and lives only in memory beside the PKCS#12 bytes:
- * neither is ever written (the demo writes the public certificate alone).
+ * A throw-away, self-signed certificate for `twofold demo`, as a PKCS#12 file. Node's crypto
+ * does the arithmetic (the RSA key, the certificate's SHA-256 with RSA signature, the
+ * PKCS#12's encryption and MAC: pkcs12.ts); node-forge only lays out the X.509 fields. The
+ * subject says plainly that it is a demonstration, and the report marks its signature as not
+ * a clinical one. Its password is random for each certificate and lives only in memory beside
+ * the PKCS#12 bytes: neither is ever written (the demo writes the public certificate alone).
  */
-import { generateKeyPair, randomBytes } from 'node:crypto';
+import { Buffer } from 'node:buffer';
+import { generateKeyPair, randomBytes, sign } from 'node:crypto';
 import { promisify } from 'node:util';
 import forge from 'node-forge';
+import { writeP12 } from './pkcs12';
 
 export interface DemoCertificate {
   readonly p12: Uint8Array;
@@ -22,10 +24,9 @@ export const DEMO_COMMON_NAME = 'Twofold DEMONSTRATION certificate - not for cli
 /** Asynchronous, so the key can be generated (off the main thread) while the case is analysed. */
 export async function demoCertificate(now: Date, passphrase = randomBytes(18).toString('base64')): Promise<DemoCertificate> {
   const { privateKey, publicKey } = await promisify(generateKeyPair)('rsa', { modulusLength: 2048 });
-  const key = forge.pki.privateKeyFromPem(privateKey.export({ type: 'pkcs1', format: 'pem' }).toString());
   const cert = forge.pki.createCertificate();
   cert.publicKey = forge.pki.publicKeyFromPem(publicKey.export({ type: 'spki', format: 'pem' }).toString());
-  cert.serialNumber = `01${forge.util.bytesToHex(forge.random.getBytesSync(8))}`;
+  cert.serialNumber = `01${randomBytes(8).toString('hex')}`;
   cert.validity.notBefore = new Date(now.getTime() - 60_000);
   cert.validity.notAfter = new Date(now.getTime() + 30 * 24 * 3600_000);
   const name = [
@@ -38,10 +39,14 @@ export async function demoCertificate(now: Date, passphrase = randomBytes(18).to
     { name: 'basicConstraints', cA: false },
     { name: 'keyUsage', digitalSignature: true, nonRepudiation: true },
   ]);
-  cert.sign(key, forge.md.sha256.create());
-  const p12 = forge.pkcs12.toPkcs12Asn1(key, [cert], passphrase, { algorithm: '3des' });
+  // RFC 5280 §4.1.1.2-3: sha256WithRSAEncryption over the DER of the TBSCertificate.
+  cert.signatureOid = cert.siginfo.algorithmOid = forge.pki.oids.sha256WithRSAEncryption;
+  cert.tbsCertificate = (forge.pki as unknown as { getTBSCertificate(c: forge.pki.Certificate): forge.asn1.Asn1 }).getTBSCertificate(cert);
+  const tbs = Buffer.from(forge.asn1.toDer(cert.tbsCertificate).getBytes(), 'binary');
+  cert.signature = sign('sha256', tbs, privateKey).toString('binary');
+  const der = Buffer.from(forge.asn1.toDer(forge.pki.certificateToAsn1(cert)).getBytes(), 'binary');
   return {
-    p12: Buffer.from(forge.asn1.toDer(p12).getBytes(), 'binary'),
+    p12: writeP12(privateKey, der, passphrase),
     passphrase,
     certificatePem: forge.pki.certificateToPem(cert),
     commonName: DEMO_COMMON_NAME,

@@ -13,7 +13,7 @@ import { recomputeCase, type CaseOutcome, type RawBytes } from '../core/case/rec
 import type { Comparison } from '../core/compare/compare-tests';
 import { fail, locatedError, ok, type Result } from '../core/model/errors';
 import { buildReport, type SignatureKind } from '../core/report/build-report';
-import { signReport } from '../core/report/sign';
+import { signReport } from './sign-report';
 import { writeFileAtomic } from './atomic-write';
 import { saveCase } from './case-folder';
 import { cachedEngine } from './cached-engine';

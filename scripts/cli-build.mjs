@@ -1,52 +1,32 @@
-// The `twofold` command's compiled JavaScript: cli/main.ts and everything it imports from
-// cli/, core/ and host/, bundled by esbuild into dist/cli/ (one chunk per command, so a
-// command loads only its own code; npm packages other than vega and vega-lite stay outside
-// the bundle and load only when a command imports them).
+// The `twofold` command's compiled JavaScript: cli/main.ts and each command of cli/commands/
+// with everything it imports from cli/, core/ and host/, bundled by esbuild into dist/cli/ as
+// CommonJS, one file per command (main.cjs requires only the command it runs). npm packages
+// other than vega and vega-lite stay outside the bundle and load only when a command requires
+// them.
 //
-// `.npmrc` sets ignore-scripts, so no install step can build it: bin/twofold.mjs calls
-// `currentCliBuild()` at every start, which stats the files the last build was made from
-// (recorded in dist/cli/build.json) and rebuilds only when one changed or the build is
-// missing. Each build goes to a fresh folder and build.json is replaced by rename, so
+// CommonJS, not ES modules, because it starts faster on Node 20: the ES module loader linked
+// the chunks and ran every CommonJS package (papaparse, pdfkit, node-forge...) through its
+// export scanner first; together about 30 ms of CPU on every `twofold analyze` (interleaved
+// runs, docs/performance.md). Code shared by two commands is in both files; a process runs
+// one command.
+//
+// `.npmrc` sets ignore-scripts, so no install step can build it: at every start the bin
+// (bin/twofold.cjs, through scripts/cli-start.cjs) stats the files the last build was made
+// from (recorded in dist/cli/build.json) and calls buildCli() only when one changed or the
+// build is missing. Each build goes to a fresh folder and build.json is replaced by rename, so
 // processes that start at the same moment never see half a build.
 //
 // `node scripts/cli-build.mjs` (npm run build:cli) builds it by hand.
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { dirname, join, relative, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import start from './cli-start.cjs';
 
-export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
-const OUT = join(ROOT, 'dist', 'cli');
-const RECORD = join(OUT, 'build.json');
+const { ROOT, OUT, RECORD } = start;
 /** Older build folders are removed once they are this old (a running process may still load chunks from one). */
 const KEEP_OLD_BUILDS_MS = 60 * 60 * 1000;
 
-function stamp(path) {
-  try {
-    const s = statSync(path);
-    return [s.mtimeMs, s.size];
-  } catch {
-    return null;
-  }
-}
-
-function readRecord() {
-  try {
-    return JSON.parse(readFileSync(RECORD, 'utf8'));
-  } catch {
-    return null;
-  }
-}
-
-/** True when the recorded build exists and every file it was made from is unchanged (time and size). */
-function isCurrent(record) {
-  if (!record || typeof record.entry !== 'string' || !record.inputs) return false;
-  if (!existsSync(join(OUT, record.entry))) return false;
-  for (const [path, before] of Object.entries(record.inputs)) {
-    const now = stamp(join(ROOT, path));
-    if (!now || now[0] !== before[0] || now[1] !== before[1]) return false;
-  }
-  return true;
-}
+const { stamp, readRecord, isCurrent } = start;
 
 function removeOldBuilds(keep) {
   let entries;
@@ -76,24 +56,56 @@ function externalPackages() {
   return names.flatMap((n) => [n, `${n}/*`]);
 }
 
+/**
+ * main.ts loads a command with `import('./commands/NAME')`: in the build that is the command's
+ * own file, required when the command runs.
+ */
+const commandsApart = {
+  name: 'commands-apart',
+  setup(build) {
+    build.onResolve({ filter: /^\.\/commands\/[\w-]+$/ }, (args) =>
+      args.importer === join(ROOT, 'cli', 'main.ts') ? { path: `${args.path}.cjs`, external: true } : undefined,
+    );
+  },
+};
+
+/**
+ * vega-canvas's Node build looks for the optional `canvas` package with a top-level await,
+ * which CommonJS cannot hold. Twofold renders SVG without a canvas (the package is not a
+ * dependency, so that lookup always found nothing); its browser build is the same code
+ * without the lookup, and gives the same charts.
+ */
+const vegaWithoutCanvas = {
+  name: 'vega-without-canvas',
+  setup(build) {
+    build.onResolve({ filter: /^vega-canvas$/ }, () => ({ path: join(ROOT, 'node_modules', 'vega-canvas', 'build', 'vega-canvas.browser.js') }));
+  },
+};
+
 /** Bundle the command line now; returns the entry file's path. */
 export async function buildCli() {
   const { build } = await import('esbuild');
   const folder = `b${Date.now().toString(36)}-${process.pid}`;
   const outdir = join(OUT, folder);
+  const commands = readdirSync(join(ROOT, 'cli', 'commands')).filter((f) => f.endsWith('.ts'));
+  const entryPoints = { main: 'cli/main.ts', ...Object.fromEntries(commands.map((f) => [`commands/${f.slice(0, -3)}`, `cli/commands/${f}`])) };
   const result = await build({
     absWorkingDir: ROOT,
-    entryPoints: { main: 'cli/main.ts' },
+    entryPoints,
     outdir,
     bundle: true,
-    splitting: true,
-    format: 'esm',
+    format: 'cjs',
     platform: 'node',
     target: 'node20',
     external: externalPackages(),
+    plugins: [commandsApart, vegaWithoutCanvas],
+    // import() becomes require(), so a package loads as CommonJS, without the ES module loader.
+    supported: { 'dynamic-import': false },
+    // Modules that find files beside themselves (fonts, the demo folder, the batch worker) read import.meta.url.
+    define: { 'import.meta.url': '__moduleUrl' },
+    banner: { js: 'const __moduleUrl = require("node:url").pathToFileURL(__filename).href;' },
     sourcemap: true,
-    outExtension: { '.js': '.mjs' },
-    chunkNames: 'chunks/[name]-[hash]',
+    outExtension: { '.js': '.cjs' },
     metafile: true,
     logLevel: 'warning',
   });
@@ -110,7 +122,7 @@ export async function buildCli() {
     if (s) inputs[path] = s;
   }
   mkdirSync(OUT, { recursive: true });
-  const record = { entry: join(folder, 'main.mjs'), builtAt: new Date().toISOString(), inputs };
+  const record = { entry: join(folder, 'main.cjs'), builtAt: new Date().toISOString(), inputs };
   const tmp = `${RECORD}.${process.pid}.tmp`;
   writeFileSync(tmp, `${JSON.stringify(record)}\n`);
   renameSync(tmp, RECORD);
@@ -118,11 +130,10 @@ export async function buildCli() {
   return join(OUT, record.entry);
 }
 
-/** The current build's entry file URL, building first when it is missing or stale. */
+/** The current build's entry file, building first when it is missing or stale. */
 export async function currentCliBuild() {
   const record = readRecord();
-  const entry = isCurrent(record) ? join(OUT, record.entry) : await buildCli();
-  return pathToFileURL(entry).href;
+  return isCurrent(record) ? join(OUT, record.entry) : await buildCli();
 }
 
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {

@@ -75,12 +75,12 @@ describe('twofold inspect', () => {
     expect(b.err()).toContain(`${join(dir, 'no', 'such', 'dir', 'm.json')}:0:0: The folder of this output, ${join(dir, 'no', 'such', 'dir')}, does not exist.`);
   });
 
-  test('the installed command runs through bin/twofold.mjs', () => {
-    const out = execFileSync('node', ['bin/twofold.mjs', 'inspect', join(dir, 'good.csv'), '--json'], { encoding: 'utf8' });
+  test('the installed command runs through bin/twofold.cjs', () => {
+    const out = execFileSync('node', ['bin/twofold.cjs', 'inspect', join(dir, 'good.csv'), '--json'], { encoding: 'utf8' });
     expect(JSON.parse(out).breaths).toBe(2);
     let status = 0;
     try {
-      execFileSync('node', ['bin/twofold.mjs', 'inspect', join(dir, 'noheader.csv')], { encoding: 'utf8', stdio: 'pipe' });
+      execFileSync('node', ['bin/twofold.cjs', 'inspect', join(dir, 'noheader.csv')], { encoding: 'utf8', stdio: 'pipe' });
     } catch (error) {
       status = (error as { status: number }).status;
     }

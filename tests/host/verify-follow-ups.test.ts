@@ -12,7 +12,7 @@ import { recomputeCase } from '../../core/case/recompute';
 import { noClinicalInputs } from '../../core/analyze/analyze-test';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { buildReport } from '../../core/report/build-report';
-import { signReport } from '../../core/report/sign';
+import { signReport } from '../../host/sign-report';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
 import { recordDemoFollowUps } from '../../host/demo-follow-ups';
 import { reportFonts } from '../../host/fonts';

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { caseToText } from '../../core/case/case-text';
 import { buildReport } from '../../core/report/build-report';
-import { signReport } from '../../core/report/sign';
+import { signReport } from '../../host/sign-report';
 import { reportFonts } from '../../host/fonts';
 import { verifyReport } from '../../host/verify-report';
 import { main } from '../../cli/main';

@@ -15,7 +15,7 @@ import { recomputeCase } from '../../core/case/recompute';
 import type { ColumnMapping } from '../../core/import/mapping';
 import { DEFAULT_SETTINGS } from '../../core/model/settings';
 import { buildReport } from '../../core/report/build-report';
-import { signReport } from '../../core/report/sign';
+import { signReport } from '../../host/sign-report';
 import { DEMO_PAIR } from '../../host/demo-job';
 import { reportFonts } from '../../host/fonts';
 import { verifyReport } from '../../host/verify-report';

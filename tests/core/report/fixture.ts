@@ -12,7 +12,7 @@ import { newCase } from '../../../core/case/new-case';
 import { recordOverride } from '../../../core/case/review';
 import { DEFAULT_SETTINGS, type Settings } from '../../../core/model/settings';
 import { buildReport } from '../../../core/report/build-report';
-import { signReport } from '../../../core/report/sign';
+import { signReport } from '../../../host/sign-report';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../../host/demo-job';
 import { reportFonts } from '../../../host/fonts';
 import { readRaw, recordCase } from '../../../host/report-job';

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { caseToText } from '../../../core/case/case-text';
 import { buildReport } from '../../../core/report/build-report';
-import { signReport } from '../../../core/report/sign';
+import { signReport } from '../../../host/sign-report';
 import { reportFonts } from '../../../host/fonts';
 import { startBridge, type RunningBridge } from '../../../host/workbench/http-bridge';
 import { createWiredService } from '../../../host/workbench/wiring';

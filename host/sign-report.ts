@@ -1,16 +1,17 @@
 /**
  * Signs a finished report with a PKCS#12 certificate: @signpdf/placeholder-plain adds a
  * signature field and a /Contents placeholder in an incremental update, then @signpdf/signpdf
- * with @signpdf/signer-p12 (node-forge) writes a detached CMS SignedData (adbe.pkcs7.detached,
+ * with the native signer of cms-signer.ts writes a detached CMS SignedData (adbe.pkcs7.detached,
  * SHA-256, ISO 32000-1 §12.8) over the whole file except the placeholder. The signing time
- * and the password are passed in; core has no clock and reads no environment.
+ * and the password are passed in; nothing here reads a clock or the environment. It lives in
+ * host/ because the key arithmetic runs in Node's crypto.
  */
 import { Buffer } from 'node:buffer';
 import { plainAddPlaceholder } from '@signpdf/placeholder-plain';
-import { P12Signer } from '@signpdf/signer-p12';
 import { SignPdf } from '@signpdf/signpdf';
-import { fail, locatedError, ok, type Result } from '../model/errors';
-import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
+import { fail, locatedError, ok, type Result } from '../core/model/errors';
+import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../core/version';
+import { NativeP12Signer } from './cms-signer';
 
 export interface SigningRequest {
   readonly p12: Uint8Array;
@@ -44,7 +45,7 @@ export async function signReport(pdf: Uint8Array, request: SigningRequest): Prom
   }
   prepared = startxrefAtXref(prepared);
   try {
-    const signer = new P12Signer(Buffer.from(request.p12), { passphrase: request.passphrase });
+    const signer = new NativeP12Signer(request.p12, request.passphrase);
     const signed = await new SignPdf().sign(prepared, signer, request.signingTime);
     return ok(new Uint8Array(signed));
   } catch (error) {
