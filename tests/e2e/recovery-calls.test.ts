@@ -37,6 +37,12 @@ async function field(text: string | null): Promise<void> {
   await page.keyboard.press('Tab');
 }
 
+/** Waits (up to 10 s, for a loaded machine) until the focused element is the form field `name`: focus moves in an effect after the render. */
+async function focusOn(name: string): Promise<void> {
+  await page.waitForFunction((n) => (document.activeElement as HTMLElement | null)?.dataset.field === n, name, { timeout: 10_000 });
+  expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.field)).toBe(name);
+}
+
 describe('Recovery calls, keyboard only', () => {
   it('records a follow-up typed with the keyboard and shows the recovery core derives', async () => {
     await page.keyboard.press('Control+5');
@@ -74,7 +80,7 @@ describe('Recovery calls, keyboard only', () => {
 
     // The form keeps test, reporter and channel for the next call, and the focus is on the hours.
     expect(await page.locator('[data-field="test"]').inputValue()).toBe('2');
-    expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.field)).toBe('hours');
+    await focusOn('hours');
     await field('3d');
     await field(null);
     await field(null);
@@ -91,7 +97,7 @@ describe('Recovery calls, keyboard only', () => {
     await field('soon');
     await page.keyboard.press('Enter');
     expect(await page.locator('[data-testid="follow-up-problem"]').textContent()).toContain('Hours after the test: expected hours after the end of the test');
-    expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.field)).toBe('hours');
+    await focusOn('hours');
     expect(await page.locator('[data-field="hours"]').inputValue()).toBe('soon');
     expect(await page.locator('[data-testid="follow-up-3"]').count()).toBe(0);
     await page.keyboard.press('Control+A');
@@ -100,7 +106,7 @@ describe('Recovery calls, keyboard only', () => {
 
   it('corrects an entry with a reason; the correction is a new log entry', async () => {
     await page.locator('[data-testid="follow-up-2"] button', { hasText: 'Correct' }).click();
-    expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.field)).toBe('hours');
+    await focusOn('hours');
     await page.keyboard.press('Control+A');
     await page.keyboard.type('96');
     await page.keyboard.press('Enter');

@@ -97,7 +97,7 @@ describe('browser mode, intake', () => {
     await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });
     expect(caseFolders().length).toBe(2);
     await page.locator('nav.screens button', { hasText: 'Intake' }).click();
-    await page.waitForSelector('.recent li');
+    await page.waitForSelector('.recent li', { timeout: 120_000 });
     expect(await page.locator('.recent li').count()).toBe(2);
     await page.screenshot({ path: join(SCREENSHOTS, '7b-intake-after-xlsx-and-demo.png'), fullPage: true });
   });
