@@ -45,7 +45,8 @@ import { locallySmoothed } from '../../core/thresholds/smooth-vo2';
 import { withoutBreathScatter } from '../../core/thresholds/vslope-shared';
 import { vslopeSlopeReason } from '../../core/thresholds/vslope-hinge';
 import { DEVELOPMENT_FIRST_SEED, hardCases, mainCases } from './cases';
-import { generateKineticTest, kineticCases } from '../../sample-tests/kinetic-family';
+import { kineticCases } from '../../sample-tests/kinetic-family';
+import { familyBCase } from './family-b';
 import { family1, type TruthCase } from './measure';
 
 const TAUS = [15, 25, 35, 45, 55, 70, 90];
@@ -244,21 +245,8 @@ if (ONLY) for (const key of Object.keys(VARIANTS)) if (!ONLY.includes(key)) dele
 const HARD = process.env.HARD === '1';
 
 function familyBMain(count: number, first: number): TruthCase[] {
-  return kineticCases(HARD ? 'short-or-noisy' : 'main', count, first).map((c) => ({
-    family: 'family B',
-    condition: HARD ? 'hard' : 'main',
-    hardKind: null,
-    protocol: c.modality,
-    modality: c.modality,
-    noiseScale: c.noiseScale,
-    outliers: c.params.outlierCount,
-    seed: c.seed,
-    label: c.label,
-    generate: () => {
-      const { table, truth } = generateKineticTest(c.params, c.seed);
-      return { table, vt1: truth.vt1, vt2: truth.vt2 };
-    },
-  }));
+  const condition = HARD ? 'short-or-noisy' : 'main';
+  return kineticCases(condition, count, first).map((c) => familyBCase(c, condition));
 }
 const pct = (found: number | null | undefined, truth: number) => (found === null || found === undefined ? null : (100 * (found - truth)) / truth);
 
