@@ -32,10 +32,7 @@ function ValuesRow({ label, at }: { label: string; at: ValuesAt | null }) {
   return (
     <>
       <td>{label}</td>
-      <td>
-        {clock(at?.timeS)}
-        {at && <span className="secondary"> ({Math.round(at.timeS)} s)</span>}
-      </td>
+      <td data-time-s={at ? Math.round(at.timeS) : undefined}>{clock(at?.timeS)}</td>
       <td>{fmt(at?.vo2MlMin, 0, 'mL/min')}</td>
       <td>{fmt(at?.vo2MlKgMin, 1, 'mL/kg/min')}</td>
       <td>{fmt(at?.pctPeakVo2, 0, '%')}</td>
