@@ -25,9 +25,6 @@ import type { ColumnReport, RowFlag } from './types';
  */
 export const PHYSIOLOGY = { veMaxLMin: 400, workMaxW: 3000, petMaxMmhg: 760 } as const;
 
-/** A number for a message about a bad cell, in bounded digits (1e300 → '≥ 10⁹'). */
-const cellNumber = shortNumber;
-
 function round(x: number, digits: number): number {
   const f = 10 ** digits;
   return Math.round(x * f) / f;
@@ -56,7 +53,7 @@ export function plausibilityFlags(
   for (let i = 0; i < breaths.length; i++) {
     const b = breaths[i];
     if (b.vo2MlMin > lim.vo2MaxMlMin) {
-      flag(b, 'implausible-vo2', vo2Col, 'vo2MlMin', b.vo2MlMin, `VO2 of ${cellNumber(Math.round(b.vo2MlMin))} mL/min is above the plausible ${lim.vo2MaxMlMin} mL/min; check the unit or the sensor.`);
+      flag(b, 'implausible-vo2', vo2Col, 'vo2MlMin', b.vo2MlMin, `VO2 of ${shortNumber(Math.round(b.vo2MlMin))} mL/min is above the plausible ${lim.vo2MaxMlMin} mL/min; check the unit or the sensor.`);
     }
     if (b.vo2MlMin <= 0 || b.vco2MlMin <= 0) {
       const which = b.vo2MlMin <= 0 ? 'VO2' : 'VCO2';
@@ -72,18 +69,18 @@ export function plausibilityFlags(
       }
     }
     if (b.hrBpm !== null && (b.hrBpm < lim.hrMinBpm || b.hrBpm > lim.hrMaxBpm)) {
-      flag(b, 'implausible-hr', hrCol, 'hrBpm', b.hrBpm, `HR of ${cellNumber(b.hrBpm)} bpm is outside the plausible ${lim.hrMinBpm}–${lim.hrMaxBpm} bpm.`);
+      flag(b, 'implausible-hr', hrCol, 'hrBpm', b.hrBpm, `HR of ${shortNumber(b.hrBpm)} bpm is outside the plausible ${lim.hrMinBpm}–${lim.hrMaxBpm} bpm.`);
     }
     if (!(b.veLMin > 0 && b.veLMin <= PHYSIOLOGY.veMaxLMin)) {
-      flag(b, 'implausible-ve', veCol, 'veLMin', b.veLMin, `VE of ${cellNumber(b.veLMin)} L/min is outside physiology (above 0, at most ${PHYSIOLOGY.veMaxLMin} L/min).`);
+      flag(b, 'implausible-ve', veCol, 'veLMin', b.veLMin, `VE of ${shortNumber(b.veLMin)} L/min is outside physiology (above 0, at most ${PHYSIOLOGY.veMaxLMin} L/min).`);
     }
     if (b.workW !== null && !(b.workW >= 0 && b.workW <= PHYSIOLOGY.workMaxW)) {
-      flag(b, 'implausible-work', workCol, 'workW', b.workW, `Work of ${cellNumber(b.workW)} W is outside physiology (0 to ${PHYSIOLOGY.workMaxW} W).`);
+      flag(b, 'implausible-work', workCol, 'workW', b.workW, `Work of ${shortNumber(b.workW)} W is outside physiology (0 to ${PHYSIOLOGY.workMaxW} W).`);
     }
     for (const [key, name] of [['peto2Mmhg', 'PetO2'], ['petco2Mmhg', 'PetCO2']] as const) {
       const v = b[key];
       if (v !== null && !(v >= 0 && v <= PHYSIOLOGY.petMaxMmhg)) {
-        flag(b, 'implausible-pet', colOf(key), key, v, `${name} of ${cellNumber(v)} mmHg is outside physiology (0 to ${PHYSIOLOGY.petMaxMmhg} mmHg, the pressure of the air at sea level).`);
+        flag(b, 'implausible-pet', colOf(key), key, v, `${name} of ${shortNumber(v)} mmHg is outside physiology (0 to ${PHYSIOLOGY.petMaxMmhg} mmHg, the pressure of the air at sea level).`);
       }
     }
   }

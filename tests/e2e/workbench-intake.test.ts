@@ -50,6 +50,20 @@ afterAll(async () => {
   await bench?.close();
 });
 
+/** Chooses day 1 (and the CSV day 2), names the case and starts it, accepting the column mapping when asked; no error notice. */
+async function startCase(day1: string, title: string): Promise<void> {
+  await choose(1, day1);
+  await choose(2, DAY2);
+  await page.fill('.intake input[placeholder^="e.g. subject"]', title);
+  await page.click('text=Start case');
+  await page.waitForSelector('[data-testid="thresholds-day1"], [data-testid="mapping-step"], .error-notice', { timeout: 120_000 });
+  if (await page.locator('[data-testid="mapping-step"]').count()) {
+    await page.click('text=Use these columns and remember them for this layout');
+    await page.waitForSelector('[data-testid="thresholds-day1"], .error-notice', { timeout: 120_000 });
+  }
+  expect(await page.locator('.error-notice').count()).toBe(0);
+}
+
 describe('browser mode, intake', () => {
   it('a file that cannot be read names the real cause and leaves no case behind', async () => {
     await choose(1, { name: 'broken.xlsx', mimeType: 'application/octet-stream', buffer: Buffer.from('PK\u0003\u0004 this is not a workbook') });
@@ -72,16 +86,7 @@ describe('browser mode, intake', () => {
     if (!imported.ok) throw new Error(imported.error.message);
     const reference = analyzeTest(imported.value.table, DEFAULT_SETTINGS, noClinicalInputs());
 
-    await choose(1, XLSX);
-    await choose(2, DAY2);
-    await page.fill('.intake input[placeholder^="e.g. subject"]', 'Workbook day 1, CSV day 2');
-    await page.click('text=Start case');
-    await page.waitForSelector('[data-testid="thresholds-day1"], [data-testid="mapping-step"], .error-notice', { timeout: 120_000 });
-    if (await page.locator('[data-testid="mapping-step"]').count()) {
-      await page.click('text=Use these columns and remember them for this layout');
-      await page.waitForSelector('[data-testid="thresholds-day1"], .error-notice', { timeout: 120_000 });
-    }
-    expect(await page.locator('.error-notice').count()).toBe(0);
+    await startCase(XLSX, 'Workbook day 1, CSV day 2');
     expect(await page.locator('.day-tab').first().textContent()).toContain('qh0417-day1.xlsx');
     const vt1 = numberIn(await page.locator('[data-testid="row-vt1"] > :nth-child(4)').textContent());
     expect(vt1).toBe(Math.round(reference.vt1.at!.vo2MlMin));
@@ -113,16 +118,7 @@ describe('browser mode, intake', () => {
       if (!imported.ok) throw new Error(imported.error.message);
       const reference = analyzeTest(imported.value.table, DEFAULT_SETTINGS, noClinicalInputs());
       await page.locator('nav.screens button', { hasText: 'Intake' }).click();
-      await choose(1, path);
-      await choose(2, DAY2);
-      await page.fill('.intake input[placeholder^="e.g. subject"]', `Layout: ${layout}`);
-      await page.click('text=Start case');
-      await page.waitForSelector('[data-testid="thresholds-day1"], [data-testid="mapping-step"], .error-notice', { timeout: 120_000 });
-      if (await page.locator('[data-testid="mapping-step"]').count()) {
-        await page.click('text=Use these columns and remember them for this layout');
-        await page.waitForSelector('[data-testid="thresholds-day1"], .error-notice', { timeout: 120_000 });
-      }
-      expect(await page.locator('.error-notice').count()).toBe(0);
+      await startCase(path, `Layout: ${layout}`);
       await page.waitForFunction((name) => document.querySelector('.day-tab')?.textContent?.includes(name), basename(path));
       expect(numberIn(await page.locator('[data-testid="row-vt1"] > :nth-child(4)').textContent())).toBe(Math.round(reference.vt1.at!.vo2MlMin));
     });

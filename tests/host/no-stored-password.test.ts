@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../cli/main';
 import { dispatch } from '../../host/workbench/api';
+import { openDemoCase } from './workbench/demo-case';
 import { createWiredService } from '../../host/workbench/wiring';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
 import { io } from '../cli/capture-io';
@@ -19,7 +20,6 @@ import { io } from '../cli/capture-io';
 const ROOT = join(__dirname, '..', '..');
 const day1 = join(DEMO_FOLDER, DEMO_PAIR.day1);
 const day2 = join(DEMO_FOLDER, DEMO_PAIR.day2);
-const none = { peakRpe: null, lactateMmolL: null, fev1L: null, mvvLMin: null, restingHrBpm: null };
 const PASSWORD_NAME = /pass(word|phrase)?|secret|\.pwd$/i;
 
 /** Every regular file below `dir`. */
@@ -115,12 +115,7 @@ describe('no certificate password on disk', () => {
     };
     expect((await signer()).needsPassword).toBe(true);
     expect((await signer()).label).toContain('lab.passphrase is not read');
-    const demo = await dispatch(service, 'demoPair', {});
-    if (!demo.ok) throw new Error(demo.error.message);
-    const pair = demo.value as { day1: unknown; day2: unknown; title: string };
-    const created = await dispatch(service, 'createCase', { title: pair.title, day1: pair.day1, day2: pair.day2, clinical: { day1: none, day2: none } });
-    if (!created.ok) throw new Error(created.error.message);
-    const caseId = (created.value as { caseId: string }).caseId;
+    const caseId = await openDemoCase(service);
     const exportWith = (password?: string, s = service) => dispatch(s, 'exportReport', { caseId, signerId: 'lab', reviewer: 'T. Tester (MSc)', ...(password ? { password } : {}) });
 
     const asked = await exportWith();

@@ -7,20 +7,15 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { dispatch } from '../../../host/workbench/api';
+import { openDemoCase } from './demo-case';
 import { createWiredService } from '../../../host/workbench/wiring';
 
-const none = { peakRpe: null, lactateMmolL: null, fev1L: null, mvvLMin: null, restingHrBpm: null };
 
 describe('workbench report locale', () => {
   it('a preview in fr-FR prints French number and date formats', async () => {
     const dataDir = mkdtempSync(join(tmpdir(), 'twofold-wb-locale-'));
     const service = createWiredService({ dataDir });
-    const demo = await dispatch(service, 'demoPair', {});
-    if (!demo.ok) throw new Error(demo.error.message);
-    const pair = demo.value as { day1: unknown; day2: unknown; title: string };
-    const created = await dispatch(service, 'createCase', { title: pair.title, day1: pair.day1, day2: pair.day2, clinical: { day1: none, day2: none } });
-    if (!created.ok) throw new Error(created.error.message);
-    const caseId = (created.value as { caseId: string }).caseId;
+    const caseId = await openDemoCase(service);
     const preview = await dispatch(service, 'previewReport', { caseId, reviewer: '', locale: 'fr-FR' });
     if (!preview.ok) throw new Error(preview.error.message);
     const pdf = join(dataDir, 'preview.pdf');
