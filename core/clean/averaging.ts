@@ -1,6 +1,6 @@
 /**
  * Averaging of breath-by-breath data into the processed series every detector and chart
- * uses. Three published-practice forms (Robergs, Dwyer & Astorino, Sports Med
+ * uses. Three published-practice forms (Robergs et al., Sports Med
  * 2010;40:95–111, compare time- and breath-based averaging and recommend stating the choice):
  *
  * - `rolling-time`: at each breath, the mean of all breaths within ± windowS/2 s of it

@@ -153,7 +153,7 @@ export const SETTING_SOURCES: Readonly<Record<string, string>> = {
   'import.implausible.rerMax': 'common practice (plausibility limit, no single source)',
   'import.rerMismatch': 'common practice (no single source)',
   'clean.outliers': 'local-SD breath rejection after Lamarra et al., J Appl Physiol 1987;62:2003–12; window and limit common practice',
-  'clean.averaging': 'time-based rolling mean; 15 s window is common practice (Robergs, Dwyer & Astorino, Sports Med 2010;40:95–111 discuss 10–30 s windows)',
+  'clean.averaging': 'time-based rolling mean; 15 s window is common practice (Robergs et al., Sports Med 2010;40:95–111 discuss 10–30 s windows)',
   'clean.phases': 'detected from the load; user override',
   'thresholds.minPointsPerSegment': 'common practice (no single source)',
   'thresholds.disagreementPct': 'common practice (no single source)',

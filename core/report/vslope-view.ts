@@ -1,6 +1,6 @@
 /**
- * What a V-slope chart shows, computed once for the workbench and the report (Beaver,
- * Wasserman & Whipp, J Appl Physiol 1986;60:2020–7): VCO2 against VO2 over the analysed
+ * What a V-slope chart shows, computed once for the workbench and the report (Beaver et
+ * al., J Appl Physiol 1986;60:2020–7): VCO2 against VO2 over the analysed
  * window (the incremental phase up to VT2, or to its end without a VT2), the ramp above VT2
  * kept as faint context, rest, unloaded pedalling and recovery left out; the two regression
  * lines of the V-slope fit with their slopes; the line of identity (slope 1); and one range

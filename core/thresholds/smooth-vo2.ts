@@ -9,7 +9,7 @@
  * 2006, ch. 4). VO2 follows the load smoothly (first-order kinetics, no bend at VT1), so a
  * local straight line over a minute or two follows it closely; VCO2 and VE keep their own
  * (15-s averaged) values, so the bend the method looks for is left untouched.
- * Local linear fit: Fan & Gijbels, Local Polynomial Modelling and Its Applications, 1996
+ * Local linear fit: Fan et al., Local Polynomial Modelling and Its Applications, 1996
  * (uniform kernel, our choice for a linear-time sliding computation). Units: s, mL/min.
  * Assumption: timeS is in increasing order; non-finite VO2 values are skipped.
  */

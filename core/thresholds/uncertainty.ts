@@ -234,7 +234,7 @@ export const ROBUST_SPREAD_MIN_METHODS = 5;
 /**
  * The between-method spread, mL/min: with at least `ROBUST_SPREAD_MIN_METHODS` estimates the
  * scaled median absolute deviation, 1.4826 · median |x − median x| (consistent for the SD of
- * a normal sample; Rousseeuw & Croux, J Am Stat Assoc 1993;88:1273–83), so that one method
+ * a normal sample; Rousseeuw et al., J Am Stat Assoc 1993;88:1273–83), so that one method
  * biased far from the rest does not widen the interval on its own; with fewer, the sample SD
  * (with three estimates one deviation from the median is zero by construction and the MAD is
  * not a usable scale). 0 with one estimate.

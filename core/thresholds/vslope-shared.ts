@@ -6,8 +6,8 @@
  * Physiology: below VT1 ventilation tracks CO2 output; at VT1 the bicarbonate-buffered CO2
  * makes VCO2 rise faster than VO2 (the V-slope bend, Beaver et al., J Appl Physiol
  * 1986;60:2020–7), and ventilation, still following VCO2 (isocapnic buffering), bends against
- * VO2 at the same point (the rise of VE/VO2 without a rise of VE/VCO2, Wasserman, Whipp, Koyal
- * & Beaver, J Appl Physiol 1973;35:236–43). Fitting both with one knot uses both signals
+ * VO2 at the same point (the rise of VE/VO2 without a rise of VE/VCO2, Wasserman et
+ * al., J Appl Physiol 1973;35:236–43). Fitting both with one knot uses both signals
  * (combining methods improves reliability: Gaskill et al., Med Sci Sports Exerc
  * 2001;33:1841–8). The x-axis is VO2 smoothed over ±60 s by a local straight line
  * (core/thresholds/smooth-vo2.ts, regression calibration for noise in x); VCO2 and VE are the
