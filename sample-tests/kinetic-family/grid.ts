@@ -10,7 +10,8 @@
  *   other half 8–12 min at noise ×1.5–2.
  *
  * Seeds: 1–4999 are HELD-OUT validation seeds (measure once, never tune on them);
- * 5000 and up are DEVELOPMENT seeds (tune and explore there).
+ * 5000 and up are DEVELOPMENT seeds (tune and explore there), except 200001–201504, the
+ * large held-out coverage sets (tests/validation/coverage-sets.ts), never tuned on either.
  */
 import { seededRandom } from '../../core/math/random';
 import { simulateCourse } from './course';

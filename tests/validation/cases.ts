@@ -156,7 +156,10 @@ function makeCase(condition: GridCondition, cell: ProtocolCell, noiseScale: numb
 
 /** First seed of the held-out validation set; tuning uses DEVELOPMENT_FIRST_SEED instead. */
 export const VALIDATION_FIRST_SEED = 1;
-/** First seed of the development set: the same conditions, other subjects and noise. */
+/**
+ * First seed of the development set: the same conditions, other subjects and noise. Not
+ * 200001–201504: the large held-out coverage sets (coverage-sets.ts).
+ */
 export const DEVELOPMENT_FIRST_SEED = 5000;
 /** The hard condition's seeds start this far after the main condition's (no seed shared). */
 export const HARD_SEED_OFFSET = 1000;

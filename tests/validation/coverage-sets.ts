@@ -122,11 +122,11 @@ export function coverageRow(name: string, results: readonly CaseResult[]): strin
 export interface MeasuredSet {
   readonly set: CoverageSet;
   readonly results: readonly CaseResult[];
-  /** Wall time to build and analyse the set, s. */
+  /** Wall time to analyse the set, s (the sets are built before, in coverageSets()). */
   readonly seconds: number;
 }
 
-/** Builds and analyses every coverage set (default settings, as measure.ts). */
+/** Builds every coverage set, then analyses each (default settings, as measure.ts). */
 export function measureCoverageSets(): MeasuredSet[] {
   return coverageSets().map((set) => {
     const t0 = Date.now();
@@ -142,7 +142,7 @@ export function measureCoverageSets(): MeasuredSet[] {
  */
 export function coverageReport(measured: readonly MeasuredSet[]): string {
   const lines = [COVERAGE_HEADER];
-  for (const m of measured) lines.push(coverageRow(`${m.set.name} (${m.seconds.toFixed(0)} s)`, m.results));
+  for (const m of measured) lines.push(coverageRow(`${m.set.name} (analysis ${m.seconds.toFixed(0)} s)`, m.results));
   for (const m of measured.filter((x) => x.set.condition === 'hard')) {
     for (const kind of ['short ramp', 'very noisy']) lines.push(coverageRow(`${m.set.family}, hard: ${kind}`, m.results.filter((r) => r.c.hardKind === kind)));
   }
