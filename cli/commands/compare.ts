@@ -7,8 +7,9 @@
  * The shell reads the files and hands bytes and text to core/ (import, analyzeTest,
  * compareTests); every number comes from core. A batch runs the pairs on worker threads (one
  * per core by default), keeps manifest order in the results, and never stops for one bad pair:
- * the pair is reported with its place and skipped. Exit 0 when the run completed (skipped pairs
- * are counted), 2 for bad input (`FILE:LINE:COLUMN: message`) and for a refused pair (same
+ * the pair is reported with its place and skipped. Exit 0 when the run completed and compared
+ * at least one pair (skipped pairs are counted), 2 when every pair was skipped (the results
+ * file still lists each with its reason) and for bad input (`FILE:LINE:COLUMN: message`) and for a refused pair (same
  * file or series for both days, day 2 before day 1 without --allow-order, `# day:` metadata
  * contradicting the slot; core/compare/refusals.ts), 1 otherwise.
  */
@@ -318,6 +319,10 @@ async function runBatch(manifestPath: string, outPath: string, settings: Setting
   }
   const seconds = (performance.now() - started) / 1000;
   io.err(`Compared ${total - skipped.length} of ${total} pairs in ${seconds.toFixed(1)} s; skipped ${skipped.length}${skipped.length ? ' (listed above)' : ''}. ${bandStatement(band)} Results: ${outPath}\n`);
+  if (total > 0 && skipped.length === total) {
+    io.err(`twofold compare: no pair could be compared (all ${total} skipped), so the run produced no comparison.\n`);
+    return EXIT_BAD_INPUT;
+  }
   return EXIT_OK;
 }
 

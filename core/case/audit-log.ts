@@ -79,7 +79,11 @@ export function verifyLog(caseFile: CaseFile, file = 'case file', lineOf: (seq: 
   if (caseFile.log.length === 0) {
     return fail(locatedError('log-empty', file, null, null, 'The reviewer log is empty, but every case starts with an opening entry: entries have been removed, so the history cannot be trusted.'));
   }
-  // Cases opened before opening entries existed start at entry 1 (core/case/opening.ts).
+  // Version 1 cases opened before opening entries existed start at entry 1 (core/case/opening.ts);
+  // a version 2 case always starts with its opening entry, so one that does not was cut.
+  if (caseFile.version !== 1 && caseFile.log[0].action.kind !== 'case-opened') {
+    return fail(locatedError('log-order', file, lineOf(caseFile.log[0].seq), null, `The reviewer log's first entry is number ${caseFile.log[0].seq}, not the opening entry every version ${caseFile.version} case starts with: entries have been removed, so the history cannot be trusted.`));
+  }
   const first = caseFile.log[0].action.kind === 'case-opened' ? 0 : 1;
   for (let i = 0; i < caseFile.log.length; i++) {
     const entry = caseFile.log[i];

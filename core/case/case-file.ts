@@ -1,6 +1,6 @@
 /**
  * The case file: everything needed to reproduce one two-day comparison and its review.
- * Format `twofold-case`, version 1, documented in docs/case-file.md. It holds the two raw
+ * Format `twofold-case`, version 2 (version 1 still read), documented in docs/case-file.md. It holds the two raw
  * breath files by SHA-256 (their copies sit beside it in the case folder) with the column
  * map each is read with, the settings, the clinical inputs, the numbers recorded when it
  * was last saved, and the reviewer log: an append-only, hash-chained list of
@@ -12,7 +12,16 @@ import type { Settings } from '../model/settings';
 import type { FollowUpAction } from '../followup/actions';
 
 export const CASE_FORMAT = 'twofold-case' as const;
-export const CASE_VERSION = 1 as const;
+/**
+ * The version this Twofold writes. Version 2 cases always start with their opening entry
+ * (opening.ts), so an empty log in one is refused; version 1 (written before version 2, with or
+ * without an opening entry) is still read and keeps its version, since the version is part
+ * of the anchor its log is chained to.
+ */
+export const CASE_VERSION = 2 as const;
+/** Every version this Twofold reads. */
+export const CASE_VERSIONS_READ = [1, 2] as const;
+export type CaseVersion = (typeof CASE_VERSIONS_READ)[number];
 
 export type DayNumber = 1 | 2;
 
@@ -106,7 +115,7 @@ export interface RecordedResults {
 
 export interface CaseFile {
   readonly format: typeof CASE_FORMAT;
-  readonly version: typeof CASE_VERSION;
+  readonly version: CaseVersion;
   /** ISO 8601 date-time the case was opened, given by the shell. */
   readonly createdAt: string;
   readonly inputs: { readonly day1: RawInput; readonly day2: RawInput };

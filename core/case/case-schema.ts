@@ -1,5 +1,5 @@
 /**
- * The zod schema of case file format version 1 (docs/case-file.md). Loading validates
+ * The zod schema of case file format, versions 1 and 2 (docs/case-file.md). Loading validates
  * against it before anything is trusted; the TypeScript types in case-file.ts and this
  * schema describe the same shape, and the test suite checks that a saved case parses.
  */
@@ -7,7 +7,7 @@ import { settingsSchema } from '../analyze/settings-input';
 import { parseMapping } from '../import/mapping';
 import { z } from 'zod';
 import { followUpReportSchema } from '../followup/report-schema';
-import { CASE_FORMAT, CASE_VERSION } from './case-file';
+import { CASE_FORMAT } from './case-file';
 import { resolveLocale } from '../locale/locales';
 
 const num = z.number().finite();
@@ -69,7 +69,7 @@ const leaf = z.union([z.number(), z.string(), z.boolean(), z.null()]);
 
 export const caseSchema = z.object({
   format: z.literal(CASE_FORMAT),
-  version: z.literal(CASE_VERSION),
+  version: z.union([z.literal(1), z.literal(2)]),
   createdAt: isoTime,
   inputs: z.object({ day1: rawInputSchema, day2: rawInputSchema }),
   settings: settingsSchema,

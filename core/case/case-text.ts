@@ -1,13 +1,14 @@
 /**
  * The case file to and from text. Saving writes indented JSON with one key per line (so a
  * located error can point at a line, and a diff reads well); loading parses, checks the
- * format and version, validates with the zod schema, migrates a case file older than
- * opening entries (an empty log gets one, marked migrated; opening.ts), and checks the
+ * format and version, validates with the zod schema, migrates a version 1 case file older
+ * than opening entries (an empty log gets one, marked migrated; opening.ts), refuses an empty
+ * log in a version 2 case (which always starts with its opening entry), and checks the
  * reviewer log's hash chain. Anything wrong comes back as a located error, never as an exception.
  */
 import { fail, locatedError, ok, type Result } from '../model/errors';
 import { verifyLog } from './audit-log';
-import { CASE_FORMAT, CASE_VERSION, type CaseFile } from './case-file';
+import { CASE_FORMAT, CASE_VERSION, CASE_VERSIONS_READ, type CaseFile } from './case-file';
 import { caseSchema } from './case-schema';
 import { openingEntry } from './opening';
 
@@ -31,8 +32,8 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
   if (!head || typeof head !== 'object' || head.format !== CASE_FORMAT) {
     return fail(locatedError('case-wrong-format', file, 1, 1, `This is not a Twofold case file (expected "format": "${CASE_FORMAT}").`));
   }
-  if (head.version !== CASE_VERSION) {
-    return fail(locatedError('case-version', file, lineOfKey(text, 'version', 0), null, `This case file is version ${String(head.version)}; this Twofold reads version ${CASE_VERSION}.`));
+  if (!(CASE_VERSIONS_READ as readonly unknown[]).includes(head.version)) {
+    return fail(locatedError('case-version', file, lineOfKey(text, 'version', 0), null, `This case file is version ${String(head.version)}; this Twofold reads versions ${CASE_VERSIONS_READ.join(' and ')} (it writes version ${CASE_VERSION}).`));
   }
   const parsed = caseSchema.safeParse(data);
   if (!parsed.success) {
@@ -42,7 +43,11 @@ export function caseFromText(text: string, file: string): Result<CaseFile> {
     return fail(locatedError('case-invalid', file, place?.line ?? null, place?.column ?? null, `The case file's field ${path || '(top level)'} is not valid: ${issue.message}.`));
   }
   const read = parsed.data as CaseFile;
-  // A case file from before opening entries, with an empty log, is migrated (opening.ts).
+  // A version 1 case file from before opening entries, with an empty log, is migrated
+  // (opening.ts); a version 2 case always has its opening entry, so an empty log there was cut.
+  if (read.log.length === 0 && read.version !== 1) {
+    return fail(locatedError('log-empty', file, lineOfKey(text, 'log', 0), null, `The reviewer log is empty, but a version ${read.version} case always starts with its opening entry: entries have been removed, so the history cannot be trusted.`));
+  }
   const caseFile = read.log.length === 0 ? { ...read, log: [openingEntry(read, true)] } : read;
   const chain = verifyLog(caseFile, file, (seq) => lineOfEntry(text, seq));
   if (!chain.ok) return chain;

@@ -6,11 +6,13 @@
  * reviewed yet breaks the chain just as it does for a reviewed one. Reviewer entries are
  * numbered from 1 after it, as before.
  *
- * Case files written before opening entries existed are migrated when they are read
- * (case-text.ts): an empty log gets an opening entry marked `migrated: true` (which the
+ * Case files written before opening entries existed (version 1) are migrated when they are
+ * read (case-text.ts): an empty log gets an opening entry marked `migrated: true` (which the
  * report's log and `twofold override --list` show), and a log that already has entries is
- * kept as it is, since its first entry already chains the inputs. An emptied log of a newer
- * case reads like such an old one; what catches that is a later head (a report's build
+ * kept as it is, since its first entry already chains the inputs. Cases are now written as
+ * version 2, which always starts with its opening entry: an empty log there, or one whose
+ * first entry is not the opening, is refused. A version 1 case emptied by hand still reads
+ * as an old one (marked migrated); what catches that is a later head (a report's build
  * record, core/report/build-record.ts).
  */
 import { anchorHash, entryHash } from './audit-log';

@@ -3,23 +3,29 @@
  *
  *     twofold-case.json      the case file with its reviewer log (host/case-folder.ts)
  *     raw/<sha256>.<ext>     each day's breath file, copied verbatim (host/case-folder.ts)
- *     case-info.json         the workbench's own note: title and last save time
+ *     case-info.json         the workbench's own note: title, last save time and the head of
+ *                            the reviewer log it last saved (entry count, last hash)
  *     reports/               exported reports
  *
  * A new case is made by core (`newCase`) from the bytes the user chose, so the folder is
  * self-contained from the first moment. Every save parses and checks the case text
  * (schema and hash chain) before it replaces the file atomically: a damaged or forged case
- * never reaches the disk, and a kill mid-save leaves the previous version intact.
+ * never reaches the disk, and a kill mid-save leaves the previous version intact. A save must
+ * continue the log on disk (nothing removed or rewritten), and a case whose log no longer
+ * continues the head the workbench last saved is refused on opening: the log cannot be cut
+ * short behind the workbench's back without it saying so.
  */
 import { readdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BridgeError, CaseSummary, FilePayload } from './api';
 import type { ClinicalInputs } from '../../core/model/analysis';
 import type { Settings } from '../../core/model/settings';
+import type { CaseFile } from '../../core/case/case-file';
 import { newCase } from '../../core/case/new-case';
 import { sha256Hex } from '../../core/case/sha256';
 import { caseFromText, caseToText } from '../../core/case/case-text';
 import { reviewerEntries } from '../../core/case/opening';
+import { logHeadOf, logShortenedFrom, type LogHead } from '../../core/report/build-record';
 import { loadCase, privateFolder, saveCase } from '../case-folder';
 import { writeFileAtomic } from '../atomic-write';
 
@@ -33,11 +39,23 @@ export interface CaseStoreDeps {
 interface CaseInfo {
   readonly title: string;
   readonly savedAt: string;
+  /** The reviewer log's head at the last save; absent in notes written before it was kept. */
+  readonly logHead?: LogHead;
 }
 
 type Outcome<T> = { ok: true; value: T } | { ok: false; error: BridgeError };
 
 const CASE_ID = /^case-[0-9]{8}-[0-9]{6}-[0-9a-f]{6}$/;
+
+/**
+ * Why `log` does not continue `head`, or null. While the head is the opening entry alone, that
+ * entry may be made again for new column maps or clinical inputs (core/case/opening.ts
+ * `resealOpening`; its chain to the new inputs is checked on reading), so only a later head's
+ * last hash must match.
+ */
+function cutFrom(log: CaseFile['log'], head: LogHead): string | null {
+  return head.entries <= 1 ? (log.length === 0 ? logShortenedFrom({ log }, head) : null) : logShortenedFrom({ log }, head);
+}
 
 export function newCaseId(now: Date, hex6: string): string {
   const iso = now.toISOString();
@@ -55,6 +73,17 @@ export function createCaseStore(deps: CaseStoreDeps) {
   };
   const infoPath = (caseId: string) => join(folderOf(caseId), 'case-info.json');
   const writeInfo = (caseId: string, info: CaseInfo) => writeFileAtomic(infoPath(caseId), `${JSON.stringify(info, null, 2)}\n`);
+
+  /** Why the log no longer continues the head the workbench last saved, or null (also when no head was kept). */
+  function shortenedSinceLastSave(caseId: string, log: CaseFile['log']): string | null {
+    let info: CaseInfo;
+    try {
+      info = JSON.parse(readFileSync(infoPath(caseId), 'utf8')) as CaseInfo;
+    } catch {
+      return null; // an unreadable note is listed as such (list()); the case file's own checks still ran
+    }
+    return info.logHead ? cutFrom(log, info.logHead) : null;
+  }
 
   function summaryOf(caseId: string): CaseSummary {
     const info = JSON.parse(readFileSync(infoPath(caseId), 'utf8')) as CaseInfo;
@@ -76,7 +105,7 @@ export function createCaseStore(deps: CaseStoreDeps) {
       privateFolder(join(folder, 'reports'));
       const saved = saveCase(folder, caseFile, raw);
       if (!saved.ok) return saved;
-      writeInfo(caseId, { title, savedAt: now.toISOString() });
+      writeInfo(caseId, { title, savedAt: now.toISOString(), logHead: logHeadOf(caseFile) });
       return { ok: true, value: { caseId, title, savedAt: now.toISOString(), day1Name: day1.name, day2Name: day2.name } };
     },
 
@@ -84,6 +113,8 @@ export function createCaseStore(deps: CaseStoreDeps) {
       const loaded = loadCase(folderOf(caseId));
       if (!loaded.ok) return loaded;
       const { caseFile, raw, path } = loaded.value;
+      const cut = shortenedSinceLastSave(caseId, caseFile.log);
+      if (cut) return { ok: false, error: { code: 'log-shortened', file: path, line: null, column: null, message: `${cut} The case was not opened; restore it from a backup or an exported report.` } };
       return {
         ok: true,
         value: {
@@ -107,12 +138,14 @@ export function createCaseStore(deps: CaseStoreDeps) {
       if (before.day1.sha256 !== after.day1.sha256 || before.day2.sha256 !== after.day2.sha256) {
         return { ok: false, error: { code: 'case-inputs-differ', file: current.value.path, line: null, column: null, message: 'The case to save names different breath files from the ones in its folder, so it was not saved.' } };
       }
+      const dropped = cutFrom(parsed.value.log, logHeadOf(current.value.caseFile));
+      if (dropped) return { ok: false, error: { code: 'log-shortened', file: current.value.path, line: null, column: null, message: `The case to save does not continue the reviewer log on disk, so it was not saved: ${dropped}` } };
       const text = caseToText(parsed.value);
       const saved = saveCase(folder, parsed.value, current.value.raw);
       if (!saved.ok) return saved;
       const info = JSON.parse(readFileSync(infoPath(caseId), 'utf8')) as CaseInfo;
       const savedAt = deps.now().toISOString();
-      writeInfo(caseId, { ...info, savedAt });
+      writeInfo(caseId, { ...info, savedAt, logHead: logHeadOf(parsed.value) });
       return { ok: true, value: { savedAt, bytes: Buffer.byteLength(text, 'utf8') } };
     },
 

@@ -1,7 +1,7 @@
 // `twofold compare` end to end through the real importer and analyzeTest, on pairs written
 // by the test-data generator (a stated model with known VT1; sample-tests/generator). The
 // band is Twofold's default (24-h controls; VT1 VO2 CV 6 % → −14.9 / +17.5 % on the log scale).
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -164,6 +164,19 @@ describe('twofold compare --manifest', () => {
     expect(fast.thresholds.bootstrap.replicates).toBe(settings.thresholds.bootstrap.replicates);
     const quick = compareTests(await read(declining.day1, fast), await read(declining.day2, fast), settings);
     expect(resultsRow({ pairId: 'X', status: 'compared', comparison: quick })).toBe(resultsRow({ pairId: 'X', status: 'compared', comparison: full }));
+  });
+
+  it('a batch in which every pair is skipped exits 2, and its results still list each pair with its reason', async () => {
+    const batch = join(dir, 'all-skipped');
+    mkdirSync(batch, { recursive: true });
+    writeFileSync(join(batch, 'broken.csv'), 'time_s,vo2_ml_min,vco2_ml_min,ve_l_min\n0,abc\n');
+    writeFileSync(join(batch, 'manifest.csv'), 'pair_id,day1_file,day2_file\nX,broken.csv,none.csv\nY,none.csv,broken.csv\n');
+    const t = captureIo(dir);
+    expect(await main(['compare', '--manifest', join(batch, 'manifest.csv'), '--out', join(batch, 'results.csv')], t.io)).toBe(2);
+    expect(t.err()).toMatch(/Compared 0 of 2 pairs .*skipped 2/);
+    expect(t.err()).toContain('no pair could be compared (all 2 skipped)');
+    const rows = readFileSync(join(batch, 'results.csv'), 'utf8').trim().split('\n');
+    expect(rows.slice(1).map((r) => r.split(',').slice(0, 2).join(','))).toEqual(['X,skipped', 'Y,skipped']);
   });
 
   it('a bad manifest exits 2 with its place', async () => {

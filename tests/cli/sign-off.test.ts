@@ -4,7 +4,7 @@
 // change ends the sign-off (the report is a draft again), and mistakes exit 2 with the flag
 // or the file named and nothing written. The rules are Twofold's own (docs/cli.md).
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -12,6 +12,8 @@ import { main } from '../../cli/main';
 import { io } from './capture-io';
 import { loadCase } from '../../host/case-folder';
 import { DEMO_FOLDER, DEMO_PAIR } from '../../host/demo-job';
+import { caseToText } from '../../core/case/case-text';
+import { opensslCertificate } from '../core/report/fixture';
 
 const day1 = join(DEMO_FOLDER, DEMO_PAIR.day1);
 const day2 = join(DEMO_FOLDER, DEMO_PAIR.day2);
@@ -77,6 +79,27 @@ describe('twofold sign-off', () => {
     for (const p of again) expect(p).toContain('DRAFT');
     expect(again.join(' ').replace(/\s+/g, ' ')).toContain('was followed by a threshold change');
   });
+
+  it('the sign-off removed from the case folder after a signed report: the case still loads, verify --case fails and says so', async () => {
+    // Issue 12 item 3: deleting the last entry leaves a valid chain; the report's log head shows the cut.
+    await report('cut');
+    const folder = join(dir, 'cut-case');
+    expect(await main(['sign-off', folder, '--statement', STATEMENT, ...WHO], io().io)).toBe(0);
+    const cert = opensslCertificate();
+    const out = join(dir, 'cut-signed.pdf');
+    const r = io({ LAB_PASS: cert.password });
+    expect(await main(['report', day1, day2, '--out', out, '--case', folder, '--sign', join(cert.dir, 'lab.p12'), '--pass-env', 'LAB_PASS', '--reviewer', 'R. Second'], r.io), r.err()).toBe(0);
+    const before = io();
+    expect(await main(['verify', out, '--trust', cert.certPem, '--case', folder], before.io), before.out() + before.err()).toBe(0);
+
+    const loaded = loadCase(folder);
+    if (!loaded.ok) throw new Error(loaded.error.message);
+    writeFileSync(join(folder, 'twofold-case.json'), caseToText({ ...loaded.value.caseFile, log: loaded.value.caseFile.log.slice(0, 1) }));
+    expect(loadCase(folder).ok).toBe(true); // the opening entry alone is a valid chain
+    const after = io();
+    expect(await main(['verify', out, '--trust', cert.certPem, '--case', folder], after.io)).toBe(1);
+    expect(after.out() + after.err()).toMatch(/reviewer log has 1 entry, but a report made from it recorded 2: entries were removed/);
+  }, 240_000);
 
   it('refuses a missing or empty statement, reviewer or role with exit 2, naming the flag; nothing is written', async () => {
     await report('bad');

@@ -5,7 +5,7 @@
  * states the rule; the tampering is done by hand here).
  */
 import { createHash } from 'node:crypto';
-import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeEach, describe, expect, it } from 'vitest';
@@ -15,6 +15,7 @@ import { DEFAULT_SETTINGS } from '../../../core/model/settings';
 import { noClinicalInputs } from '../../../core/analyze/analyze-test';
 import { caseFromText, caseToText } from '../../../core/case/case-text';
 import { appendEntry } from '../../../core/case/audit-log';
+import { resealOpening } from '../../../core/case/opening';
 
 const payload = (name: string) => ({ name, base64: readFileSync(join(DEMO_FOLDER, name)).toString('base64') });
 const clinical = { day1: noClinicalInputs(), day2: noClinicalInputs() };
@@ -95,6 +96,39 @@ describe('case store', () => {
     expect(result.ok).toBe(false);
     if (!result.ok) expect(result.error.code).toBe('log-entry-altered');
     expect(readFileSync(join(store.folderOf(summary.caseId), 'twofold-case.json'), 'utf8')).toBe(before);
+  });
+
+  it('refuses to save a case whose log drops the entry on disk, and keeps the saved one', () => {
+    const { summary, next } = createdWithEntry();
+    expect(store.save(summary.caseId, caseToText(next.value)).ok).toBe(true);
+    const before = readFileSync(join(store.folderOf(summary.caseId), 'twofold-case.json'), 'utf8');
+    // The sign-off removed: what is left (the opening entry) is a valid chain on its own.
+    const result = store.save(summary.caseId, caseToText({ ...next.value, log: next.value.log.slice(0, 1) }));
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.error).toMatchObject({ code: 'log-shortened', message: expect.stringMatching(/has 1 entry, but a report made from it recorded 2/) });
+    expect(readFileSync(join(store.folderOf(summary.caseId), 'twofold-case.json'), 'utf8')).toBe(before);
+  });
+
+  it('still saves a case whose only entry, the opening, was made again for new clinical inputs', () => {
+    const summary = created();
+    const opened = store.open(summary.caseId);
+    if (!opened.ok) throw new Error(opened.error.message);
+    const c = caseFromText(opened.value.caseJson, 'case');
+    if (!c.ok) throw new Error(c.error.message);
+    const changed = resealOpening({ ...c.value, clinical: { ...c.value.clinical, day1: { ...c.value.clinical.day1, peakRpe: 19 } } });
+    expect(changed.log[0].hash).not.toBe(c.value.log[0].hash);
+    expect(store.save(summary.caseId, caseToText(changed)).ok).toBe(true);
+    expect(store.open(summary.caseId).ok).toBe(true);
+  });
+
+  it('refuses to open a case whose log on disk was cut short after the workbench saved it', () => {
+    const { summary, next } = createdWithEntry();
+    expect(store.save(summary.caseId, caseToText(next.value)).ok).toBe(true);
+    // Cut by hand on disk: the sign-off removed, the rest left as a valid chain.
+    writeFileSync(join(store.folderOf(summary.caseId), 'twofold-case.json'), caseToText({ ...next.value, log: next.value.log.slice(0, 1) }));
+    const opened = store.open(summary.caseId);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.error).toMatchObject({ code: 'log-shortened', message: expect.stringMatching(/entries were removed.*was not opened/) });
   });
 
   it('refuses a case that names other breath files than its folder holds', () => {
