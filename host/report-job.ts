@@ -5,7 +5,6 @@
  * sign it if asked, and write it atomically. File reading, the clock and the certificate
  * come in from here; every computation is a core function.
  */
-import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import type { CaseFile } from '../core/case/case-file';
 import { caseToText } from '../core/case/case-text';
@@ -18,6 +17,7 @@ import { writeFileAtomic } from './atomic-write';
 import { saveCase } from './case-folder';
 import { cachedEngine } from './cached-engine';
 import { reportFonts } from './fonts';
+import { readFileBytes } from './read-bytes';
 
 export interface Certificate {
   readonly p12: Uint8Array;
@@ -94,5 +94,5 @@ export async function runReportJob(job: ReportJob): Promise<Result<ReportJobResu
 
 /** A raw file as the case needs it: its bare name and its bytes. */
 export function readRaw(path: string): { name: string; bytes: Uint8Array } {
-  return { name: basename(path), bytes: new Uint8Array(readFileSync(path)) };
+  return { name: basename(path), bytes: readFileBytes(path) };
 }

@@ -4,7 +4,6 @@
  * core/analyze. Flags about the person override the file's metadata. Exit 0 when the test
  * was analysed, 2 for bad input (`FILE:LINE:COLUMN: message`), 1 for anything else.
  */
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { analyzeTest, noClinicalInputs } from '../../core/analyze/analyze-test';
 import { summaryJson } from '../../core/analyze/summary-json';
@@ -17,6 +16,7 @@ import type { ClinicalInputs, TestAnalysis, ThresholdResult } from '../../core/m
 import { fail, formatLocated, locatedError, type LocatedError, type Result } from '../../core/model/errors';
 import type { ImportResult } from '../../core/import/types';
 import { DEFAULT_SETTINGS, type Settings } from '../../core/model/settings';
+import { readFileBytes } from '../../host/read-bytes';
 import { numberFlag, parseFlags } from '../args';
 import { EXIT_BAD_INPUT, EXIT_OK, UsageError, type CliIo } from '../io';
 
@@ -55,7 +55,7 @@ const CAUTION =
 
 function readBytes(path: string, shown: string): Uint8Array | LocatedError {
   try {
-    return new Uint8Array(readFileSync(path));
+    return readFileBytes(path);
   } catch (error) {
     const why = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : error instanceof Error ? error.message : String(error);
     return locatedError('unreadable-file', shown, null, null, `The file cannot be read (${why}).`);

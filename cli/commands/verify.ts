@@ -7,11 +7,11 @@
  * report's. One line per check. Exit 0 only when every check holds; 3 when everything holds
  * but the signer is not trusted; 1 when any other check fails; 2 when a file cannot be read.
  */
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { formatLocated } from '../../core/model/errors';
 import { loadCase } from '../../host/case-folder';
 import { readProblem } from '../../host/read-problem';
+import { readFileBytes } from '../../host/read-bytes';
 import { readTrustFiles } from '../../host/trust-files';
 import { verifyReport, type VerifyOptions } from '../../host/verify-report';
 import { parseFlags } from '../args';
@@ -43,7 +43,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
   const path = resolve(io.cwd, positionals[0]);
   let bytes: Uint8Array;
   try {
-    bytes = new Uint8Array(readFileSync(path));
+    bytes = readFileBytes(path);
   } catch (error) {
     io.err(`${path}:0:0: ${readProblem(error, 'report')}\n`);
     return EXIT_BAD_INPUT;

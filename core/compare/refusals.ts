@@ -35,15 +35,55 @@ const SAME_SHARE = 0.5;
 
 type Series = TestAnalysis['series'];
 
+/**
+ * Same value as the text of a number compares: NaN equals NaN, and −0 equals 0 (the test
+ * once compared `${vo2}|${vco2}|${ve}` keys; this keeps its meaning without a million strings).
+ */
+function sameNumber(x: number, y: number): boolean {
+  return x === y || (x !== x && y !== y);
+}
+
+const bits = new Float64Array(1);
+const words = new Int32Array(bits.buffer);
+
+/** A 32-bit hash of a number's bits, with −0 read as 0 and every NaN as one NaN. */
+function numberHash(x: number, h: number): number {
+  bits[0] = x === 0 ? 0 : x !== x ? Number.NaN : x;
+  h = Math.imul(h ^ words[0], 0x9e3779b1);
+  h = Math.imul(h ^ words[1], 0x85ebca77);
+  return h ^ (h >>> 15);
+}
+
+function pointHash(s: Series, i: number): number {
+  return numberHash(s.veLMin[i], numberHash(s.vco2MlMin[i], numberHash(s.vo2MlMin[i], 0x2f0f)));
+}
+
+/**
+ * Whether at least half the points (VO2, VCO2 and VE together) of one series occur exactly in
+ * the other: an open-addressing table of day 1's point indices, so a million-point pair costs
+ * a few megabytes of integers rather than a set of strings.
+ */
 function sameSeries(a: Series, b: Series): boolean {
   const na = a.vo2MlMin.length;
   const nb = b.vo2MlMin.length;
   if (na === 0 || nb === 0) return false;
-  const key = (s: Series, i: number) => `${s.vo2MlMin[i]}|${s.vco2MlMin[i]}|${s.veLMin[i]}`;
-  const seen = new Set<string>();
-  for (let i = 0; i < na; i++) seen.add(key(a, i));
+  let size = 1;
+  while (size < 2 * na) size *= 2;
+  const mask = size - 1;
+  const slots = new Int32Array(size).fill(-1);
+  const same = (s: Series, i: number, t: Series, j: number) =>
+    sameNumber(s.vo2MlMin[i], t.vo2MlMin[j]) && sameNumber(s.vco2MlMin[i], t.vco2MlMin[j]) && sameNumber(s.veLMin[i], t.veLMin[j]);
+  for (let i = 0; i < na; i++) {
+    let k = pointHash(a, i) & mask;
+    while (slots[k] >= 0 && !same(a, slots[k], a, i)) k = (k + 1) & mask;
+    if (slots[k] < 0) slots[k] = i;
+  }
   let equal = 0;
-  for (let i = 0; i < nb; i++) if (seen.has(key(b, i))) equal++;
+  for (let j = 0; j < nb; j++) {
+    let k = pointHash(b, j) & mask;
+    while (slots[k] >= 0 && !same(a, slots[k], b, j)) k = (k + 1) & mask;
+    if (slots[k] >= 0) equal++;
+  }
   return equal >= SAME_SHARE * Math.max(na, nb);
 }
 

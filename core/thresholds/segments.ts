@@ -114,18 +114,6 @@ export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, al
   return { x, y, mx, my, sx, sy, sxx, sxy, syy };
 }
 
-/** Reusable y arrays of one set of points, so the bootstrap allocates nothing per replicate. */
-export interface YScratch {
-  readonly y: Float64Array;
-  readonly sy: Float64Array;
-  readonly sxy: Float64Array;
-  readonly syy: Float64Array;
-}
-
-export function yScratch(n: number): YScratch {
-  return { y: new Float64Array(n), sy: new Float64Array(n + 1), sxy: new Float64Array(n + 1), syy: new Float64Array(n + 1) };
-}
-
 /** Centred OLS over points [from, to): slope, centred intercept and RSS; null without x spread. */
 function runFit(p: PreparedPoints, from: number, to: number): { b: number; a: number; rss: number } | null {
   const n = to - from;

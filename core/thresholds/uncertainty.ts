@@ -29,7 +29,7 @@ import { minPerSide } from './edge-floor';
 import { fitSample, type MethodSample } from './hinge-method';
 import { HINGE_METHODS } from './methods';
 import { timeAtValue, type MonotoneCurve } from './read-off';
-import { hingeFit, hingeValue, twoRegressionSplit, yScratch, type PreparedPoints, type YScratch } from './segments';
+import { hingeFit, hingeValue, twoRegressionSplit, type HingeFit, type PreparedPoints } from './segments';
 import { vslopeSample } from './vslope-hinge';
 
 export interface ThresholdCi {
@@ -41,15 +41,42 @@ export interface ThresholdCi {
   readonly parts?: { readonly bootSdMlMin: number; readonly methodSdMlMin: number; readonly floorSdMlMin: number };
 }
 
+/**
+ * What one method keeps for the whole bootstrap: its x-sorted x, the fit and the residuals
+ * (two arrays of the window's points). The fitted values are recomputed from the fit in each
+ * replicate, and the replicate's y and prefix sums go into one set of scratch arrays shared by
+ * all methods, so memory is 2 arrays per method plus 6 for the largest window (at a million
+ * breaths, the 14 arrays per method held before came to about 80 MB a method).
+ */
 interface Refit {
-  readonly base: PreparedPoints;
-  readonly scratch: YScratch;
-  readonly fitted: Float64Array;
+  readonly x: Float64Array;
+  readonly mx: number;
+  readonly my: number;
+  readonly fit: HingeFit;
   readonly residuals: Float64Array;
-  /** x − mean x of the base points, for the replicate's prefix sums. */
-  readonly centredX: Float64Array;
   readonly block: number;
   readonly estimate: (p: PreparedPoints) => number | null;
+}
+
+/** One replicate's y and prefix sums, sized to the largest window, reused by every method and replicate. */
+interface Scratch {
+  readonly y: Float64Array;
+  readonly sx: Float64Array;
+  readonly sy: Float64Array;
+  readonly sxx: Float64Array;
+  readonly sxy: Float64Array;
+  readonly syy: Float64Array;
+}
+
+function scratchFor(n: number): Scratch {
+  return {
+    y: new Float64Array(n),
+    sx: new Float64Array(n + 1),
+    sy: new Float64Array(n + 1),
+    sxx: new Float64Array(n + 1),
+    sxy: new Float64Array(n + 1),
+    syy: new Float64Array(n + 1),
+  };
 }
 
 /** First lag whose autocorrelation is below 0.1, within [1, n/4]. */
@@ -80,26 +107,21 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
   if (!base) return null;
   const { p, fit } = base;
   const n = p.x.length;
-  const fitted = new Float64Array(n);
   const residuals = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    fitted[i] = hingeValue(fit, p.x[i]);
-    residuals[i] = p.y[i] - fitted[i];
-  }
-  const centredX = new Float64Array(n);
-  for (let i = 0; i < n; i++) centredX[i] = p.x[i] - p.mx;
-  const s = sample;
+  for (let i = 0; i < n; i++) residuals[i] = p.y[i] - hingeValue(fit, p.x[i]);
+  // Only the point-to-VO2 map is kept, not the sample's own arrays.
+  const toPoint = sample.toPoint;
   return {
-    base: p,
-    scratch: yScratch(n),
-    fitted,
+    x: p.x,
+    mx: p.mx,
+    my: p.my,
+    fit,
     residuals,
-    centredX,
     block: blockLength(residuals),
     estimate: (q) => {
       const knot = estimateKnot(q);
       if (knot === null) return null;
-      const v = s.toPoint(knot).vo2MlMin;
+      const v = toPoint(knot).vo2MlMin;
       return Number.isFinite(v) ? v : null;
     },
   };
@@ -107,31 +129,50 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
 
 /**
  * One replicate of a method's points: fitted values plus residuals drawn in moving blocks,
- * written straight into the refit's scratch arrays, with the y prefix sums accumulated in the
+ * written straight into the shared scratch arrays, with the prefix sums accumulated in the
  * same pass. The sums are centred on the original points' mean (the fits only take
  * differences of the sums, so any fixed centre gives the same fit; this one needs no second
  * pass over the replicate).
  */
-function resampleInto(r: Refit, random: Random): PreparedPoints {
-  const { base, scratch, fitted, residuals, centredX } = r;
-  const { y, sy, sxy, syy } = scratch;
+function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoints {
+  const { x, mx, fit, residuals } = r;
+  const { y, sx, sy, sxx, sxy, syy } = scratch;
   const n = residuals.length;
   const L = r.block;
-  const centre = base.my;
+  const centre = r.my;
+  // The x sums are those preparePoints made (same order of operations), rebuilt here because
+  // the arrays are shared with the other methods.
+  sx[0] = 0;
+  sxx[0] = 0;
   let i = 0;
   while (i < n) {
     const shift = Math.floor(random() * (n - L + 1)) - i;
     const end = Math.min(n, i + L);
     for (; i < end; i++) {
-      const v = fitted[i] + residuals[i + shift];
+      const xi = x[i];
+      const v = hingeValue(fit, xi) + residuals[i + shift];
+      const cx = xi - mx;
       const cy = v - centre;
       y[i] = v;
+      sx[i + 1] = sx[i] + cx;
+      sxx[i + 1] = sxx[i] + cx * cx;
       sy[i + 1] = sy[i] + cy;
-      sxy[i + 1] = sxy[i] + centredX[i] * cy;
+      sxy[i + 1] = sxy[i] + cx * cy;
       syy[i + 1] = syy[i] + cy * cy;
     }
   }
-  return { x: base.x, y, mx: base.mx, my: centre, sx: base.sx, sy, sxx: base.sxx, sxy, syy };
+  const m = n + 1;
+  return {
+    x,
+    y: y.subarray(0, n),
+    mx,
+    my: centre,
+    sx: sx.subarray(0, m),
+    sy: sy.subarray(0, m),
+    sxx: sxx.subarray(0, m),
+    sxy: sxy.subarray(0, m),
+    syy: syy.subarray(0, m),
+  };
 }
 
 /** Early-stop rule of the settings; `checkEvery` 0 draws every replicate. */
@@ -193,12 +234,15 @@ export function methodReplicates(
     refits.push(r);
   }
   if (refits.length === 0) return null;
+  let largest = 0;
+  for (const r of refits) largest = Math.max(largest, r.x.length);
+  const scratch = scratchFor(largest);
   const rule = stopRule(input.settings.thresholds.bootstrap);
   const random = seededRandom((seed + seedOffset) >>> 0);
   const out: number[][] = [];
   let previous: readonly [number, number] | null = null;
   for (let b = 0; b < replicates; b++) {
-    out.push(refits.map((r) => r.estimate(resampleInto(r, random)) ?? Number.NaN));
+    out.push(refits.map((r) => r.estimate(resampleInto(r, scratch, random)) ?? Number.NaN));
     if (rule.checkEvery > 0 && out.length % rule.checkEvery === 0 && out.length < replicates) {
       const ends = percentileEnds(out, combine);
       if (previous && ends && intervalIsStable(previous, ends, rule.stableWithinPct)) break;

@@ -36,3 +36,39 @@ describe('same-series refusal', () => {
     expect(pairRefusals(a, copy).map((x) => x.code)).toContain('same-series');
   });
 });
+
+// The refusal's rule written out the plain way (as it was first built): a point is the text
+// `VO2|VCO2|VE`, and at least half the points of the longer series occur in the other. The
+// hashed table must decide exactly as this does, −0 and NaN included (their text is "0" and "NaN").
+function sameByText(a: TestAnalysis['series'], b: TestAnalysis['series']): boolean {
+  const key = (s: TestAnalysis['series'], i: number) => `${s.vo2MlMin[i]}|${s.vco2MlMin[i]}|${s.veLMin[i]}`;
+  const seen = new Set<string>();
+  for (let i = 0; i < a.vo2MlMin.length; i++) seen.add(key(a, i));
+  let equal = 0;
+  for (let i = 0; i < b.vo2MlMin.length; i++) if (seen.has(key(b, i))) equal++;
+  return a.vo2MlMin.length > 0 && b.vo2MlMin.length > 0 && equal >= 0.5 * Math.max(a.vo2MlMin.length, b.vo2MlMin.length);
+}
+
+describe('same-series refusal decides as the text rule does', () => {
+  const day1 = buildAnalysis({ sourceName: 'd1.csv' });
+  const day2 = buildAnalysis({ sourceName: 'd2.csv', metadata: { testStart: '2026-03-03T10:00:00Z' } });
+  const values = [0, -0, Number.NaN, 1, 2, 1.5, Infinity, -Infinity, 1e300, 5e-324];
+  it('on 2,000 random small series over values that collide (−0 / 0, NaN, repeats)', () => {
+    const r = seededRandom(11);
+    const pick = () => values[Math.floor(r() * values.length)];
+    let refused = 0;
+    for (let trial = 0; trial < 2000; trial++) {
+      const n1 = 1 + Math.floor(r() * 6);
+      const n2 = 1 + Math.floor(r() * 6);
+      const series = (n: number) => ({ vo2MlMin: Array.from({ length: n }, () => values[Math.floor(r() * 4)]), vco2MlMin: Array.from({ length: n }, () => (r() < 0.7 ? 1 : pick())), veLMin: Array.from({ length: n }, () => (r() < 0.7 ? 2 : pick())) });
+      const a = { ...day1, series: { ...day1.series, ...series(n1) } };
+      const b = { ...day2, series: { ...day2.series, ...series(n2) } };
+      const expected = sameByText(a.series, b.series);
+      expect(pairRefusals(a, b).some((x) => x.code === 'same-series')).toBe(expected);
+      if (expected) refused++;
+    }
+    // Both outcomes occur, so the comparison is not vacuous.
+    expect(refused).toBeGreaterThan(100);
+    expect(refused).toBeLessThan(1900);
+  });
+});
