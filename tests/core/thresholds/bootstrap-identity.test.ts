@@ -1,6 +1,9 @@
 // The bootstrap's shared scratch arrays change how memory is used, not a single number: whole
 // analyses (bootstrap on, default settings) of generated tests hash to the SHA-256 they had
-// with the per-method arrays of commit e288bb1 (recorded from that commit's code).
+// with the per-method arrays of commit e288bb1 (recorded from that commit's code). Re-pinned
+// once since, when the interval's label took the coverage measured on 504 held-out tests per
+// cell (core/thresholds/interval-label.ts): with the four label texts put back as they were,
+// each of the five analyses hashed to e288bb1's digest again, so the label is all that changed.
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { analyzeTest, noClinicalInputs } from '../../../core/analyze/analyze-test';
@@ -9,10 +12,10 @@ import { denseTable } from '../../../bench/scaling';
 import { analysisDigest } from './bootstrap-digest';
 
 const BEFORE: Record<string, string> = {
-  '11/10': '7bbe0372a66c620fb364ced66138f5c842476d4f0e0d791bb9b07adbf79340f2',
-  '12/25': 'fed31f940e3467ac99f0121dd672193da74963d9e7beaa5ebd0928c0128868f2',
-  '13/30': '1f0e81254fd1bdc83525c124c1e2845b4966d39449bf3b4e8515b56594c4b70e',
-  '14/15': '15f85d4c6a61a9d30b63388088861ecffce44b2bcba411f9b1d818cc41aba9cb',
+  '11/10': '6e744ea6753f412f3ac38ceb26210be871ecf367d6dccd4c43c8550df4e3cb32',
+  '12/25': 'c6ab69847badc72ccd05329df913322841499784724107853b0aa1c4ba89a377',
+  '13/30': '6dedf37e1594ea0a43d234fbb2c2f17edd127ccba03ae076c4dd5f942f3f3e5f',
+  '14/15': 'dbe40fd5fe574f966e0d4b5db405bf4da165d61c7b7d9c4f2bd611390a7f015b',
 };
 
 describe('bootstrap with shared scratch arrays', () => {
@@ -27,6 +30,6 @@ describe('bootstrap with shared scratch arrays', () => {
     // The bootstrap ran: both thresholds carry an interval.
     expect(result.vt1.ci95Vo2MlMin).not.toBeNull();
     expect(result.vt2.ci95Vo2MlMin).not.toBeNull();
-    expect(createHash('sha256').update(JSON.stringify(result)).digest('hex')).toBe('2b47c9cef389496d57030e1d1d749b49b08548691e6e3881ae5519a933fb31fc');
+    expect(createHash('sha256').update(JSON.stringify(result)).digest('hex')).toBe('0c378632780610288886b334a6d573e01eccf073826f09bd37d18995ba96add1');
   });
 });
