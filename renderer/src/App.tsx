@@ -92,6 +92,8 @@ export function App({ host }: { host: HostClient }) {
   const [record, setRecord] = useState<CaseRecord | null>(null);
   const [question, setQuestion] = useState<MappingQuestion | null>(null);
   const [busy, setBusy] = useState<{ stage: string; fraction: number } | null>(null);
+  /** How many times a case's analysis has reached the screen (the title carries it, so a reopen of the same case can be told apart). */
+  const [opened, setOpened] = useState(0);
   const [error, setError] = useState<LocatedError | null>(null);
   const [reviewer, setReviewerState] = useState<Reviewer>(loadReviewer);
   const [saveNote, setSaveNote] = useState<string>('No case open');
@@ -252,7 +254,10 @@ export function App({ host }: { host: HostClient }) {
       setBusy({ stage: 'Starting the analysis', fraction: 0 });
       const reply = await engine.request(request);
       settle(reply);
-      if (reply.type === 'view') setScreen('breakpoints');
+      if (reply.type === 'view') {
+        setScreen('breakpoints');
+        setOpened((n) => n + 1);
+      }
       return reply.type;
     },
     [engine, host, settle],
@@ -470,7 +475,7 @@ export function App({ host }: { host: HostClient }) {
         {button('review.redo', 'Redo')}
         {button('case.save', 'Save now')}
         {button('report.export', 'Export signed report')}
-        <span className="case-title" data-testid="case-title">
+        <span className="case-title" data-testid="case-title" data-opened={opened}>
           {summary ? summary.title : 'No case open'}
         </span>
         <span className="save-note" data-testid="save-note" data-revision={record?.revision} title={record ? `Recorded (digest and case text) in ${record.recordMs.toFixed(1)} ms after the values` : undefined}>

@@ -98,7 +98,12 @@ describe('browser mode, intake', () => {
     await page.waitForFunction(() => document.querySelector('[data-testid="case-title"]')?.textContent?.startsWith('Demo pair'), undefined, { timeout: 120_000 });
     await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });
     expect(caseFolders().length).toBe(2);
+    // The reopen keeps the same title and the same panels, so wait for its analysis to reach the
+    // screen (the title's open count): opening a case moves to Breakpoints when it is done, and a
+    // click on Intake before that would be undone by it.
+    const openedBefore = Number(await page.getAttribute('[data-testid="case-title"]', 'data-opened'));
     await page.click('button[data-command="case.demo"]');
+    await page.waitForFunction((n) => Number(document.querySelector('[data-testid="case-title"]')?.getAttribute('data-opened')) > n, openedBefore, { timeout: 120_000 });
     await page.waitForSelector('[data-testid="thresholds-day1"]', { timeout: 120_000 });
     expect(caseFolders().length).toBe(2);
     await page.locator('nav.screens button', { hasText: 'Intake' }).click();
