@@ -5,10 +5,15 @@
  * The tests: one generated cycle ramp of about 500 breaths (sample-tests/generator, 10 W/min),
  * and that same protocol breathed k times as densely: the breaths of k independently seeded
  * runs of the generator merged in time order (k = 1 … 66), so the physiology and the length
- * of the test stay fixed and only the number of breaths grows. Time per breath of
- * `analyzeTest`, CPU time of this process (all its threads, garbage collection included),
- * the median of 9 batches (5 with the bootstrap) of about 30,000 breaths' worth of runs each,
- * after a warm-up.
+ * of the test stay fixed and only the number of breaths grows. The merged breaths are copied
+ * into new objects in time order, as the importer makes them from a file: objects left where
+ * 66 separate runs allocated them are read out of order in memory, which alone made the
+ * largest test about 20 % dearer per breath than the same breaths read in file order.
+ *
+ * Time per breath of `analyzeTest`, CPU time of this process (all its threads, garbage
+ * collection included). The sizes take turns: each round times one batch of about 30,000
+ * breaths' worth of runs at every size, so a slow spell of the machine falls on all sizes
+ * alike; the figure is the median over the rounds (9, or 5 with the bootstrap), after a warm-up.
  */
 import { availableParallelism, loadavg } from 'node:os';
 import { analyzeTest, noClinicalInputs } from '../core/analyze/analyze-test';
@@ -29,41 +34,40 @@ function params(): TestParams {
 export function denseTable(k: number): BreathTable {
   const p = params();
   const runs = Array.from({ length: k }, (_, i) => generateTest(p, 101 + i).table);
-  const breaths: Breath[] = runs.flatMap((t) => t.breaths).sort((a, b) => a.timeS - b.timeS);
+  const breaths: Breath[] = runs
+    .flatMap((t) => t.breaths)
+    .sort((a, b) => a.timeS - b.timeS)
+    .map((b) => ({ ...b }));
   return { ...runs[0], breaths };
 }
 
-/**
- * CPU ms of one `analyzeTest` of the table: the median over `batches` batches, each of enough
- * runs to take about `batchBreaths` breaths' worth of work (so a small table is not timed
- * below the clock's resolution and one pause in a short run does not decide its figure).
- */
-export function cpuMsPerRun(table: BreathTable, settings: Settings, batches = 9, batchBreaths = 30_000): number {
+/** CPU ms of one `analyzeTest` of the table, averaged over `runs` runs. */
+function cpuMsOfBatch(table: BreathTable, settings: Settings, runs: number): number {
   const clinical = noClinicalInputs();
-  const runs = Math.max(1, Math.ceil(batchBreaths / table.breaths.length));
-  analyzeTest(table, settings, clinical);
-  const cpu: number[] = [];
-  for (let i = 0; i < batches; i++) {
-    const c0 = process.cpuUsage();
-    for (let r = 0; r < runs; r++) analyzeTest(table, settings, clinical);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1000 / runs);
-  }
-  return median(cpu);
+  const c0 = process.cpuUsage();
+  for (let r = 0; r < runs; r++) analyzeTest(table, settings, clinical);
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1000 / runs;
 }
 
 /** Settings with the bootstrap off (the batch, `band`). */
 export const NO_BOOTSTRAP: Settings = { ...DEFAULT_SETTINGS, thresholds: { ...DEFAULT_SETTINGS.thresholds, bootstrap: { ...DEFAULT_SETTINGS.thresholds.bootstrap, replicates: 0 } } };
 
-/** µs of CPU per breath of `analyzeTest` at each density, after warming the code up on a mid-sized table. */
-export function usPerBreath(densities: readonly number[], settings: Settings, batches = 9): { breaths: number; usPerBreath: number }[] {
+/**
+ * µs of CPU per breath of `analyzeTest` at each density: `rounds` rounds, each timing one
+ * batch of about `batchBreaths` breaths' worth of runs at every density in turn (so a small
+ * table is not timed below the clock's resolution), the median per density; after warming
+ * the code up on a mid-sized table and once on each table.
+ */
+export function usPerBreath(densities: readonly number[], settings: Settings, rounds = 9, batchBreaths = 30_000): { breaths: number; usPerBreath: number }[] {
   const warm = denseTable(4);
   for (let i = 0; i < 10; i++) analyzeTest(warm, settings, noClinicalInputs());
-  return densities.map((k) => {
-    const table = denseTable(k);
-    const n = table.breaths.length;
-    return { breaths: n, usPerBreath: (1000 * cpuMsPerRun(table, settings, batches)) / n };
-  });
+  const tables = densities.map((k) => denseTable(k));
+  const runs = tables.map((t) => Math.max(1, Math.ceil(batchBreaths / t.breaths.length)));
+  tables.forEach((t) => analyzeTest(t, settings, noClinicalInputs()));
+  const ms: number[][] = tables.map(() => []);
+  for (let round = 0; round < rounds; round++) tables.forEach((t, i) => ms[i].push(cpuMsOfBatch(t, settings, runs[i])));
+  return tables.map((t, i) => ({ breaths: t.breaths.length, usPerBreath: (1000 * median(ms[i])) / t.breaths.length }));
 }
 
 export interface ScalingRow {

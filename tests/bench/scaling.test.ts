@@ -16,16 +16,15 @@ describe('cost per breath, 500 → 32,000 breaths', () => {
     expect(Math.max(...sizes)).toBeGreaterThanOrEqual(30_000);
     const spread = spreadPct(rows.map((r) => r.usPerBreath));
     console.log(`µs of CPU per breath, bootstrap off: ${rows.map((r) => `${r.breaths}: ${r.usPerBreath.toFixed(2)}`).join(', ')}; largest deviation from the mean ${spread.toFixed(1)} % (target ±20 %)`);
-    // Linear: from 4,000 to 32,000 breaths (8 ×) the cost per breath rises by at most 20 %
-    // (before issue 14 the bootstrap's set-up, run even when off, took it from 6–7 µs to 13 µs).
-    const mid = rows.find((r) => r.breaths >= 3_500)!;
-    const largest = rows[rows.length - 1];
-    expect(largest.usPerBreath).toBeLessThanOrEqual(1.2 * mid.usPerBreath);
-    // The ±20 % target over the whole range is printed above and in docs/performance.md; the
-    // smallest test pays a cost that hardly grows with the breaths (the threshold searches and
-    // their garbage: in a CPU profile about as much per analysis at 482 breaths as at 31,647),
-    // which put it 17–25 % above the mean on the loaded machine. Not the requirement, a
-    // regression guard:
-    expect(spread).toBeLessThanOrEqual(40);
+    // Linear: from 4,000 to 32,000 breaths (8 ×) the cost per breath rises by at most 20 % at
+    // any size (before issue 14 the bootstrap's set-up, run even when off, took it from 6–7 µs
+    // to 13 µs).
+    const midIndex = rows.findIndex((r) => r.breaths >= 3_500);
+    for (const r of rows.slice(midIndex + 1)) expect(r.usPerBreath, `${r.breaths} breaths`).toBeLessThanOrEqual(1.2 * rows[midIndex].usPerBreath);
+    // The ±20 % target over the whole range is printed above and in docs/performance.md. It is
+    // not asserted: the cost per breath falls with size (the threshold searches cost about as
+    // much per analysis at 482 breaths as at 31,647), so the smallest test sits about 25–30 %
+    // above the mean and the largest about as far below it; that is cheaper than linear, not
+    // dearer, and the check above is the one that catches growth faster than the breaths.
   }, 180_000);
 });
