@@ -15,4 +15,10 @@ export interface Engine<C> {
   /** Every value read off the processed series at `timeS`. */
   readonly valuesAt: (analysis: TestAnalysis, timeS: number) => ValuesAt;
   readonly compareTests: (day1: TestAnalysis, day2: TestAnalysis, settings: Settings) => C;
+  /**
+   * SHA-256 (hex) of a raw file's bytes, checked against the case's record before each
+   * recompute. Optional: without it the bytes are hashed every time (core/case/sha256.ts). A
+   * shell that holds the bytes in memory and never changes them may remember the digest.
+   */
+  readonly rawDigest?: (bytes: Uint8Array) => string;
 }

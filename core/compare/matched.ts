@@ -23,6 +23,7 @@ import type { ProcessedSeries, TestAnalysis } from '../model/analysis';
 import type { Settings } from '../model/settings';
 import { linearFit } from '../math/linear-fit';
 import { maxOf, mean, minOf } from '../math/stats';
+import { firstIndexWhere } from '../math/sorted';
 
 export type MatchedVariable = 'vo2MlMin' | 'hrBpm' | 'veLMin' | 'rer' | 'veVco2';
 export const MATCHED_VARIABLES: readonly MatchedVariable[] = ['vo2MlMin', 'hrBpm', 'veLMin', 'rer', 'veVco2'];
@@ -95,9 +96,11 @@ function readAtWork(ramp: RampSeries, variable: MatchedVariable, targetW: number
   const y = ramp.values[variable];
   const xs: number[] = [];
   const ys: number[] = [];
-  for (let i = 0; i < w.length; i++) {
+  // The load is a running maximum, so the points within the window are one run of the ramp:
+  // from the first whose distance below the target is at most halfW to the last within it.
+  for (let i = firstIndexWhere(w, (x) => x - targetW >= -halfW); i < w.length && w[i] - targetW <= halfW; i++) {
     const v = y[i];
-    if (Math.abs(w[i] - targetW) <= halfW && v !== null && Number.isFinite(v)) {
+    if (v !== null && Number.isFinite(v)) {
       xs.push(w[i]);
       ys.push(v);
     }
@@ -117,8 +120,13 @@ function pair(day1: number | null, day2: number | null): MatchedValue {
 
 function row(r1: RampSeries, r2: RampSeries, workW: number, kind: MatchedRow['kind'], halfW: number): MatchedRow {
   const values = {} as Record<MatchedVariable, MatchedValue>;
-  for (const v of MATCHED_VARIABLES) values[v] = pair(readAtWork(r1, v, workW, halfW).value, readAtWork(r2, v, workW, halfW).value);
-  const reading = { day1: readAtWork(r1, 'vo2MlMin', workW, halfW).reading, day2: readAtWork(r2, 'vo2MlMin', workW, halfW).reading };
+  const reading = { day1: 'none' as MatchedReading, day2: 'none' as MatchedReading };
+  for (const v of MATCHED_VARIABLES) {
+    const a = readAtWork(r1, v, workW, halfW);
+    const b = readAtWork(r2, v, workW, halfW);
+    values[v] = pair(a.value, b.value);
+    if (v === 'vo2MlMin') Object.assign(reading, { day1: a.reading, day2: b.reading });
+  }
   return { workW, kind, values, reading };
 }
 

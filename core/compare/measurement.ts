@@ -19,6 +19,7 @@
  */
 import type { ProcessedSeries, TestAnalysis } from '../model/analysis';
 import { linearFit } from '../math/linear-fit';
+import { firstIndexWhere } from '../math/sorted';
 import { Z95 } from './bands';
 import type { MetricId } from './types';
 
@@ -29,8 +30,8 @@ export function seriesAt(series: ProcessedSeries, key: SeriesKey, t: number): nu
   const ts = series.timeS;
   const ys = series[key] as readonly (number | null)[];
   if (ts.length === 0 || t < ts[0] || t > ts[ts.length - 1]) return null;
-  let hi = 1;
-  while (hi < ts.length - 1 && ts[hi] < t) hi++;
+  // The first index from 1 at or after t (the last one when none is), found by bisection.
+  const hi = Math.min(ts.length - 1, firstIndexWhere(ts, (x) => x >= t, 1));
   const lo = Math.max(0, hi - 1);
   const y0 = ys[lo];
   const y1 = ys[hi];
@@ -75,13 +76,16 @@ function peakSd(test: TestAnalysis, key: SeriesKey): number | null {
   const end = test.phases.incrementalEndS;
   const xs: number[] = [];
   const ys: number[] = [];
-  test.series.timeS.forEach((t, i) => {
-    const y = test.series[key][i];
-    if (t >= end - windowS && t <= end && y !== null && y > 0) {
-      xs.push(t);
+  const ts = test.series.timeS;
+  const values = test.series[key];
+  // The window's points in time order, from the first at or after its start.
+  for (let i = firstIndexWhere(ts, (t) => t >= end - windowS); i < ts.length && ts[i] <= end; i++) {
+    const y = values[i];
+    if (y !== null && y > 0) {
+      xs.push(ts[i]);
       ys.push(Math.log(y));
     }
-  });
+  }
   if (xs.length < 4) return null;
   const fit = linearFit(xs, ys);
   if (!fit) return null;

@@ -134,5 +134,7 @@ export function workbenchEngine(mappings: ReadonlyMap<string, ColumnMapping>): W
     },
     valuesAt: defaultEngine.valuesAt,
     compareTests: defaultEngine.compareTests,
+    // The worker decodes each raw file once and never writes to it, so its digest is remembered.
+    rawDigest: keyOfBytes,
   };
 }
