@@ -175,7 +175,7 @@ async function handleOpen(id: number, message: Extract<EngineRequest, { type: 'o
  * values; nothing is posted, kept or saved. One run per task, so a request that arrives
  * meanwhile is handled before the next run, and none once another case is open.
  */
-export const WARM_RUNS = 3;
+const WARM_RUNS = 3;
 function warmChangePath(state: OpenCase, left = WARM_RUNS): void {
   if (left <= 0) return;
   setTimeout(() => {
