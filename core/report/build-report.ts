@@ -36,6 +36,7 @@ import { dayMeasuresBlock } from './day-measures';
 import { effortBlock } from './effort-table';
 import { draftReason, drawDraftMark, signOffInForce } from './draft-mark';
 import { BUILD_RECORD_NAME, buildRecordText, logHeadOf } from './build-record';
+import { attachFile } from './attach-file';
 
 export type SignatureKind = 'lab' | 'demonstration' | 'unsigned';
 
@@ -85,7 +86,11 @@ export async function buildReport(input: ReportInput): Promise<Uint8Array> {
   const chunks: Buffer[] = [];
   doc.on('data', (c: Buffer) => chunks.push(c));
   const finished = new Promise<Uint8Array>((resolve, reject) => {
-    doc.on('end', () => resolve(new Uint8Array(Buffer.concat(chunks))));
+    doc.on('end', () => {
+      // A view of the one joined buffer, not a second copy of the whole report.
+      const joined = Buffer.concat(chunks);
+      resolve(new Uint8Array(joined.buffer, joined.byteOffset, joined.byteLength));
+    });
     doc.on('error', reject);
   });
   doc.registerFont('Sans', Buffer.from(input.fonts.regular));
@@ -470,12 +475,10 @@ function footers(L: Layout, subject: string, input: ReportInput): void {
 
 function attach(doc: InstanceType<typeof PDFDocument>, input: ReportInput, created: Date): void {
   const { inputs } = input.caseFile;
-  // AFRelationship (PDF/A-3) is supported by pdfkit but missing from its type definitions.
-  type Options = PDFKit.Mixins.PDFAttachmentOptions & { relationship: 'Source' | 'Data' };
-  const base = { creationDate: created, modifiedDate: created, relationship: 'Source' } satisfies Partial<Options>;
-  doc.file(Buffer.from(input.raw.day1), { ...base, name: `day1-${inputs.day1.name}`, type: 'text/plain', description: `Day 1 raw breath file, SHA-256 ${inputs.day1.sha256}` } as Options);
-  doc.file(Buffer.from(input.raw.day2), { ...base, name: `day2-${inputs.day2.name}`, type: 'text/plain', description: `Day 2 raw breath file, SHA-256 ${inputs.day2.sha256}` } as Options);
-  doc.file(Buffer.from(input.caseText, 'utf8'), { ...base, name: 'twofold-case.json', type: 'application/json', relationship: 'Data', description: 'Twofold case file: settings, clinical inputs, reviewer log, recorded results' } as Options);
+  const utf8 = (text: string) => new TextEncoder().encode(text);
+  attachFile(doc, input.raw.day1, { name: `day1-${inputs.day1.name}`, type: 'text/plain', relationship: 'Source', created, description: `Day 1 raw breath file, SHA-256 ${inputs.day1.sha256}` });
+  attachFile(doc, input.raw.day2, { name: `day2-${inputs.day2.name}`, type: 'text/plain', relationship: 'Source', created, description: `Day 2 raw breath file, SHA-256 ${inputs.day2.sha256}` });
+  attachFile(doc, utf8(input.caseText), { name: 'twofold-case.json', type: 'application/json', relationship: 'Data', created, description: 'Twofold case file: settings, clinical inputs, reviewer log, recorded results' });
   const record = buildRecordText({ format: 'twofold-build', version: 1, generatedAt: input.generatedAt, reviewer: input.reviewer, signature: input.signature, softwareVersion: SOFTWARE_VERSION, logHead: logHeadOf(input.caseFile) });
-  doc.file(Buffer.from(record, 'utf8'), { ...base, name: BUILD_RECORD_NAME, type: 'application/json', relationship: 'Data', description: 'Twofold build record: build time, reviewer, signature kind, reviewer-log head' } as Options);
+  attachFile(doc, utf8(record), { name: BUILD_RECORD_NAME, type: 'application/json', relationship: 'Data', created, description: 'Twofold build record: build time, reviewer, signature kind, reviewer-log head' });
 }
