@@ -235,7 +235,7 @@ function assemble(cells: TableCells, options: ImportOptions): Result<ImportResul
       ),
     );
   }
-  const converter = rowConverter({ file, plan, decimal, weightKg: meta.metadata.weightKg, startClockS: meta.startClockS });
+  const converter = rowConverter({ file, plan, decimal, weightKg: meta.metadata.weightKg, startClockS: meta.startClockS, compactFromBreaths: options.compactFromBreaths });
   cells.feed(converter.add);
   const out = converter.result();
   if (out.breaths.length === 0) {

@@ -13,6 +13,7 @@ import { variableLabel, type TablePlan } from './columns';
 import { parseNumber, type DecimalMark } from './numbers';
 import { formatSeconds, parseTimeCell } from './time-format';
 import type { ColumnVariable, RowFlag } from './types';
+import { BreathStore } from './breath-store';
 
 export interface RowsInput {
   readonly file: string;
@@ -21,6 +22,8 @@ export interface RowsInput {
   readonly weightKg: number | null;
   /** Seconds after midnight of the test start the file states; a time-of-day column counts from it. */
   readonly startClockS: number | null;
+  /** The breath count from which breaths are kept in columns (core/import/breath-store.ts); tests set it low. */
+  readonly compactFromBreaths?: number;
 }
 
 export interface RowsOutput {
@@ -65,7 +68,7 @@ export function rowConverter(input: RowsInput): RowConverter {
   const lastUsed = used.reduce((a, c) => (c.index > a.index ? c : a), used[0]);
   const clock = plan.timeFormat === 'clock' || plan.timeFormat === 'date-time';
 
-  const breaths: Breath[] = [];
+  const store = new BreathStore(input.compactFromBreaths);
   const fileRer: (number | null)[] = [];
   const rpe: RpeReading[] = [];
   const rejected: LocatedError[] = [];
@@ -168,7 +171,7 @@ export function rowConverter(input: RowsInput): RowConverter {
       prevTime = timeS;
       if (clock) lastRaw = rawTime + dayOffset;
 
-      breaths.push({
+      store.push({
         timeS,
         vo2MlMin: gas[0],
         vco2MlMin: gas[1],
@@ -191,5 +194,5 @@ export function rowConverter(input: RowsInput): RowConverter {
       }
     }
   };
-  return { add, result: () => ({ breaths, fileRer, rpe, rejected, flags, dataRows, firstClockS: firstClock }) };
+  return { add, result: () => ({ breaths: store.breaths, fileRer, rpe, rejected, flags, dataRows, firstClockS: firstClock }) };
 }

@@ -91,4 +91,6 @@ export interface ImportOptions {
   readonly mapping?: ColumnMapping | null;
   /** Worksheet of a workbook to read; the first one when absent. */
   readonly sheet?: string | null;
+  /** From this many breaths on the table is kept in columns (core/import/breath-store.ts); tests set it low. */
+  readonly compactFromBreaths?: number;
 }
