@@ -175,3 +175,37 @@ export function interpolateToGrid(series: ProcessedSeries, stepS = 1): Processed
   }
   return out as unknown as ProcessedSeries;
 }
+
+/**
+ * The series again, each variable in an array of exactly its length holding plain numbers
+ * (nulls kept where there are any). Memory only, the values are the same: V8 keeps an array
+ * of numbers unboxed, but code that reads it next to an array with nulls may turn it, in
+ * place, into one that boxes every number (about 24 instead of 8 bytes a point), and push
+ * leaves up to half the length again unused. An analysis keeps its series for as long as the
+ * case is open, so it keeps this copy.
+ */
+export function packedSeries(series: ProcessedSeries): ProcessedSeries {
+  // Two places that make arrays, because V8 learns what each place stores: one that only
+  // ever stores numbers keeps making unboxed arrays.
+  const numbers = (a: readonly (number | null)[]): number[] => {
+    const out = new Array<number>(a.length);
+    for (let i = 0; i < a.length; i++) out[i] = a[i] as number;
+    return out;
+  };
+  const withNulls = (a: readonly (number | null)[]): (number | null)[] => {
+    const out = new Array<number | null>(a.length);
+    for (let i = 0; i < a.length; i++) out[i] = a[i];
+    return out;
+  };
+  const pack = <T extends number | null>(a: readonly T[]): T[] => (a.includes(null as T) ? withNulls(a) : numbers(a)) as T[];
+  return {
+    timeS: pack(series.timeS),
+    vo2MlMin: pack(series.vo2MlMin),
+    vco2MlMin: pack(series.vco2MlMin),
+    veLMin: pack(series.veLMin),
+    hrBpm: pack(series.hrBpm),
+    workW: pack(series.workW),
+    peto2Mmhg: pack(series.peto2Mmhg),
+    petco2Mmhg: pack(series.petco2Mmhg),
+  };
+}
