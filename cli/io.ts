@@ -22,7 +22,8 @@ export function processIo(): CliIo {
     err: (text) => process.stderr.write(text),
     env: process.env,
     cwd: process.cwd(),
-    interactive: Boolean(process.stderr.isTTY),
+    // A large input runs in a child whose standard error is a pipe to the parent (scripts/heap-cap.cjs), which says whether it is a terminal.
+    interactive: process.env.TWOFOLD_INTERACTIVE === undefined ? Boolean(process.stderr.isTTY) : process.env.TWOFOLD_INTERACTIVE === '1',
     stdinLine: () => readPasswordLine(process.stdin),
   };
 }

@@ -91,6 +91,15 @@ function requireBuilt(entry) {
 
 /** Runs the command line with `argv`; the exit code goes to process.exitCode. */
 async function run(argv) {
+  const heapCap = require('./heap-cap.cjs');
+  if (heapCap.wantsCap(argv)) {
+    const code = await heapCap.runCapped(argv);
+    if (code !== null) {
+      process.exitCode = code;
+      return;
+    }
+    process.stderr.write('twofold: this input needed more memory than the limit set for large files; running it again without the limit.\n');
+  }
   const record = readRecord();
   let entry;
   if (isCurrent(record)) entry = join(OUT, record.entry);

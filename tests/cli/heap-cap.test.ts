@@ -1,0 +1,75 @@
+// The heap limit for large inputs (scripts/heap-cap.cjs): which command lines get it, that the
+// capped child gives the output an uncapped run gives, byte for byte, and that a child that
+// still runs out of memory is run again without the limit, with one line instead of V8's
+// report. References: the file system's own sizes (a sparse file), and the uncapped run.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { writeLargeBreathFile } from '../../bench/memory/large-file';
+
+const ROOT = join(__dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'twofold.cjs');
+const heapCap = createRequire(__filename)(join(ROOT, 'scripts', 'heap-cap.cjs')) as {
+  CAP_FROM_BYTES: number;
+  wantsCap: (argv: string[], env?: Record<string, string | undefined>, execArgv?: string[]) => boolean;
+  namedFileBytes: (argv: string[]) => number;
+};
+
+let dir = '';
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'twofold-heap-cap-'));
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('which command lines run with the heap limit', () => {
+  it('only those whose named files total more than the threshold, and never twice', () => {
+    const big = join(dir, 'big.csv');
+    writeFileSync(big, '');
+    truncateSync(big, heapCap.CAP_FROM_BYTES + 1);
+    const small = join(dir, 'small.csv');
+    writeFileSync(small, 'time_s\n');
+    expect(heapCap.CAP_FROM_BYTES).toBe(24e6);
+    expect(heapCap.namedFileBytes(['analyze', big, '--json', small, join(dir, 'missing.csv')])).toBe(heapCap.CAP_FROM_BYTES + 1 + 7);
+    expect(heapCap.wantsCap(['analyze', big, '--json'], {}, [])).toBe(true);
+    expect(heapCap.wantsCap(['analyze', small, '--json'], {}, [])).toBe(false);
+    // The child itself, and a process started with a limit of its own, run the command.
+    expect(heapCap.wantsCap(['analyze', big], { TWOFOLD_HEAP_CAPPED: '1' }, [])).toBe(false);
+    expect(heapCap.wantsCap(['analyze', big], {}, ['--max-old-space-size=2000'])).toBe(false);
+    // Flags are not files, even when a file of that name exists.
+    expect(heapCap.namedFileBytes(['--json'])).toBe(0);
+  });
+});
+
+describe('a large input under the heap limit', () => {
+  it('gives the uncapped output; a child that runs out is run again without the limit', { timeout: 240_000 }, () => {
+    // 150,000 rows, about 8 MB: the threshold is lowered so the test stays short.
+    writeLargeBreathFile(join(dir, 'large.csv'), 150_000, 4, 0);
+    const run = (env: Record<string, string>) =>
+      spawnSync(process.execPath, [BIN, 'analyze', 'large.csv', '--json'], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env }, maxBuffer: 64e6 });
+    const uncapped = run({ TWOFOLD_HEAP_CAPPED: '1' });
+    expect(uncapped.status).toBe(0);
+    const capped = run({ TWOFOLD_HEAP_CAP_FROM_BYTES: '1000', TWOFOLD_HEAP_CAP_MB: '400' });
+    expect(capped.stderr).toBe('');
+    expect(capped.status).toBe(0);
+    // A 16 MB old generation cannot hold the file's text (8 MB) and its averaged series
+    // (8 variables × 150,000 points × 8 bytes).
+    const starved = run({ TWOFOLD_HEAP_CAP_FROM_BYTES: '1000', TWOFOLD_HEAP_CAP_MB: '16' });
+    expect(starved.stderr).toBe('twofold: this input needed more memory than the limit set for large files; running it again without the limit.\n');
+    expect(starved.status).toBe(0);
+    const strip = (text: string) => text.replace(/"generatedAt":\s*"[^"]*"/g, '"generatedAt":""');
+    expect(strip(capped.stdout)).toBe(strip(uncapped.stdout));
+    expect(strip(starved.stdout)).toBe(strip(uncapped.stdout));
+    expect(JSON.parse(uncapped.stdout).vt1).toBeTruthy();
+  });
+
+  it('passes the exit code and located message of bad input through the child', () => {
+    writeFileSync(join(dir, 'bad.csv'), 'time_s,vo2_ml_min\n1,abc\n');
+    const r = spawnSync(process.execPath, [BIN, 'analyze', 'bad.csv', '--json'], { cwd: dir, encoding: 'utf8', env: { ...process.env, TWOFOLD_HEAP_CAP_FROM_BYTES: '1' } });
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^bad\.csv:\d+:\d+: /);
+    expect(r.stdout).toBe('');
+  });
+});
