@@ -183,13 +183,16 @@ export function twoRegressionSplit(p: PreparedPoints, minPerSide: number): TwoRe
 export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null {
   const n = p.x.length;
   const m = Math.max(2, minPerSide);
-  const { sx, sy, sxx, sxy, syy } = p;
+  const { x, mx, sx, sy, sxx, sxy, syy } = p;
   // Whole-data sums (centred, so sX and sY are zero up to rounding).
   const sX = sx[n];
   const sY = sy[n];
-  const XX = sxx[n] - (sX * sX) / n;
-  const XY = sxy[n] - (sX * sY) / n;
-  const YY = syy[n] - (sY * sY) / n;
+  const sXX = sxx[n];
+  const sXY = sxy[n];
+  const sYY = syy[n];
+  const XX = sXX - (sX * sX) / n;
+  const XY = sXY - (sX * sY) / n;
+  const YY = sYY - (sY * sY) / n;
   let bestRss = Infinity;
   let bestK = 0;
   let bestA = 0;
@@ -197,8 +200,8 @@ export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null
   let bestC = 0;
   let bestJ = -1;
   for (let j = m - 1; j <= n - m - 1; j++) {
-    const xj = p.x[j] - p.mx;
-    const xj1 = p.x[j + 1] - p.mx;
+    const xj = x[j] - mx;
+    const xj1 = x[j + 1] - mx;
     if (!(xj < xj1)) continue; // tied x: the knot at this value is taken at the last tied point
     const nl = j + 1;
     const nr = n - nl;
@@ -208,8 +211,8 @@ export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null
     const syl = sy[nl];
     const sxr = sX - sxl;
     const syr = sY - syl;
-    const sxxr = sxx[n] - sxx[nl];
-    const sxyr = sxy[n] - sxy[nl];
+    const sxxr = sXX - sxx[nl];
+    const sxyr = sXY - sxy[nl];
     // The two separate lines of this partition. Their total RSS bounds from below every
     // continuous fit with the knot in [x_j, x_j+1), so a partition that cannot beat the best
     // so far is skipped whole.
@@ -220,7 +223,7 @@ export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null
       const rxy = sxyr - sxr * syr * inr;
       const bl = lxy / lxx;
       const br = rxy / rxx;
-      const twoLine = syy[nl] - syl * syl * inl - bl * lxy + (syy[n] - syy[nl] - syr * syr * inr - br * rxy);
+      const twoLine = syy[nl] - syl * syl * inl - bl * lxy + (sYY - syy[nl] - syr * syr * inr - br * rxy);
       if (twoLine >= bestRss) continue;
       // Knot inside (x_j, x_j+1): the two lines' crossing, if it lies there (Hudson 1966).
       if (bl !== br) {

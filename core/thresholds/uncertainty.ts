@@ -142,23 +142,36 @@ function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoint
   const centre = r.my;
   // The x sums are those preparePoints made (same order of operations), rebuilt here because
   // the arrays are shared with the other methods.
+  // The running sums are carried in locals (the same additions in the same order as reading
+  // each sum back from its array, so the same numbers), and the fit's three coefficients too.
+  const { intercept, slopeBefore, knot } = fit;
+  const bend = fit.slopeAfter - fit.slopeBefore;
+  let ax = 0;
+  let axx = 0;
+  let ay = 0;
+  let axy = 0;
+  let ayy = 0;
   sx[0] = 0;
   sxx[0] = 0;
+  sy[0] = 0;
+  sxy[0] = 0;
+  syy[0] = 0;
   let i = 0;
   while (i < n) {
     const shift = Math.floor(random() * (n - L + 1)) - i;
     const end = Math.min(n, i + L);
     for (; i < end; i++) {
       const xi = x[i];
-      const v = hingeValue(fit, xi) + residuals[i + shift];
+      // hingeValue(fit, xi), written out.
+      const v = intercept + slopeBefore * xi + (xi > knot ? bend * (xi - knot) : 0) + residuals[i + shift];
       const cx = xi - mx;
       const cy = v - centre;
       y[i] = v;
-      sx[i + 1] = sx[i] + cx;
-      sxx[i + 1] = sxx[i] + cx * cx;
-      sy[i + 1] = sy[i] + cy;
-      sxy[i + 1] = sxy[i] + cx * cy;
-      syy[i + 1] = syy[i] + cy * cy;
+      sx[i + 1] = ax += cx;
+      sxx[i + 1] = axx += cx * cx;
+      sy[i + 1] = ay += cy;
+      sxy[i + 1] = axy += cx * cy;
+      syy[i + 1] = ayy += cy * cy;
     }
   }
   const m = n + 1;
