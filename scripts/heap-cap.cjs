@@ -48,9 +48,17 @@ function fromEnv(env, name, fallback, least) {
   return env[name] !== undefined && Number.isFinite(given) && given >= least ? Math.round(given) : fallback;
 }
 
+/**
+ * The commands that may run twice (after a child ran out of memory) without a trace of the
+ * first run: each writes its outputs only at its end, atomically, and a repeated report
+ * reopens the case it saved. Commands that append to a case's reviewer log are not here.
+ */
+const REPEATABLE = new Set(['analyze', 'band', 'compare', 'inspect', 'report', 'verify']);
+
 /** True when this process should hand the command to a child with the heap limit. */
 function wantsCap(argv, env = process.env, execArgv = process.execArgv) {
   if (env[CHILD_MARK] === '1') return false;
+  if (!REPEATABLE.has(argv[0])) return false;
   if (execArgv.some((a) => a.startsWith('--max-old-space-size'))) return false;
   return namedFileBytes(argv) > fromEnv(env, 'TWOFOLD_HEAP_CAP_FROM_BYTES', CAP_FROM_BYTES, 0);
 }
@@ -96,4 +104,4 @@ function runCapped(argv) {
   });
 }
 
-module.exports = { CAP_FROM_BYTES, HEAP_CAP_MB, CHILD_MARK, INTERACTIVE_MARK, namedFileBytes, wantsCap, runCapped };
+module.exports = { CAP_FROM_BYTES, REPEATABLE, HEAP_CAP_MB, CHILD_MARK, INTERACTIVE_MARK, namedFileBytes, wantsCap, runCapped };

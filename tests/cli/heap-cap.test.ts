@@ -38,6 +38,10 @@ describe('which command lines run with the heap limit', () => {
     // The child itself, and a process started with a limit of its own, run the command.
     expect(heapCap.wantsCap(['analyze', big], { TWOFOLD_HEAP_CAPPED: '1' }, [])).toBe(false);
     expect(heapCap.wantsCap(['analyze', big], {}, ['--max-old-space-size=2000'])).toBe(false);
+    // Commands that append to a case's log never run twice.
+    expect(heapCap.wantsCap(['override', big], {}, [])).toBe(false);
+    expect(heapCap.wantsCap(['sign-off', big], {}, [])).toBe(false);
+    expect(heapCap.wantsCap(['report', big, small, '--out', 'x.pdf'], {}, [])).toBe(true);
     // Flags are not files, even when a file of that name exists.
     expect(heapCap.namedFileBytes(['--json'])).toBe(0);
   });
