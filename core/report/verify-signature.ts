@@ -12,6 +12,7 @@
  */
 import forge from 'node-forge';
 import { fail, locatedError, ok, type Result } from '../model/errors';
+import { latin1Text } from './latin1';
 
 export interface SignatureCheck {
   readonly byteRange: readonly [number, number, number, number];
@@ -35,7 +36,7 @@ const DIGESTS: Record<string, () => forge.md.MessageDigest> = {
 
 export function verifySignature(pdf: Uint8Array, file: string): Result<SignatureCheck> {
   const problem = (code: string, message: string) => fail<SignatureCheck>(locatedError(code, file, null, null, message));
-  const text = Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength).toString('latin1');
+  const text = latin1Text(pdf);
   const ranges = [...text.matchAll(/\/ByteRange\s*\[\s*(\d+)\s+(\d+)\s+(\d+)\s+(\d+)\s*\]/g)];
   if (ranges.length === 0) return problem('unsigned', 'The report carries no digital signature.');
   const last = ranges[ranges.length - 1];
