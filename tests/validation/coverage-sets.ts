@@ -16,7 +16,7 @@
  * as the 72-test sets, so the conditions are the same. Never tune on these.
  */
 import { kineticCases } from '../../sample-tests/kinetic-family';
-import { hardCases, HARD_SEED_OFFSET, mainCases } from './cases';
+import { DEVELOPMENT_FIRST_SEED, hardCases, HARD_SEED_OFFSET, mainCases } from './cases';
 import { familyBCase } from './family-b';
 import { family1, measureCase, type CaseResult, type TruthCase } from './measure';
 
@@ -26,6 +26,20 @@ export const COVERAGE_FIRST_SEED = 200001;
 export const COVERAGE_TESTS_PER_SET = 504;
 /** Highest seed any coverage set uses. */
 export const COVERAGE_LAST_SEED = COVERAGE_FIRST_SEED + HARD_SEED_OFFSET + COVERAGE_TESTS_PER_SET - 1;
+
+/**
+ * Why a development run over seeds first … first + span − 1 (span: the seeds it may draw,
+ * hard condition included) would touch held-out seeds, or null when it would not: the
+ * held-out grids start at VALIDATION_FIRST_SEED and sit below DEVELOPMENT_FIRST_SEED, and
+ * the large coverage sets are COVERAGE_FIRST_SEED … COVERAGE_LAST_SEED.
+ */
+export function developmentSeedProblem(first: number, span: number): string | null {
+  const last = first + span - 1;
+  if (!Number.isInteger(first) || !Number.isInteger(span) || span < 1) return `seeds must be whole numbers, got first ${first}, span ${span}`;
+  if (first < DEVELOPMENT_FIRST_SEED) return `development seeds start at ${DEVELOPMENT_FIRST_SEED}; ${first} is a held-out seed`;
+  if (first <= COVERAGE_LAST_SEED && last >= COVERAGE_FIRST_SEED) return `seeds ${first}–${last} reach the held-out coverage sets (${COVERAGE_FIRST_SEED}–${COVERAGE_LAST_SEED})`;
+  return null;
+}
 
 export interface CoverageSet {
   readonly name: string;

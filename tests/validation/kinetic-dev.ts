@@ -44,7 +44,8 @@ import { sharedKnotFit } from '../../core/thresholds/shared-knot';
 import { locallySmoothed } from '../../core/thresholds/smooth-vo2';
 import { withoutBreathScatter } from '../../core/thresholds/vslope-shared';
 import { vslopeSlopeReason } from '../../core/thresholds/vslope-hinge';
-import { DEVELOPMENT_FIRST_SEED, hardCases, mainCases } from './cases';
+import { DEVELOPMENT_FIRST_SEED, HARD_SEED_OFFSET, hardCases, mainCases } from './cases';
+import { developmentSeedProblem } from './coverage-sets';
 import { kineticCases } from '../../sample-tests/kinetic-family';
 import { familyBCase } from './family-b';
 import { family1, type TruthCase } from './measure';
@@ -238,7 +239,11 @@ const VARIANTS: Record<string, Variant> = {
 const k = Number(process.argv[2] ?? 5);
 const families = (process.argv[3] ?? '1,B').split(',');
 const firstSeeds = (process.argv[4] ?? String(DEVELOPMENT_FIRST_SEED)).split(',').map(Number);
-if (!firstSeeds.every((s) => s >= DEVELOPMENT_FIRST_SEED)) throw new Error('development seeds only (5000 and up)');
+// The widest a run reaches: the hard grid's offset plus 24 cells (family 1) or k × 12 draws (family B) per first seed.
+for (const first of firstSeeds) {
+  const problem = developmentSeedProblem(first, HARD_SEED_OFFSET + 24 * k);
+  if (problem) throw new Error(`development seeds only: ${problem}`);
+}
 const ONLY = process.env.ONLY ? process.env.ONLY.split(',') : null;
 if (ONLY) for (const key of Object.keys(VARIANTS)) if (!ONLY.includes(key)) delete VARIANTS[key];
 
