@@ -92,8 +92,9 @@ function requireBuilt(entry) {
 /** Runs the command line with `argv`; the exit code goes to process.exitCode. */
 async function run(argv) {
   const heapCap = require('./heap-cap.cjs');
-  if (heapCap.wantsCap(argv)) {
-    const code = await heapCap.runCapped(argv);
+  const flags = heapCap.childFlags(argv);
+  if (flags) {
+    const code = await heapCap.runInChild(argv, flags);
     if (code !== null) {
       process.exitCode = code;
       return;

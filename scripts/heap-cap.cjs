@@ -1,6 +1,7 @@
 'use strict';
-// A heap limit for the `twofold` command on very large inputs (issue 12: analyze and report of
-// a million-row file within 1 GB of memory). Left to itself, V8 lets the heap grow to about
+// Start-up flags for the `twofold` command, given by running it in a child process: a heap
+// limit on very large inputs (issue 12: analyze and report of a million-row file within 1 GB
+// of memory), and a single-threaded collector for a batch on worker threads (issue 14). Left to itself, V8 lets the heap grow to about
 // twice what the analysis keeps alive before it collects the garbage in earnest; with its
 // old generation capped it collects sooner and the output is the same, byte for byte
 // (docs/performance.md, "Memory at a million breaths").
@@ -55,23 +56,45 @@ function fromEnv(env, name, fallback, least) {
  */
 const REPEATABLE = new Set(['analyze', 'band', 'compare', 'inspect', 'report', 'verify']);
 
-/** True when this process should hand the command to a child with the heap limit. */
-function wantsCap(argv, env = process.env, execArgv = process.execArgv) {
-  if (env[CHILD_MARK] === '1') return false;
-  if (!REPEATABLE.has(argv[0])) return false;
-  if (execArgv.some((a) => a.startsWith('--max-old-space-size'))) return false;
-  return namedFileBytes(argv) > fromEnv(env, 'TWOFOLD_HEAP_CAP_FROM_BYTES', CAP_FROM_BYTES, 0);
+/** The batch's worker count: --workers N (or =N), else one per core, as cli/commands/compare.ts counts them. */
+function batchWorkers(argv) {
+  for (let i = 0; i < argv.length; i++) {
+    if (argv[i] === '--workers') return Number(argv[i + 1]);
+    if (argv[i].startsWith('--workers=')) return Number(argv[i].slice('--workers='.length));
+  }
+  return require('node:os').availableParallelism();
 }
 
 /**
- * Runs the command in a child with the heap limit. Resolves to the child's exit code, or to
- * null when the child ran out of memory (the caller then runs the command itself).
+ * The V8 start-up flags a child should run the command with, or null to run it here:
+ * - the heap limit, for a repeatable command whose named files total more than CAP_FROM_BYTES;
+ * - `--single-threaded-gc` for a batch (`compare --manifest`) on two or more worker threads:
+ *   with a worker per core, the collector's helper threads only take turns with the workers
+ *   (a 600-pair batch on 2 cores: 22.4–24.4 s with it, 26.6–28.2 s without;
+ *   docs/performance.md). V8 takes it only at start-up (set later, it crashes V8).
  */
-function runCapped(argv) {
+function childFlags(argv, env = process.env, execArgv = process.execArgv) {
+  if (env[CHILD_MARK] === '1') return null;
+  if (!REPEATABLE.has(argv[0])) return null;
+  const flags = [];
+  if (!execArgv.some((a) => a.startsWith('--max-old-space-size')) && namedFileBytes(argv) > fromEnv(env, 'TWOFOLD_HEAP_CAP_FROM_BYTES', CAP_FROM_BYTES, 0)) {
+    flags.push(`--max-old-space-size=${fromEnv(env, 'TWOFOLD_HEAP_CAP_MB', HEAP_CAP_MB, 16)}`);
+  }
+  if (argv[0] === 'compare' && argv.some((a) => a === '--manifest' || a.startsWith('--manifest=')) && batchWorkers(argv) >= 2 && !execArgv.includes('--single-threaded-gc')) {
+    flags.push('--single-threaded-gc');
+  }
+  return flags.length > 0 ? flags : null;
+}
+
+/**
+ * Runs the command in a child with `flags`. Resolves to the child's exit code, or to null
+ * when the child ran out of memory (the caller then runs the command itself).
+ */
+function runInChild(argv, flags) {
   return new Promise((resolve) => {
     const env = { ...process.env, [CHILD_MARK]: '1', [INTERACTIVE_MARK]: process.stderr.isTTY ? '1' : '0' };
     // An inspector flag stays with this process: the child would ask for the same port.
-    const args = [...process.execArgv.filter((a) => !a.startsWith('--inspect')), `--max-old-space-size=${fromEnv(process.env, 'TWOFOLD_HEAP_CAP_MB', HEAP_CAP_MB, 16)}`, process.argv[1], ...argv];
+    const args = [...process.execArgv.filter((a) => !a.startsWith('--inspect')), ...flags, process.argv[1], ...argv];
     const child = spawn(process.execPath, args, { stdio: ['inherit', 'inherit', 'pipe'], env });
     // V8's report begins with an empty line, so a chunk's closing newlines are held back until
     // the next chunk shows they are not the start of it.
@@ -104,4 +127,4 @@ function runCapped(argv) {
   });
 }
 
-module.exports = { CAP_FROM_BYTES, REPEATABLE, HEAP_CAP_MB, CHILD_MARK, INTERACTIVE_MARK, namedFileBytes, wantsCap, runCapped };
+module.exports = { CAP_FROM_BYTES, REPEATABLE, HEAP_CAP_MB, CHILD_MARK, INTERACTIVE_MARK, namedFileBytes, childFlags, runInChild };

@@ -3,7 +3,7 @@
 // still runs out of memory is run again without the limit, with one line instead of V8's
 // report. References: the file system's own sizes (a sparse file), and the uncapped run.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -14,7 +14,7 @@ const ROOT = join(__dirname, '..', '..');
 const BIN = join(ROOT, 'bin', 'twofold.cjs');
 const heapCap = createRequire(__filename)(join(ROOT, 'scripts', 'heap-cap.cjs')) as {
   CAP_FROM_BYTES: number;
-  wantsCap: (argv: string[], env?: Record<string, string | undefined>, execArgv?: string[]) => boolean;
+  childFlags: (argv: string[], env?: Record<string, string | undefined>, execArgv?: string[]) => string[] | null;
   namedFileBytes: (argv: string[]) => number;
 };
 
@@ -24,7 +24,9 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-describe('which command lines run with the heap limit', () => {
+const wantsCap = (argv: string[], env: Record<string, string | undefined>, execArgv: string[]) => (heapCap.childFlags(argv, env, execArgv) ?? []).some((f) => f.startsWith('--max-old-space-size='));
+
+describe('which command lines run in a child, and with which flags', () => {
   it('only those whose named files total more than the threshold, and never twice', () => {
     const big = join(dir, 'big.csv');
     writeFileSync(big, '');
@@ -33,15 +35,22 @@ describe('which command lines run with the heap limit', () => {
     writeFileSync(small, 'time_s\n');
     expect(heapCap.CAP_FROM_BYTES).toBe(24e6);
     expect(heapCap.namedFileBytes(['analyze', big, '--json', small, join(dir, 'missing.csv')])).toBe(heapCap.CAP_FROM_BYTES + 1 + 7);
-    expect(heapCap.wantsCap(['analyze', big, '--json'], {}, [])).toBe(true);
-    expect(heapCap.wantsCap(['analyze', small, '--json'], {}, [])).toBe(false);
+    expect(wantsCap(['analyze', big, '--json'], {}, [])).toBe(true);
+    expect(wantsCap(['analyze', small, '--json'], {}, [])).toBe(false);
     // The child itself, and a process started with a limit of its own, run the command.
-    expect(heapCap.wantsCap(['analyze', big], { TWOFOLD_HEAP_CAPPED: '1' }, [])).toBe(false);
-    expect(heapCap.wantsCap(['analyze', big], {}, ['--max-old-space-size=2000'])).toBe(false);
+    expect(wantsCap(['analyze', big], { TWOFOLD_HEAP_CAPPED: '1' }, [])).toBe(false);
+    expect(wantsCap(['analyze', big], {}, ['--max-old-space-size=2000'])).toBe(false);
     // Commands that append to a case's log never run twice.
-    expect(heapCap.wantsCap(['override', big], {}, [])).toBe(false);
-    expect(heapCap.wantsCap(['sign-off', big], {}, [])).toBe(false);
-    expect(heapCap.wantsCap(['report', big, small, '--out', 'x.pdf'], {}, [])).toBe(true);
+    expect(wantsCap(['override', big], {}, [])).toBe(false);
+    expect(wantsCap(['sign-off', big], {}, [])).toBe(false);
+    expect(wantsCap(['report', big, small, '--out', 'x.pdf'], {}, [])).toBe(true);
+    expect(heapCap.childFlags(['analyze', big, '--json'], {}, [])).toEqual(['--max-old-space-size=450']);
+    // A batch on two or more worker threads: one collector thread per heap; not on one worker.
+    expect(heapCap.childFlags(['compare', '--manifest', small, '--out', 'r.csv', '--workers', '2'], {}, [])).toEqual(['--single-threaded-gc']);
+    expect(heapCap.childFlags(['compare', '--manifest', small, '--out', 'r.csv', '--workers=3'], {}, [])).toEqual(['--single-threaded-gc']);
+    expect(heapCap.childFlags(['compare', '--manifest', small, '--out', 'r.csv', '--workers', '1'], {}, [])).toBeNull();
+    expect(heapCap.childFlags(['compare', small, small], {}, [])).toBeNull();
+    expect(heapCap.childFlags(['compare', '--manifest', small, '--workers', '2'], {}, ['--single-threaded-gc'])).toBeNull();
     // Flags are not files, even when a file of that name exists.
     expect(heapCap.namedFileBytes(['--json'])).toBe(0);
   });
@@ -67,6 +76,18 @@ describe('a large input under the heap limit', () => {
     expect(strip(capped.stdout)).toBe(strip(uncapped.stdout));
     expect(strip(starved.stdout)).toBe(strip(uncapped.stdout));
     expect(JSON.parse(uncapped.stdout).vt1).toBeTruthy();
+  });
+
+  it('runs a batch on two worker threads in a child with one collector thread, with the rows one worker gives', { timeout: 120_000 }, () => {
+    const demo = join(ROOT, 'sample-tests', 'demo');
+    const rows = ['pair_id,day1_file,day2_file', ...Array.from({ length: 8 }, (_, k) => `P${k},${join(demo, 'qh0417-day1.csv')},${join(demo, 'qh0417-day2.csv')}`)];
+    writeFileSync(join(dir, 'manifest.csv'), `${rows.join('\n')}\n`);
+    const batch = (workers: string, out: string) => spawnSync(process.execPath, [BIN, 'compare', '--manifest', 'manifest.csv', '--out', out, '--workers', workers], { cwd: dir, encoding: 'utf8' });
+    const two = batch('2', 'two.csv');
+    const one = batch('1', 'one.csv');
+    expect([two.status, one.status]).toEqual([0, 0]);
+    expect(two.stderr).not.toMatch(/Fatal|Check failed/);
+    expect(readFileSync(join(dir, 'two.csv'), 'utf8')).toBe(readFileSync(join(dir, 'one.csv'), 'utf8'));
   });
 
   it('passes the exit code and located message of bad input through the child', () => {
