@@ -5,7 +5,7 @@
  * and verify stops at the signature check before it rebuilds anything. The files (about 55 MB
  * each, bench/memory/large-file.ts) are generated into a temporary folder and removed after.
  * Target: under 1 GB (10^9 bytes) each, for analyze and report. Files this large run in a
- * child process with a heap limit (scripts/heap-cap.cjs); the figure is then the child's peak
+ * child process with a heap limit (scripts/start-flags.cjs); the figure is then the child's peak
  * plus the parent's (bench/memory/max-rss.cjs), never less than the two held together.
  *
  * `npx tsx bench/memory.ts --check` runs the same and exits 1 when a target is missed (the

@@ -22,7 +22,7 @@ export function processIo(): CliIo {
     err: (text) => process.stderr.write(text),
     env: process.env,
     cwd: process.cwd(),
-    // A large input runs in a child whose standard error is a pipe to the parent (scripts/heap-cap.cjs), which says whether it is a terminal.
+    // A large input runs in a child whose standard error is a pipe to the parent (scripts/start-flags.cjs), which says whether it is a terminal.
     interactive: process.env.TWOFOLD_INTERACTIVE === undefined ? Boolean(process.stderr.isTTY) : process.env.TWOFOLD_INTERACTIVE === '1',
     stdinLine: () => readPasswordLine(process.stdin),
   };

@@ -91,10 +91,10 @@ function requireBuilt(entry) {
 
 /** Runs the command line with `argv`; the exit code goes to process.exitCode. */
 async function run(argv) {
-  const heapCap = require('./heap-cap.cjs');
-  const flags = heapCap.childFlags(argv);
+  const startFlags = require('./start-flags.cjs');
+  const flags = startFlags.childFlags(argv);
   if (flags) {
-    const code = await heapCap.runInChild(argv, flags);
+    const code = await startFlags.runInChild(argv, flags);
     if (code !== null) {
       process.exitCode = code;
       return;

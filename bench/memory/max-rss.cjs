@@ -1,7 +1,7 @@
 // Preloaded into a measured `twofold` process (node --require): when the process exits, its
 // peak resident set size (getrusage ru_maxrss, the whole process: heap, buffers, code, every
 // thread) is written, in bytes, to the file named by TWOFOLD_MAX_RSS_FILE. A large input runs
-// in a child process (scripts/heap-cap.cjs) that inherits this hook and exits first; the
+// in a child process (scripts/start-flags.cjs) that inherits this hook and exits first; the
 // parent then adds its own peak to the child's, so the figure is never less than the two
 // processes held together.
 const { readFileSync, writeFileSync } = require('node:fs');

@@ -42,17 +42,18 @@ class Block {
   }
 }
 
-/** NaN (an empty optional value) read back as null. */
-function orNull(v: number): number | null {
-  return v !== v ? null : v;
-}
-
 /** A breath whose values live in a block's columns (a required column always exists). */
 class ColumnBreath implements Breath {
   constructor(
     private readonly block: Block,
     private readonly at: number,
   ) {}
+  /** An optional value: null where its column was never made or holds NaN (empty). */
+  private optional(column: Float64Array | null): number | null {
+    if (column === null) return null;
+    const v = column[this.at];
+    return v !== v ? null : v;
+  }
   get timeS(): number {
     return this.block.columns.timeS![this.at];
   }
@@ -69,36 +70,28 @@ class ColumnBreath implements Breath {
     return this.block.columns.sourceLine![this.at];
   }
   get hrBpm(): number | null {
-    const column = this.block.columns.hrBpm;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.hrBpm);
   }
   get workW(): number | null {
-    const column = this.block.columns.workW;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.workW);
   }
   get speedKmh(): number | null {
-    const column = this.block.columns.speedKmh;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.speedKmh);
   }
   get gradePct(): number | null {
-    const column = this.block.columns.gradePct;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.gradePct);
   }
   get peto2Mmhg(): number | null {
-    const column = this.block.columns.peto2Mmhg;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.peto2Mmhg);
   }
   get petco2Mmhg(): number | null {
-    const column = this.block.columns.petco2Mmhg;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.petco2Mmhg);
   }
   get rrPerMin(): number | null {
-    const column = this.block.columns.rrPerMin;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.rrPerMin);
   }
   get vtL(): number | null {
-    const column = this.block.columns.vtL;
-    return column === null ? null : orNull(column[this.at]);
+    return this.optional(this.block.columns.vtL);
   }
 }
 

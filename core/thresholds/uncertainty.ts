@@ -143,7 +143,8 @@ function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoint
   // The x sums are those preparePoints made (same order of operations), rebuilt here because
   // the arrays are shared with the other methods.
   // The running sums are carried in locals (the same additions in the same order as reading
-  // each sum back from its array, so the same numbers), and the fit's three coefficients too.
+  // each sum back from its array, so the same numbers), and the fit read once: its intercept,
+  // slopes and knot.
   const { intercept, slopeBefore, knot } = fit;
   const bend = fit.slopeAfter - fit.slopeBefore;
   let ax = 0;

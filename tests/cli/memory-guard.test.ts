@@ -5,7 +5,7 @@
 //
 // This is a regression guard, NOT the requirement: the requirement's 1 GB bound, applied to
 // a quarter of the rows, which stays below the size at which the command line runs with a
-// heap limit (scripts/heap-cap.cjs, 24 MB of input), so it guards the analysis's own memory:
+// heap limit (scripts/start-flags.cjs, 24 MB of input), so it guards the analysis's own memory:
 // a change that made memory grow much faster than the rows (whole-file copies kept, per-row
 // objects added, a quadratic step) would fail it. The process's fixed cost (`twofold
 // --version`) is printed beside it. The requirement's figures are in docs/performance.md.

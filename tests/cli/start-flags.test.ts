@@ -1,4 +1,4 @@
-// The heap limit for large inputs (scripts/heap-cap.cjs): which command lines get it, that the
+// The heap limit for large inputs (scripts/start-flags.cjs): which command lines get it, that the
 // capped child gives the output an uncapped run gives, byte for byte, and that a child that
 // still runs out of memory is run again without the limit, with one line instead of V8's
 // report. References: the file system's own sizes (a sparse file), and the uncapped run.
@@ -12,7 +12,7 @@ import { writeLargeBreathFile } from '../../bench/memory/large-file';
 
 const ROOT = join(__dirname, '..', '..');
 const BIN = join(ROOT, 'bin', 'twofold.cjs');
-const heapCap = createRequire(__filename)(join(ROOT, 'scripts', 'heap-cap.cjs')) as {
+const heapCap = createRequire(__filename)(join(ROOT, 'scripts', 'start-flags.cjs')) as {
   CAP_FROM_BYTES: number;
   childFlags: (argv: string[], env?: Record<string, string | undefined>, execArgv?: string[]) => string[] | null;
   namedFileBytes: (argv: string[]) => number;
@@ -20,7 +20,7 @@ const heapCap = createRequire(__filename)(join(ROOT, 'scripts', 'heap-cap.cjs'))
 
 let dir = '';
 beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), 'twofold-heap-cap-'));
+  dir = mkdtempSync(join(tmpdir(), 'twofold-start-flags-'));
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -38,7 +38,7 @@ describe('which command lines run in a child, and with which flags', () => {
     expect(wantsCap(['analyze', big, '--json'], {}, [])).toBe(true);
     expect(wantsCap(['analyze', small, '--json'], {}, [])).toBe(false);
     // The child itself, and a process started with a limit of its own, run the command.
-    expect(wantsCap(['analyze', big], { TWOFOLD_HEAP_CAPPED: '1' }, [])).toBe(false);
+    expect(wantsCap(['analyze', big], { TWOFOLD_IN_CHILD: '1' }, [])).toBe(false);
     expect(wantsCap(['analyze', big], {}, ['--max-old-space-size=2000'])).toBe(false);
     // Commands that append to a case's log never run twice.
     expect(wantsCap(['override', big], {}, [])).toBe(false);
@@ -62,7 +62,7 @@ describe('a large input under the heap limit', () => {
     writeLargeBreathFile(join(dir, 'large.csv'), 150_000, 4, 0);
     const run = (env: Record<string, string>) =>
       spawnSync(process.execPath, [BIN, 'analyze', 'large.csv', '--json'], { cwd: dir, encoding: 'utf8', env: { ...process.env, ...env }, maxBuffer: 64e6 });
-    const uncapped = run({ TWOFOLD_HEAP_CAPPED: '1' });
+    const uncapped = run({ TWOFOLD_IN_CHILD: '1' });
     expect(uncapped.status).toBe(0);
     const capped = run({ TWOFOLD_HEAP_CAP_FROM_BYTES: '1000', TWOFOLD_HEAP_CAP_MB: '400' });
     expect(capped.stderr).toBe('');

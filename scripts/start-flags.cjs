@@ -1,19 +1,18 @@
 'use strict';
-// Start-up flags for the `twofold` command, given by running it in a child process: a heap
-// limit on very large inputs (issue 12: analyze and report of a million-row file within 1 GB
-// of memory), and a single-threaded collector for a batch on worker threads (issue 14). Left to itself, V8 lets the heap grow to about
-// twice what the analysis keeps alive before it collects the garbage in earnest; with its
-// old generation capped it collects sooner and the output is the same, byte for byte
-// (docs/performance.md, "Memory at a million breaths").
+// Start-up flags for the `twofold` command, given by running the command in a child process
+// started with them (V8 takes these flags only at start-up):
+// - a heap limit on very large inputs (issue 12: analyze and report of a million-row file
+//   within 1 GB of memory). Left to itself, V8 lets the heap grow to about twice what the
+//   analysis keeps alive before it collects the garbage in earnest; with its old generation
+//   capped it collects sooner, and the output is the same, byte for byte (docs/performance.md);
+// - a single-threaded collector for a batch on worker threads (issue 14, see childFlags).
 //
-// The limit is a start-up flag, so when the files named on the command line total more than
-// CAP_FROM_BYTES the command runs itself again in a child process with the limit, with the
-// same arguments, working folder, standard input and output. The child's standard error is
-// passed on as it comes. Should the child still run out of memory under the limit (an input
-// far beyond a million rows), V8's report of it is not shown: one line says so and the
+// The child gets the same arguments, working folder, standard input and output; its standard
+// error is passed on as it comes. Should the child run out of memory under the limit (an
+// input far beyond a million rows), V8's report of it is not shown: one line says so and the
 // command runs once more, here, without the limit, so a large input is never refused for
-// memory. Outputs are written atomically at the end of a command, so the failed run leaves
-// nothing half written.
+// memory. Only commands that write their outputs atomically at their end run this way
+// (REPEATABLE), so the failed run leaves nothing half written.
 const { spawn } = require('node:child_process');
 const { statSync } = require('node:fs');
 
@@ -22,7 +21,7 @@ const CAP_FROM_BYTES = 24e6;
 /** The old generation's limit, MB; measured at a million rows in docs/performance.md. */
 const HEAP_CAP_MB = 450;
 /** Set in the child: it runs the command itself. */
-const CHILD_MARK = 'TWOFOLD_HEAP_CAPPED';
+const CHILD_MARK = 'TWOFOLD_IN_CHILD';
 /** Carries the parent's "standard error is a terminal" to the child (prompts, progress bars; cli/io.ts). */
 const INTERACTIVE_MARK = 'TWOFOLD_INTERACTIVE';
 /** Where V8's report of a heap that ran out begins (it is written to standard error). */
