@@ -1,7 +1,9 @@
 // The heap limit for large inputs (scripts/start-flags.cjs): which command lines get it, that the
 // capped child gives the output an uncapped run gives, byte for byte, and that a child that
 // still runs out of memory is run again without the limit, with one line instead of V8's
-// report. References: the file system's own sizes (a sparse file), and the uncapped run.
+// report; and that a batch on two workers run with a single-threaded collector gives the rows
+// one worker gives. References: the file system's own sizes (a sparse file), the uncapped
+// run, and the one-worker batch.
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
