@@ -16,6 +16,7 @@ import { CONTENT_SECURITY_POLICY } from '../host/workbench/csp';
 import { createWiredService } from '../host/workbench/wiring';
 import { appFilePath, isAllowedRequest, isAppUrl, menuSpec } from '../host/workbench/electron-policy';
 import { COMMAND_CATALOG } from '../renderer/src/command-catalog';
+import { DEFERRED_AFTER_INPUT_FEATURE } from '../host/workbench/response-flags';
 import { APP_ORIGIN, APP_SCHEME, CHANNEL_COMMAND, CHANNEL_HOST } from './channels';
 
 /** electron/dist/main.mjs → the repository root two folders up. */
@@ -89,6 +90,9 @@ app.on('web-contents-created', (_event, contents) => {
   contents.on('will-attach-webview', (event) => event.preventDefault());
   contents.setWindowOpenHandler(() => ({ action: 'deny' }));
 });
+
+// Before the app is ready, as Chromium reads its features at start-up (response-flags.ts).
+app.commandLine.appendSwitch('disable-features', DEFERRED_AFTER_INPUT_FEATURE);
 
 app.whenReady().then(() => {
   const service = createWiredService({ dataDir: app.getPath('userData') });

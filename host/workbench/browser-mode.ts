@@ -3,7 +3,7 @@
  * interface on 127.0.0.1 (a free port), protected by a per-run random token, opened in
  * Chromium's app mode when Chromium and a display are present. Chromium gets its own
  * throw-away profile and the flags that stop it calling out (background networking,
- * component updates, sync).
+ * component updates, sync), and answers an action without waiting a frame (response-flags.ts).
  *
  * The address with the token never appears in a process's arguments (which every local user
  * can read with `ps`): Chromium is started on a launch page, a file in a folder only this
@@ -17,6 +17,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startBridge, type RunningBridge } from './http-bridge';
 import { createWiredService, newToken } from './wiring';
+import { RESPONSE_FLAGS } from './response-flags';
 
 export interface BrowserModeOptions {
   readonly dataDir: string;
@@ -51,7 +52,7 @@ export function openAppWindow(url: string, env: Readonly<Record<string, string |
 
 /** Chromium's arguments: the launch page's file address, never the tokened address itself. */
 export function appWindowArgs(launchPage: string, profile: string): string[] {
-  return [`--app=${pathToFileURL(launchPage).href}`, `--user-data-dir=${profile}`, ...CHROMIUM_QUIET_FLAGS];
+  return [`--app=${pathToFileURL(launchPage).href}`, `--user-data-dir=${profile}`, ...CHROMIUM_QUIET_FLAGS, ...RESPONSE_FLAGS];
 }
 
 /** A page that forwards to `url`, in a fresh 0700 folder, itself 0600. */

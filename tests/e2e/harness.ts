@@ -1,7 +1,8 @@
 /**
  * The e2e harness: builds the page when renderer/dist is missing or stale, starts browser
  * mode on a free 127.0.0.1 port with a throw-away data folder, and launches Debian's
- * Chromium headless with the flags that stop it calling out.
+ * Chromium headless with the flags that stop it calling out, and with the setting Twofold's
+ * own windows start with (host/workbench/response-flags.ts), so the timing is the product's.
  *
  * Screenshots: every e2e run takes them (drawing a page is part of the test), but writes
  * them to the tracked docs/screenshots/ only when asked, so an ordinary run leaves git
@@ -19,6 +20,7 @@ import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { ensureRenderer } from '../../host/workbench/renderer-build';
 import { startBrowserMode } from '../../host/workbench/browser-mode';
+import { RESPONSE_FLAGS } from '../../host/workbench/response-flags';
 import type { RunningBridge } from '../../host/workbench/http-bridge';
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -60,7 +62,7 @@ export async function startWorkbench(): Promise<Workbench> {
   const bridge = await startBrowserMode({ dataDir, distDir });
   const browser = await chromium.launch({
     executablePath: '/usr/bin/chromium',
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', ...RESPONSE_FLAGS],
   });
   const origin = `http://127.0.0.1:${bridge.port}/`;
   const outside: string[] = [];

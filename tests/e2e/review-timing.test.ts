@@ -8,6 +8,8 @@
  * thresholds (sample-tests/generator), linear interpolation worked by hand, core's own
  * recomputeCase on the saved case file and raw copies for the saved record, and the
  * importer's own reading of the layout sample (core/import) for the mapping question.
+ * The browser starts with the setting of Twofold's own windows (host/workbench/response-flags.ts:
+ * the worker's answer to a click is not held back until the next frame).
  */
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';

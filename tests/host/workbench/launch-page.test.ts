@@ -12,6 +12,8 @@ describe('browser-mode launch page', () => {
     const args = appWindowArgs(launch.page, '/tmp/profile');
     expect(args.join(' ')).not.toContain('f'.repeat(64));
     expect(args[0]).toMatch(/^--app=file:\/\/\/.*open\.html$/);
+    // The app window answers an action without waiting a frame (host/workbench/response-flags.ts).
+    expect(args).toContain('--disable-features=DeferRendererTasksAfterInput');
     expect(statSync(launch.page).mode & 0o777).toBe(0o600);
     expect(statSync(launch.page.replace(/\/open\.html$/, '')).mode & 0o777).toBe(0o700);
     expect(readFileSync(launch.page, 'utf8')).toContain(`location.replace("${url}")`);
