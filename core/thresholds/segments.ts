@@ -57,18 +57,25 @@ export interface HingeFit {
   readonly pointsBefore: number;
 }
 
-/** Points sorted by x (stable), with their means, centred values and prefix sums. */
-export interface PreparedPoints {
+/**
+ * What the two fits read: the x-sorted x, the means, and prefix sums of the centred values
+ * (entry i covers points 0..i−1). The number of points is x's length; the sum arrays may be
+ * longer than that plus one (the bootstrap's shared scratch arrays), entries past it are not read.
+ */
+export interface PrefixSums {
   readonly x: Float64Array;
-  readonly y: Float64Array;
   readonly mx: number;
   readonly my: number;
-  /** Prefix sums of centred values: entry i covers points 0..i−1. */
   readonly sx: Float64Array;
   readonly sy: Float64Array;
   readonly sxx: Float64Array;
   readonly sxy: Float64Array;
   readonly syy: Float64Array;
+}
+
+/** Points sorted by x (stable), with their means, centred values and prefix sums. */
+export interface PreparedPoints extends PrefixSums {
+  readonly y: Float64Array;
 }
 
 /** Sort by x and build the prefix sums; x and y must be finite and of equal length. */
@@ -115,7 +122,7 @@ export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, al
 }
 
 /** Centred OLS over points [from, to): slope, centred intercept and RSS; null without x spread. */
-function runFit(p: PreparedPoints, from: number, to: number): { b: number; a: number; rss: number } | null {
+function runFit(p: PrefixSums, from: number, to: number): { b: number; a: number; rss: number } | null {
   const n = to - from;
   if (n < 2) return null;
   const sx = p.sx[to] - p.sx[from];
@@ -128,12 +135,12 @@ function runFit(p: PreparedPoints, from: number, to: number): { b: number; a: nu
   return { b, a: sy / n - (b * sx) / n, rss: Math.max(0, dyy - b * dxy) };
 }
 
-function toLine(p: PreparedPoints, f: { b: number; a: number; rss: number }, n: number): LineFit {
+function toLine(p: PrefixSums, f: { b: number; a: number; rss: number }, n: number): LineFit {
   return { slope: f.b, intercept: p.my + f.a - f.b * p.mx, rss: f.rss, n };
 }
 
 /** The two-regression split with the smallest total RSS; null when no split leaves `minPerSide` a side. */
-export function twoRegressionSplit(p: PreparedPoints, minPerSide: number): TwoRegressionFit | null {
+export function twoRegressionSplit(p: PrefixSums, minPerSide: number): TwoRegressionFit | null {
   const n = p.x.length;
   const m = Math.max(2, minPerSide);
   const { sx, sy, sxx, sxy, syy } = p;
@@ -179,10 +186,60 @@ export function twoRegressionSplit(p: PreparedPoints, minPerSide: number): TwoRe
  * separate lines when it lies strictly inside (x_j, x_j+1), else the knot at x_j by the 3 × 3
  * normal equations for (a, b, c) of y = a + b·x + c·(x − k)+. All in centred coordinates and
  * without allocation, since the bootstrap calls this hundreds of times per test.
+ *
+ * Two lower bounds make the search faster without changing its answer (branch and bound):
+ * - the two separate lines' RSS of a partition bounds every continuous fit in it from below,
+ *   and the sum of the left run's RSS at the start of a block of `SKIP_BLOCK` partitions and
+ *   the right run's RSS at its end bounds the whole block (see `hingeSearch`); a block or
+ *   partition that cannot beat the best fit so far is skipped;
+ * - `nearPartition` (the bootstrap passes the original fit's, `pointsBefore − 1`): the
+ *   partitions within `HINT_REACH` of it are evaluated first, and the smallest RSS there is
+ *   one some knot reaches, so anything whose bound exceeds it is skipped from the start.
+ * The full search then makes the same comparisons in the same order as without the bounds
+ * and returns the same fit; it could differ only where two candidates' RSS differ by rounding
+ * alone. tests/core/thresholds/segments.test.ts checks it against a golden-section search of
+ * every knot interval and against itself without the hint, and the bootstrap's digests
+ * (tests/core/thresholds/bootstrap-identity.test.ts) are unchanged.
  */
-export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null {
+export function hingeFit(p: PrefixSums, minPerSide: number, nearPartition?: number): HingeFit | null {
   const n = p.x.length;
   const m = Math.max(2, minPerSide);
+  const first = m - 1;
+  const last = n - m - 1;
+  let cap = Infinity;
+  if (nearPartition !== undefined) {
+    const from = Math.max(first, nearPartition - HINT_REACH);
+    const to = Math.min(last, nearPartition + HINT_REACH);
+    if (from <= to) cap = hingeSearch(p, from, to, Infinity)?.rss ?? Infinity;
+  }
+  return hingeSearch(p, first, last, cap);
+}
+
+/** Partitions either side of the hint that are evaluated first (our choice: the knot of a replicate seldom moves far). */
+const HINT_REACH = 2;
+
+/** Partitions per block of the block bound in `hingeSearch` (our choice; any size gives the same fit). */
+const SKIP_BLOCK = 16;
+
+/** RSS of the least-squares line through points [from, to), from the prefix sums; 0 with fewer than 3 points or no x spread (still a lower bound). */
+function lineRss(p: PrefixSums, from: number, to: number): number {
+  const n = to - from;
+  if (n < 3) return 0;
+  const sx = p.sx[to] - p.sx[from];
+  const sy = p.sy[to] - p.sy[from];
+  const dxx = p.sxx[to] - p.sxx[from] - (sx * sx) / n;
+  if (!(dxx > 0)) return 0;
+  const dxy = p.sxy[to] - p.sxy[from] - (sx * sy) / n;
+  const dyy = p.syy[to] - p.syy[from] - (sy * sy) / n;
+  return Math.max(0, dyy - (dxy * dxy) / dxx);
+}
+
+/**
+ * The search of `hingeFit` over partitions `from..to`; a partition whose two-line RSS exceeds
+ * `cap` is skipped (Infinity: none is).
+ */
+function hingeSearch(p: PrefixSums, from: number, to: number, cap: number): HingeFit | null {
+  const n = p.x.length;
   const { x, mx, sx, sy, sxx, sxy, syy } = p;
   // Whole-data sums (centred, so sX and sY are zero up to rounding).
   const sX = sx[n];
@@ -199,7 +256,20 @@ export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null
   let bestB = 0;
   let bestC = 0;
   let bestJ = -1;
-  for (let j = m - 1; j <= n - m - 1; j++) {
+  let blockEnd = from - 1;
+  for (let j = from; j <= to; j++) {
+    if (j > blockEnd) {
+      // A new block of partitions j..blockEnd. Over it the left run only gains points and the
+      // right run only loses them, and a least-squares line's RSS never falls when points are
+      // added, so RSS_left(j) + RSS_right(blockEnd) bounds every partition's two-line RSS from
+      // below: when it cannot beat the best so far (or exceeds `cap`), the block is skipped.
+      blockEnd = Math.min(to, j + SKIP_BLOCK - 1);
+      const bound = lineRss(p, 0, j + 1) + lineRss(p, blockEnd + 1, n);
+      if (bound >= bestRss || bound > cap) {
+        j = blockEnd;
+        continue;
+      }
+    }
     const xj = x[j] - mx;
     const xj1 = x[j + 1] - mx;
     if (!(xj < xj1)) continue; // tied x: the knot at this value is taken at the last tied point
@@ -224,7 +294,7 @@ export function hingeFit(p: PreparedPoints, minPerSide: number): HingeFit | null
       const bl = lxy / lxx;
       const br = rxy / rxx;
       const twoLine = syy[nl] - syl * syl * inl - bl * lxy + (sYY - syy[nl] - syr * syr * inr - br * rxy);
-      if (twoLine >= bestRss) continue;
+      if (twoLine >= bestRss || twoLine > cap) continue;
       // Knot inside (x_j, x_j+1): the two lines' crossing, if it lies there (Hudson 1966).
       if (bl !== br) {
         const al = (syl - bl * sxl) * inl;

@@ -22,14 +22,14 @@
  */
 import type { MethodOutcome } from '../model/analysis';
 import type { Settings } from '../model/settings';
-import { seededRandom, type Random } from '../math/random';
+import { seededRandomAfter, type Random } from '../math/random';
 import { median, quantile, sampleSd } from '../math/stats';
 import type { DetectorInput } from './detector';
 import { minPerSide } from './edge-floor';
 import { fitSample, type MethodSample } from './hinge-method';
 import { HINGE_METHODS } from './methods';
 import { timeAtValue, type MonotoneCurve } from './read-off';
-import { hingeFit, hingeValue, twoRegressionSplit, type HingeFit, type PreparedPoints } from './segments';
+import { hingeFit, hingeValue, twoRegressionSplit, type HingeFit, type PreparedPoints, type PrefixSums } from './segments';
 import { vslopeSample } from './vslope-hinge';
 
 export interface ThresholdCi {
@@ -55,7 +55,7 @@ interface Refit {
   readonly fit: HingeFit;
   readonly residuals: Float64Array;
   readonly block: number;
-  readonly estimate: (p: PreparedPoints) => number | null;
+  readonly estimate: (p: PrefixSums) => number | null;
 }
 
 /** One replicate's y and prefix sums, sized to the largest window, reused by every method and replicate. */
@@ -101,11 +101,13 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
   if (typeof sample === 'string') return null;
   const m = minPerSide(input.settings, sample.x.length);
   // Residuals always come from the continuous fit; `vslope` is then refitted its own way.
-  const estimateKnot =
-    method === 'vslope' ? (p: PreparedPoints) => twoRegressionSplit(p, m)?.breakX ?? null : (p: PreparedPoints) => hingeFit(p, m)?.knot ?? null;
   const base = fitSample(sample, m);
   if (!base) return null;
   const { p, fit } = base;
+  // A replicate's knot is searched first near the original one (the same fit, found sooner).
+  const near = fit.pointsBefore - 1;
+  const estimateKnot =
+    method === 'vslope' ? (q: PrefixSums) => twoRegressionSplit(q, m)?.breakX ?? null : (q: PrefixSums) => hingeFit(q, m, near)?.knot ?? null;
   const n = p.x.length;
   const residuals = new Float64Array(n);
   for (let i = 0; i < n; i++) residuals[i] = p.y[i] - hingeValue(fit, p.x[i]);
@@ -128,11 +130,35 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
 }
 
 /**
+ * A method's x prefix sums into the shared scratch arrays, as preparePoints made them (the
+ * same additions in the same order, so the same numbers). x does not change between
+ * replicates, so they are written once per method and run of replicates.
+ */
+function xSumsInto(r: Refit, scratch: Scratch): void {
+  const { x, mx } = r;
+  const { sx, sxx } = scratch;
+  let ax = 0;
+  let axx = 0;
+  sx[0] = 0;
+  sxx[0] = 0;
+  for (let i = 0; i < x.length; i++) {
+    const cx = x[i] - mx;
+    sx[i + 1] = ax += cx;
+    sxx[i + 1] = axx += cx * cx;
+  }
+}
+
+/** Random numbers one replicate of a method draws: one per block of residuals. */
+function drawsPerReplicate(r: Refit): number {
+  return Math.ceil(r.residuals.length / r.block);
+}
+
+/**
  * One replicate of a method's points: fitted values plus residuals drawn in moving blocks,
- * written straight into the shared scratch arrays, with the prefix sums accumulated in the
- * same pass. The sums are centred on the original points' mean (the fits only take
- * differences of the sums, so any fixed centre gives the same fit; this one needs no second
- * pass over the replicate).
+ * written straight into the shared scratch arrays, with the y prefix sums accumulated in the
+ * same pass (the x sums are already there: `xSumsInto`). The sums are centred on the original
+ * points' mean (the fits only take differences of the sums, so any fixed centre gives the same
+ * fit; this one needs no second pass over the replicate).
  */
 function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoints {
   const { x, mx, fit, residuals } = r;
@@ -140,20 +166,14 @@ function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoint
   const n = residuals.length;
   const L = r.block;
   const centre = r.my;
-  // The x sums are those preparePoints made (same order of operations), rebuilt here because
-  // the arrays are shared with the other methods.
   // The running sums are carried in locals (the same additions in the same order as reading
   // each sum back from its array, so the same numbers), and the fit read once: its intercept,
   // slopes and knot.
   const { intercept, slopeBefore, knot } = fit;
   const bend = fit.slopeAfter - fit.slopeBefore;
-  let ax = 0;
-  let axx = 0;
   let ay = 0;
   let axy = 0;
   let ayy = 0;
-  sx[0] = 0;
-  sxx[0] = 0;
   sy[0] = 0;
   sxy[0] = 0;
   syy[0] = 0;
@@ -165,28 +185,17 @@ function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoint
       const xi = x[i];
       // hingeValue(fit, xi), written out.
       const v = intercept + slopeBefore * xi + (xi > knot ? bend * (xi - knot) : 0) + residuals[i + shift];
-      const cx = xi - mx;
       const cy = v - centre;
       y[i] = v;
-      sx[i + 1] = ax += cx;
-      sxx[i + 1] = axx += cx * cx;
       sy[i + 1] = ay += cy;
-      sxy[i + 1] = axy += cx * cy;
+      sxy[i + 1] = axy += (xi - mx) * cy;
       syy[i + 1] = ayy += cy * cy;
     }
   }
-  const m = n + 1;
-  return {
-    x,
-    y: y.subarray(0, n),
-    mx,
-    my: centre,
-    sx: sx.subarray(0, m),
-    sy: sy.subarray(0, m),
-    sxx: sxx.subarray(0, m),
-    sxy: sxy.subarray(0, m),
-    syy: syy.subarray(0, m),
-  };
+  // The scratch arrays are passed whole (no subarray views made per replicate): the fits read
+  // points 0..n−1 and sums 0..n only (segments.ts PrefixSums). Same shape as preparePoints'
+  // result, so the fits see one object layout.
+  return { x, y, mx, my: centre, sx, sy, sxx, sxy, syy };
 }
 
 /** Early-stop rule of the settings; `checkEvery` 0 draws every replicate. */
@@ -224,6 +233,12 @@ export interface MethodReplicates {
  * replicate. Null when no method can be refitted or no replicates are asked for (then nothing
  * of the bootstrap is set up).
  *
+ * Order of work: the replicates are drawn in runs of `checkEvery` (all of them when it is 0),
+ * method by method within a run, so a method's x sums are written once per run. The random
+ * numbers are those of one seeded sequence read replicate by replicate, method by method
+ * within a replicate: each replicate of a method takes its own stretch of the sequence
+ * (`seededRandomAfter`), so the order of work does not change a single number.
+ *
  * Early stop (settings `checkEvery`, `stableWithinPct`; our choice, not a published rule):
  * after every `checkEvery` replicates the percentile interval of `combine` (the consensus'
  * median) is formed again; from the second check on, drawing stops when both of its ends
@@ -252,12 +267,28 @@ export function methodReplicates(
   for (const r of refits) largest = Math.max(largest, r.x.length);
   const scratch = scratchFor(largest);
   const rule = stopRule(input.settings.thresholds.bootstrap);
-  const random = seededRandom((seed + seedOffset) >>> 0);
+  const sequenceSeed = (seed + seedOffset) >>> 0;
+  // Where each method's draws start within a replicate, and the draws of a whole replicate.
+  const offsets: number[] = [];
+  let perReplicate = 0;
+  for (const r of refits) {
+    offsets.push(perReplicate);
+    perReplicate += drawsPerReplicate(r);
+  }
+  const run = rule.checkEvery > 0 ? rule.checkEvery : replicates;
   const out: number[][] = [];
   let previous: readonly [number, number] | null = null;
-  for (let b = 0; b < replicates; b++) {
-    out.push(refits.map((r) => r.estimate(resampleInto(r, scratch, random)) ?? Number.NaN));
-    if (rule.checkEvery > 0 && out.length % rule.checkEvery === 0 && out.length < replicates) {
+  for (let start = 0; start < replicates; start += run) {
+    const end = Math.min(replicates, start + run);
+    for (let b = start; b < end; b++) out.push(new Array<number>(refits.length));
+    refits.forEach((r, k) => {
+      xSumsInto(r, scratch);
+      for (let b = start; b < end; b++) {
+        const random = seededRandomAfter(sequenceSeed, b * perReplicate + offsets[k]);
+        out[b][k] = r.estimate(resampleInto(r, scratch, random)) ?? Number.NaN;
+      }
+    });
+    if (rule.checkEvery > 0 && end < replicates) {
       const ends = percentileEnds(out, combine);
       if (previous && ends && intervalIsStable(previous, ends, rule.stableWithinPct)) break;
       previous = ends;

@@ -106,6 +106,27 @@ describe('hingeFit', () => {
     expect(Math.abs(fit.knot - ref.k)).toBeLessThan(0.01);
   });
 
+  // 400 points cross many of the search's 16-partition blocks, most skipped by the block bound.
+  it.each([7, 8, 9])('matches the golden-section search on 400 points, where most blocks of partitions are skipped (seed %i)', (seed) => {
+    const { x, y } = brokenLine(400, seed, 40, 1500 + 100 * (seed - 7));
+    const fit = hingeFit(preparePoints(x, y), 8)!;
+    const ref = bruteHinge(x, y, 8);
+    expect(Math.abs(fit.rss - ref.rss) / ref.rss).toBeLessThan(1e-9);
+    expect(Math.abs(fit.knot - ref.k)).toBeLessThan(0.01);
+  });
+
+  it('returns the very same fit whatever partition it is told to search first (the hint only speeds the search)', () => {
+    for (const seed of [1, 2, 3]) {
+      const { x, y } = brokenLine(300, seed, seed === 2 ? 120 : 30, 1700);
+      const p = preparePoints(x, y);
+      const plain = hingeFit(p, 8)!;
+      // Hints at the true partition, beside it, far from it, and past both ends of the search.
+      for (const near of [plain.pointsBefore - 1, plain.pointsBefore + 3, 10, 150, 290, -5, 400]) {
+        expect(hingeFit(p, 8, near)).toEqual(plain);
+      }
+    }
+  });
+
   it('recovers an exact hinge with the knot between data points (knot 1,712.5, not on the 25-step grid)', () => {
     const x = Array.from({ length: 61 }, (_, i) => 1000 + 25 * i);
     const y = x.map((v) => 30 + 0.9 * v + 0.5 * Math.max(0, v - 1712.5));
