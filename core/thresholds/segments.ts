@@ -78,6 +78,34 @@ export interface PreparedPoints extends PrefixSums {
   readonly y: Float64Array;
 }
 
+/** Element moves per point the insertion sort may make before it gives up (our choice). */
+const INSERTION_MOVES_PER_POINT = 16;
+
+/**
+ * Stable insertion sort of (x, y) pairs by x into `x` and `y`; false (outputs unusable) when it
+ * would need more than `INSERTION_MOVES_PER_POINT` moves per point. Most samples are VO2 in time
+ * order, nearly sorted already (only breath noise swaps neighbours), where this costs about one
+ * pass instead of a comparison sort; a pair moves only past strictly larger x, so ties keep
+ * their order exactly as the comparison sort by (x, index) does.
+ */
+function insertionSorted(xIn: ArrayLike<number>, yIn: ArrayLike<number>, x: Float64Array, y: Float64Array, n: number): boolean {
+  let budget = INSERTION_MOVES_PER_POINT * n;
+  for (let i = 0; i < n; i++) {
+    const xi = xIn[i];
+    const yi = yIn[i];
+    let j = i - 1;
+    while (j >= 0 && x[j] > xi) {
+      x[j + 1] = x[j];
+      y[j + 1] = y[j];
+      j--;
+      if (--budget < 0) return false;
+    }
+    x[j + 1] = xi;
+    y[j + 1] = yi;
+  }
+  return true;
+}
+
 /** Sort by x and build the prefix sums; x and y must be finite and of equal length. */
 export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, alreadySorted = false): PreparedPoints {
   const n = Math.min(xIn.length, yIn.length);
@@ -88,7 +116,7 @@ export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, al
       x[i] = xIn[i];
       y[i] = yIn[i];
     }
-  } else {
+  } else if (!insertionSorted(xIn, yIn, x, y, n)) {
     const order = Array.from({ length: n }, (_, i) => i);
     order.sort((a, b) => xIn[a] - xIn[b] || a - b);
     for (let i = 0; i < n; i++) {
@@ -139,14 +167,56 @@ function toLine(p: PrefixSums, f: { b: number; a: number; rss: number }, n: numb
   return { slope: f.b, intercept: p.my + f.a - f.b * p.mx, rss: f.rss, n };
 }
 
-/** The two-regression split with the smallest total RSS; null when no split leaves `minPerSide` a side. */
-export function twoRegressionSplit(p: PrefixSums, minPerSide: number): TwoRegressionFit | null {
+/**
+ * The two-regression split with the smallest total RSS; null when no split leaves `minPerSide`
+ * a side. The same lower bounds as `hingeFit` make it faster without changing its answer: a
+ * block of `SKIP_BLOCK` splits is skipped when its left RSS at the start plus its right RSS at
+ * the end cannot beat the best split so far, and `nearSplit` (the bootstrap passes the original
+ * split) has the splits within `HINT_REACH` of it evaluated first, whose best RSS then bounds
+ * the search.
+ */
+export function twoRegressionSplit(p: PrefixSums, minPerSide: number, nearSplit?: number): TwoRegressionFit | null {
   const n = p.x.length;
   const m = Math.max(2, minPerSide);
+  let cap = Infinity;
+  if (nearSplit !== undefined) {
+    const from = Math.max(m, nearSplit - HINT_REACH);
+    const to = Math.min(n - m, nearSplit + HINT_REACH);
+    if (from <= to) cap = splitSearch(p, from, to, Infinity).rss;
+  }
+  const { s: bestS, rss: bestRss } = splitSearch(p, m, n - m, cap);
+  if (bestS < 0) return null;
+  const best = { s: bestS, rss: bestRss, l: runFit(p, 0, bestS)!, r: runFit(p, bestS, n)! };
+  const left = toLine(p, best.l, best.s);
+  const right = toLine(p, best.r, n - best.s);
+  const lo = p.x[0];
+  const hi = p.x[n - 1];
+  const between: [number, number] = [p.x[best.s - 1], p.x[best.s]];
+  let breakX = (between[0] + between[1]) / 2;
+  if (left.slope !== right.slope) {
+    const cross = (right.intercept - left.intercept) / (left.slope - right.slope);
+    if (Number.isFinite(cross)) breakX = Math.min(hi, Math.max(lo, cross));
+  }
+  return { splitIndex: best.s, left, right, rss: best.rss, breakX, splitBetween: between };
+}
+
+/** The best split s in from..to (left run 0..s−1) and its RSS; s −1 when none; blocks bounded above `cap` are skipped. */
+function splitSearch(p: PrefixSums, from: number, to: number, cap: number): { s: number; rss: number } {
+  const n = p.x.length;
   const { sx, sy, sxx, sxy, syy } = p;
   let bestS = -1;
   let bestRss = Infinity;
-  for (let s = m; s <= n - m; s++) {
+  let blockEnd = from - 1;
+  for (let s = from; s <= to; s++) {
+    if (s > blockEnd) {
+      // RSS_left only grows and RSS_right only falls as s moves right (see hingeSearch).
+      blockEnd = Math.min(to, s + SKIP_BLOCK - 1);
+      const bound = lineRss(p, 0, s) + lineRss(p, blockEnd, n);
+      if (bound >= bestRss || bound > cap) {
+        s = blockEnd;
+        continue;
+      }
+    }
     const nr = n - s;
     const sxl = sx[s];
     const syl = sy[s];
@@ -165,19 +235,7 @@ export function twoRegressionSplit(p: PrefixSums, minPerSide: number): TwoRegres
       bestS = s;
     }
   }
-  if (bestS < 0) return null;
-  const best = { s: bestS, rss: bestRss, l: runFit(p, 0, bestS)!, r: runFit(p, bestS, n)! };
-  const left = toLine(p, best.l, best.s);
-  const right = toLine(p, best.r, n - best.s);
-  const lo = p.x[0];
-  const hi = p.x[n - 1];
-  const between: [number, number] = [p.x[best.s - 1], p.x[best.s]];
-  let breakX = (between[0] + between[1]) / 2;
-  if (left.slope !== right.slope) {
-    const cross = (right.intercept - left.intercept) / (left.slope - right.slope);
-    if (Number.isFinite(cross)) breakX = Math.min(hi, Math.max(lo, cross));
-  }
-  return { splitIndex: best.s, left, right, rss: best.rss, breakX, splitBetween: between };
+  return { s: bestS, rss: bestRss };
 }
 
 /**

@@ -104,10 +104,8 @@ function refitFor(method: string, input: DetectorInput): Refit | null {
   const base = fitSample(sample, m);
   if (!base) return null;
   const { p, fit } = base;
-  // A replicate's knot is searched first near the original one (the same fit, found sooner).
-  const near = fit.pointsBefore - 1;
-  const estimateKnot =
-    method === 'vslope' ? (q: PrefixSums) => twoRegressionSplit(q, m)?.breakX ?? null : (q: PrefixSums) => hingeFit(q, m, near)?.knot ?? null;
+  // A replicate's break is searched first near the original one (the same fit, found sooner).
+  const estimateKnot = method === 'vslope' ? vslopeEstimate(p, m) : (q: PrefixSums) => hingeFit(q, m, fit.pointsBefore - 1)?.knot ?? null;
   const n = p.x.length;
   const residuals = new Float64Array(n);
   for (let i = 0; i < n; i++) residuals[i] = p.y[i] - hingeValue(fit, p.x[i]);
@@ -151,6 +149,12 @@ function xSumsInto(r: Refit, scratch: Scratch): void {
 /** Random numbers one replicate of a method draws: one per block of residuals. */
 function drawsPerReplicate(r: Refit): number {
   return Math.ceil(r.residuals.length / r.block);
+}
+
+/** The `vslope` refit of a replicate: the two-regression break, searched first near the original points' split. */
+function vslopeEstimate(p: PrefixSums, m: number): (q: PrefixSums) => number | null {
+  const near = twoRegressionSplit(p, m)?.splitIndex;
+  return (q) => twoRegressionSplit(q, m, near)?.breakX ?? null;
 }
 
 /**

@@ -79,6 +79,25 @@ describe('twoRegressionSplit', () => {
     expect(fit.rss).toBeCloseTo(ref.rss, 6); // brute force, same criterion
   });
 
+  it.each([6, 7])('picks the brute-force split on 400 points, where most blocks of splits are skipped (seed %i)', (seed) => {
+    const { x, y } = brokenLine(400, seed, 40, 1600);
+    const fit = twoRegressionSplit(preparePoints(x, y), 8)!;
+    const ref = bruteTwoRegression(x, y, 8);
+    expect(fit.splitIndex).toBe(ref.s);
+    expect(fit.rss).toBeCloseTo(ref.rss, 6);
+  });
+
+  it('returns the very same split whatever split it is told to search first', () => {
+    for (const seed of [1, 2, 3]) {
+      const { x, y } = brokenLine(300, seed, seed === 2 ? 120 : 30, 1700);
+      const p = preparePoints(x, y);
+      const plain = twoRegressionSplit(p, 8)!;
+      for (const near of [plain.splitIndex, plain.splitIndex - 4, 9, 150, 291, -3, 500]) {
+        expect(twoRegressionSplit(p, 8, near)).toEqual(plain);
+      }
+    }
+  });
+
   it('recovers an exact broken line: slopes 0.92 and 1.37, crossing at 1,700 (worked: -50 + 0.92·1700 = 1,514)', () => {
     const x = Array.from({ length: 61 }, (_, i) => 1000 + 25 * i);
     const y = x.map((v) => -50 + 0.92 * v + 0.45 * Math.max(0, v - 1700));
@@ -143,5 +162,25 @@ describe('hingeFit', () => {
     const y = x.map((v) => 0.95 * v + 0.3 * Math.max(0, v - 3600.005));
     const fit = hingeFit(preparePoints(x, y, true), 8)!;
     expect(fit.knot).toBeCloseTo(3600.005, 3);
+  });
+});
+
+describe('preparePoints', () => {
+  // Reference: a stable sort of the indices by x, ties in input order (as Array.prototype.sort is stable, ES2019).
+  function reference(x: number[], y: number[]) {
+    const order = x.map((_, i) => i).sort((a, b) => x[a] - x[b] || a - b);
+    return { x: order.map((i) => x[i]), y: order.map((i) => y[i]) };
+  }
+  const cases: [string, number[]][] = [
+    ['nearly sorted, as VO2 in time order (insertion sort)', Array.from({ length: 500 }, (_, i) => 800 + 3 * i + ((i * 7919) % 13) * 4)],
+    ['reversed (too many moves: the comparison sort takes over)', Array.from({ length: 2000 }, (_, i) => 5000 - i)],
+    ['with ties, which keep their input order', Array.from({ length: 300 }, (_, i) => 1000 + 10 * Math.floor(i / 3) - (i % 3 === 1 ? 10 : 0))],
+  ];
+  it.each(cases)('sorts %s exactly as a stable sort by x', (_, x) => {
+    const y = x.map((_, i) => i * 1.5);
+    const p = preparePoints(x, y);
+    const ref = reference(x, y);
+    expect(Array.from(p.x)).toEqual(ref.x);
+    expect(Array.from(p.y)).toEqual(ref.y);
   });
 });
