@@ -178,12 +178,7 @@ function toLine(p: PrefixSums, f: { b: number; a: number; rss: number }, n: numb
 export function twoRegressionSplit(p: PrefixSums, minPerSide: number, nearSplit?: number): TwoRegressionFit | null {
   const n = p.x.length;
   const m = Math.max(2, minPerSide);
-  let cap = Infinity;
-  if (nearSplit !== undefined) {
-    const from = Math.max(m, nearSplit - HINT_REACH);
-    const to = Math.min(n - m, nearSplit + HINT_REACH);
-    if (from <= to) cap = splitSearch(p, from, to, Infinity).rss;
-  }
+  const cap = rssNear(nearSplit, m, n - m, (from, to) => splitSearch(p, from, to, Infinity).rss);
   const { s: bestS, rss: bestRss } = splitSearch(p, m, n - m, cap);
   if (bestS < 0) return null;
   const best = { s: bestS, rss: bestRss, l: runFit(p, 0, bestS)!, r: runFit(p, bestS, n)! };
@@ -264,17 +259,24 @@ export function hingeFit(p: PrefixSums, minPerSide: number, nearPartition?: numb
   const m = Math.max(2, minPerSide);
   const first = m - 1;
   const last = n - m - 1;
-  let cap = Infinity;
-  if (nearPartition !== undefined) {
-    const from = Math.max(first, nearPartition - HINT_REACH);
-    const to = Math.min(last, nearPartition + HINT_REACH);
-    if (from <= to) cap = hingeSearch(p, from, to, Infinity)?.rss ?? Infinity;
-  }
+  const cap = rssNear(nearPartition, first, last, (from, to) => hingeSearch(p, from, to, Infinity)?.rss ?? Infinity);
   return hingeSearch(p, first, last, cap);
 }
 
-/** Partitions either side of the hint that are evaluated first (our choice: the knot of a replicate seldom moves far). */
+/** Candidates either side of the hint that are evaluated first (our choice: the knot of a replicate seldom moves far). */
 const HINT_REACH = 2;
+
+/**
+ * The best RSS among the candidates within `HINT_REACH` of `near` (clipped to first..last),
+ * found by `search`; Infinity without a hint or when none lies in the range. An RSS some
+ * candidate reaches, so it bounds the full search from above.
+ */
+function rssNear(near: number | undefined, first: number, last: number, search: (from: number, to: number) => number): number {
+  if (near === undefined) return Infinity;
+  const from = Math.max(first, near - HINT_REACH);
+  const to = Math.min(last, near + HINT_REACH);
+  return from <= to ? search(from, to) : Infinity;
+}
 
 /** Partitions per block of the block bound in `hingeSearch` (our choice; any size gives the same fit). */
 const SKIP_BLOCK = 16;

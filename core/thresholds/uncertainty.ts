@@ -182,6 +182,8 @@ function resampleInto(r: Refit, scratch: Scratch, random: Random): PreparedPoint
   sxy[0] = 0;
   syy[0] = 0;
   let i = 0;
+  // One random number per block of L points: `drawsPerReplicate` counts them, and
+  // methodReplicates hands out the sequence by that count.
   while (i < n) {
     const shift = Math.floor(random() * (n - L + 1)) - i;
     const end = Math.min(n, i + L);
