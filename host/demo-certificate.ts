@@ -21,7 +21,7 @@ export interface DemoCertificate {
 
 export const DEMO_COMMON_NAME = 'Twofold DEMONSTRATION certificate - not for clinical use';
 
-/** Asynchronous, so the key can be generated (off the main thread) while the case is analysed. */
+/** Asynchronous, so the key can be generated (off the main thread) while the case is analysed and the report built. */
 export async function demoCertificate(now: Date, passphrase = randomBytes(18).toString('base64')): Promise<DemoCertificate> {
   const { privateKey, publicKey } = await promisify(generateKeyPair)('rsa', { modulusLength: 2048 });
   const cert = forge.pki.createCertificate();

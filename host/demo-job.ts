@@ -63,17 +63,16 @@ export async function runDemo(outDir: string, now: Date, paper: Settings['report
   const signedOff = recordSignOff(caseFile, reviewer, 'Reviewed; thresholds accepted as shown (demonstration).', 'Demonstration sign-off.');
   if (!signedOff.ok) return signedOff;
   caseFile = signedOff.value;
-  const cert = await certificate;
-  const certificatePath = join(outDir, 'demo-certificate.pem');
-  writeFileSync(certificatePath, cert.certificatePem);
   const result = await runReportJob({
     caseFile,
     raw,
     caseFolder: join(outDir, 'case'),
     outPath: join(outDir, 'twofold-demo-report.pdf'),
     reviewer: DEMO_REVIEWER,
-    certificate: { p12: cert.p12, passphrase: cert.passphrase, name: 'demonstration certificate', kind: 'demonstration' },
+    certificate: { name: 'demonstration certificate', kind: 'demonstration', material: certificate },
     now,
   });
+  const certificatePath = join(outDir, 'demo-certificate.pem');
+  writeFileSync(certificatePath, (await certificate).certificatePem);
   return result.ok ? { ok: true, value: { ...result.value, certificatePath } } : result;
 }

@@ -26,13 +26,24 @@ export interface Certificate {
   readonly kind: Exclude<SignatureKind, 'unsigned'>;
 }
 
+/**
+ * A certificate still being made: its kind and name are known at once, its key material
+ * later (the demonstration key is generated off the main thread while the report is built,
+ * and awaited only to sign).
+ */
+export interface PendingCertificate {
+  readonly kind: Certificate['kind'];
+  readonly name: string;
+  readonly material: Promise<{ readonly p12: Uint8Array; readonly passphrase: string }>;
+}
+
 export interface ReportJob {
   readonly caseFile: CaseFile;
   readonly raw: RawBytes;
   readonly caseFolder: string;
   readonly outPath: string;
   readonly reviewer: string | null;
-  readonly certificate: Certificate | null;
+  readonly certificate: Certificate | PendingCertificate | null;
   readonly now: Date;
 }
 
@@ -73,9 +84,10 @@ export async function runReportJob(job: ReportJob): Promise<Result<ReportJobResu
   });
   let bytes = pdf;
   if (job.certificate) {
+    const { p12, passphrase } = 'material' in job.certificate ? await job.certificate.material : job.certificate;
     const signed = await signReport(pdf, {
-      p12: job.certificate.p12,
-      passphrase: job.certificate.passphrase,
+      p12,
+      passphrase,
       p12Name: job.certificate.name,
       signerName: job.reviewer ?? 'Twofold',
       reason: job.certificate.kind === 'demonstration' ? 'Demonstration signature, not clinical' : 'Two-day CPET report reviewed and issued',

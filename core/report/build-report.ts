@@ -9,7 +9,6 @@
  * settings with their sources, provenance, the reviewer log, the signature block.
  */
 import PDFDocument from 'pdfkit';
-import SVGtoPDF from 'svg-to-pdfkit';
 import type { CaseFile } from '../case/case-file';
 import type { CaseOutcome, DayOutcome, RawBytes, ThresholdState } from '../case/recompute';
 import { sha256Hex } from '../case/sha256';
@@ -22,7 +21,7 @@ import { CAUTIONS } from '../compare/wording';
 import type { ThresholdId } from '../model/analysis';
 import { SETTING_SOURCES, type Settings } from '../model/settings';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
-import { endTidalSpec, equivalentsSpec, overlaySpec, renderSvg, vslopeSpec, type ChartThresholds } from './charts';
+import { endTidalSpec, equivalentsSpec, overlaySpec, drawChart, placeChartRow, vslopeSpec, type ChartThresholds } from './charts';
 import { MISSING, reportFormat } from './format';
 import { localeByTag } from '../locale/locales';
 import { ACCENT, INK, Layout, MUTED, WARN } from './layout';
@@ -314,24 +313,8 @@ function thresholdBlock(L: Layout, id: ThresholdId, state: ThresholdState): void
 }
 
 async function chartRow(L: Layout, specs: Record<string, unknown>[]): Promise<void> {
-  const svgs = await Promise.all(specs.map((s) => renderSvg(s, L.f.locale.tag === 'en' ? undefined : L.f.locale)));
-  const sizes = svgs.map(svgSize);
-  const height = Math.max(...sizes.map((s) => s.height));
-  L.ensure(height + 8);
-  const y = L.doc.y + 4;
-  let x = L.left;
-  svgs.forEach((svg, i) => {
-    SVGtoPDF(L.doc, svg, x, y, { fontCallback: (_family, bold) => (bold ? 'Sans-Bold' : 'Sans'), assumePt: true });
-    x += sizes[i].width + 8;
-  });
-  L.doc.x = L.left;
-  L.doc.y = y + height + 6;
-}
-
-function svgSize(svg: string): { width: number; height: number } {
-  const w = /<svg[^>]*\swidth="([\d.]+)"/.exec(svg);
-  const h = /<svg[^>]*\sheight="([\d.]+)"/.exec(svg);
-  return { width: w ? Number(w[1]) : 250, height: h ? Number(h[1]) : 180 };
+  const charts = await Promise.all(specs.map((s) => drawChart(s, L.fonts, L.f.locale.tag === 'en' ? undefined : L.f.locale)));
+  placeChartRow(L, charts, 4, 6);
 }
 
 async function overlaySection(L: Layout, outcome: CaseOutcome<Comparison>): Promise<void> {

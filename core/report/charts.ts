@@ -1,6 +1,6 @@
 /**
- * The report's charts as SVG, made with vega-lite (compiled to vega, rendered headless with
- * renderer 'none' and `view.toSVG()`), from the same series and threshold values the tables
+ * The report's charts, made with vega-lite (compiled to vega, rendered headless by vega's
+ * canvas renderer onto a context that records PDF drawing: core/report/pdf-canvas.ts), from the same series and threshold values the tables
  * print. Four kinds: the V-slope plot (core/report/vslope-view.ts: VCO2 against VO2 over the
  * analysed window, equal axis scales, the line of identity, both regression lines with their
  * slopes; Beaver et al. 1986), the ventilatory equivalents and the end-tidal
@@ -18,6 +18,8 @@ import { vslopeView } from './vslope-view';
 import { minSec } from '../locale/min-sec';
 import { maxOf, minOf } from '../math/stats';
 import { drawingStep, everyNth, thinnedNote } from './thin';
+import { PdfCanvas } from './pdf-canvas';
+import type { Fonts, Layout } from './layout';
 
 /** The days' colours, from the shared palette (kept under this name for existing callers). */
 export const DAY_COLORS = { day1: DAY_STYLE[1].colour, day2: DAY_STYLE[2].colour } as const;
@@ -40,16 +42,54 @@ function vegaNumberLocale(locale: ReportLocale): Record<string, unknown> {
   return { decimal: locale.decimal, thousands: locale.groupFrom <= 4 ? locale.thousands : '', grouping: [3], currency: ['', ''] };
 }
 
-/** Renders a vega-lite spec to an SVG string, headless; axis numbers in `locale` when given. */
-export async function renderSvg(spec: Spec, locale?: ReportLocale): Promise<string> {
+/** A chart ready to be placed on a page: its size in pt and its recorded drawing. */
+export interface DrawnChart {
+  readonly width: number;
+  readonly height: number;
+  readonly drawing: PdfCanvas;
+}
+
+/** vega's own size of a rendered view (vega-view's render-size: the view plus its padding), in px. */
+function viewSize(view: vega.View): { width: number; height: number } {
+  const inner = view as unknown as { _viewWidth: number; _viewHeight: number };
+  const pad = view.padding() as { left: number; right: number; top: number; bottom: number };
+  return { width: Math.max(0, inner._viewWidth + pad.left + pad.right), height: Math.max(0, inner._viewHeight + pad.top + pad.bottom) };
+}
+
+/**
+ * Renders a vega-lite spec headless with vega's canvas renderer onto a recording context
+ * (core/report/pdf-canvas.ts), in `fonts`; axis numbers in `locale` when given.
+ */
+export async function drawChart(spec: Spec, fonts: Fonts, locale?: ReportLocale): Promise<DrawnChart> {
   const localized = locale ? { ...spec, config: { ...((spec.config as Spec | undefined) ?? {}), locale: { number: vegaNumberLocale(locale) } } } : spec;
   const compiled = vl.compile({ $schema: 'https://vega.github.io/schema/vega-lite/v6.json', ...localized } as vl.TopLevelSpec).spec;
   const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
   try {
-    return await view.toSVG();
+    const drawing = new PdfCanvas(fonts);
+    await view.toCanvas(1, { externalContext: drawing });
+    return { ...viewSize(view), drawing };
   } finally {
     view.finalize();
   }
+}
+
+/**
+ * Places charts side by side, 8 pt apart, `above` pt below the layout's current line (on a
+ * new page when the tallest does not fit in its height and 8 pt), and moves the text
+ * position `below` pt under them.
+ */
+export function placeChartRow(L: Layout, charts: readonly DrawnChart[], above: number, below: number): void {
+  const gap = 8;
+  const height = Math.max(...charts.map((c) => c.height));
+  L.ensure(height + 8);
+  const y = L.doc.y + above;
+  let x = L.left;
+  for (const c of charts) {
+    c.drawing.replay(L.doc, x, y);
+    x += c.width + gap;
+  }
+  L.doc.x = L.left;
+  L.doc.y = y + height + below;
 }
 
 const CONFIG = {

@@ -6,13 +6,12 @@
  * who gave it and how, and any correction with its reason. Nothing is printed when the case
  * records no follow-up.
  */
-import SVGtoPDF from 'svg-to-pdfkit';
 import type { CaseFile } from '../case/case-file';
 import { followUpsOf } from '../case/follow-ups';
 import { followUpCourse, recoveryText, type DayCourse, type FollowUpCourse } from '../followup/course';
 import { FOLLOW_UP_CAUTION } from '../followup/caution';
 import { CHANNEL_LABELS, hoursText } from '../followup/report';
-import { DAY_COLORS, renderSvg } from './charts';
+import { DAY_COLORS, drawChart, placeChartRow } from './charts';
 import { domainTimelineSpec } from './follow-up-charts';
 import { ACCENT, MUTED, WARN, type Layout } from './layout';
 
@@ -75,25 +74,9 @@ async function timelines(L: Layout, course: FollowUpCourse): Promise<void> {
   const perRow = 3;
   const w = (L.width - 8 * (perRow - 1)) / perRow - 42;
   for (let i = 0; i < course.domains.length; i += perRow) {
-    const svgs = await Promise.all(course.domains.slice(i, i + perRow).map((d) => renderSvg(domainTimelineSpec(course, d, w, 70))));
-    const sizes = svgs.map(svgSize);
-    const height = Math.max(...sizes.map((s) => s.height));
-    L.ensure(height + 8);
-    const y = L.doc.y + 2;
-    let x = L.left;
-    svgs.forEach((svg, k) => {
-      SVGtoPDF(L.doc, svg, x, y, { fontCallback: (_family, bold) => (bold ? L.fonts.bold : L.fonts.regular), assumePt: true });
-      x += sizes[k].width + 8;
-    });
-    L.doc.x = L.left;
-    L.doc.y = y + height + 4;
+    const charts = await Promise.all(course.domains.slice(i, i + perRow).map((d) => drawChart(domainTimelineSpec(course, d, w, 70), L.fonts)));
+    placeChartRow(L, charts, 2, 4);
   }
-}
-
-function svgSize(svg: string): { width: number; height: number } {
-  const w = /<svg[^>]*\swidth="([\d.]+)"/.exec(svg);
-  const h = /<svg[^>]*\sheight="([\d.]+)"/.exec(svg);
-  return { width: w ? Number(w[1]) : 160, height: h ? Number(h[1]) : 110 };
 }
 
 /** Column headers for the default domains, short enough for a narrow column; the side-by-side table names them in full. */
