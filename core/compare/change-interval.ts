@@ -62,6 +62,17 @@ export interface ChangeCall {
  */
 export const Z_FINDING = 2.152;
 
+/**
+ * What a change interval of no width means, so that it is not printed as "−18.8 to −18.8":
+ * 'exact' when neither day's value carries a measurement uncertainty (a load set by the
+ * ergometer, a time on the clock), 'not known' when neither day's analysis gives one (the band
+ * alone applies); null when the interval has a width.
+ */
+export function zeroWidth(iv: ChangeInterval): 'exact' | 'not known' | null {
+  if (iv.lowPct !== iv.highPct) return null;
+  return iv.day1Sd === 0 && iv.day2Sd === 0 ? 'exact' : 'not known';
+}
+
 export function changeCall(day1: number, day2: number, day1Sd: number | null, day2Sd: number | null, band: AppliedBand, measurement: string, zCall: number = Z95): ChangeCall | null {
   if (!(day1 > 0) || !(day2 > 0)) return null;
   const r = Math.log(day2 / day1);

@@ -18,7 +18,7 @@
  * reproduced when every primary facet reproduced; undetermined otherwise (one facet
  * undetermined, or the facets disagree in direction).
  */
-import { verdictWords, Z_FINDING } from './change-interval';
+import { verdictWords, zeroWidth, Z_FINDING } from './change-interval';
 import { Z95 } from './bands';
 import type { MetricDefinition } from './metric-catalog';
 import type { MetricId, MetricRow, Verdict } from './types';
@@ -72,7 +72,9 @@ function signed(value: number, digits: number, unit: string): string {
 function facet(label: string, row: MetricRow | undefined): string | null {
   if (!row || row.verdict === 'not_comparable' || !row.interval) return null;
   const iv = row.interval;
-  return `${label} ${signed(iv.changePct, 1, ' %')} (interval ${signed(iv.lowPct, 1, '')} to ${signed(iv.highPct, 1, ' %')}; ${verdictWords(row.verdict)})`;
+  const none = zeroWidth(iv);
+  const interval = none === 'exact' ? 'exact, no measurement interval' : none === 'not known' ? 'no measurement interval' : `interval ${signed(iv.lowPct, 1, '')} to ${signed(iv.highPct, 1, ' %')}`;
+  return `${label} ${signed(iv.changePct, 1, ' %')} (${interval}; ${verdictWords(row.verdict)})`;
 }
 
 function notComparableText(rows: readonly MetricRow[]): string {

@@ -11,7 +11,7 @@
  */
 import type { TestAnalysis } from '../model/analysis';
 import { bandFor, DEFAULT_BAND_TABLE } from './bands';
-import { changeCall, verdictWords } from './change-interval';
+import { changeCall, verdictWords, zeroWidth } from './change-interval';
 import { findingZ } from './findings';
 import { measurementSd } from './measurement';
 import { METRICS, type MetricDefinition } from './metric-catalog';
@@ -63,7 +63,9 @@ export function compareMetric(def: MetricDefinition, day1: TestAnalysis, day2: T
   const { verdict, interval: iv } = call;
   const adverseBeyondBand = !def.effortCheck && ((verdict === 'fell' && def.adverse === 'lower') || (verdict === 'rose' && def.adverse === 'higher'));
   const missingSd = [m1.sd === null ? 'day 1' : null, m2.sd === null ? 'day 2' : null].filter(Boolean);
-  let reason = `change ${signedPct(iv.changePct)} (measurement interval ${signedPct(iv.lowPct)} to ${signedPct(iv.highPct)}, from ${m1.how}); a reproduced test lies within ${signedPct(band.lowPct)} to ${signedPct(band.highPct)}`;
+  const none = zeroWidth(iv);
+  const measured = none === 'exact' ? ` (exact: ${m1.how})` : none === 'not known' ? '' : ` (measurement interval ${signedPct(iv.lowPct)} to ${signedPct(iv.highPct)}, from ${m1.how})`;
+  let reason = `change ${signedPct(iv.changePct)}${measured}; a reproduced test lies within ${signedPct(band.lowPct)} to ${signedPct(band.highPct)}`;
   if (band.centrePct !== 0) reason += ` (centred on the band's mean day-2 change ${signedPct(band.centrePct)})`;
   if (missingSd.length > 0) reason += `; no measurement interval on ${missingSd.join(' and ')}, so the band alone applies there`;
   reason += `; ${verdictWords(verdict)}`;

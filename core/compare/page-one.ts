@@ -6,7 +6,7 @@
  */
 import { bandStatement } from './bands';
 import type { Comparison } from './compare-tests';
-import { verdictWords } from './change-interval';
+import { verdictWords, zeroWidth } from './change-interval';
 import { isPrimary } from './findings';
 import type { MetricRow } from './types';
 import { formatFixed, formatSigned } from '../locale/format-number';
@@ -49,7 +49,7 @@ function cells(locale: ReportLocale) {
       value(m.day1, d),
       value(m.day2, d),
       signedPct(m.interval?.changePct ?? m.deltaPct),
-      range(m.interval?.lowPct, m.interval?.highPct),
+      m.interval && zeroWidth(m.interval) ? `none (${zeroWidth(m.interval)})` : range(m.interval?.lowPct, m.interval?.highPct),
       m.band ? range(m.band.lowPct, m.band.highPct) : '–',
       verdictWords(m.verdict),
     ];

@@ -6,6 +6,7 @@
 import { useMemo } from 'react';
 import { bandStatement } from '../../../core/compare/bands';
 import type { Comparison } from '../../../core/compare/compare-tests';
+import { zeroWidth } from '../../../core/compare/change-interval';
 import { isPrimary } from '../../../core/compare/findings';
 import { matchedReadingText, type MatchedVariable } from '../../../core/compare/matched';
 import type { EngineView } from '../engine/protocol';
@@ -99,7 +100,7 @@ export function DayOver({ view }: { view: EngineView<Comparison> }) {
                   </td>
                   <td>{m.unit === 's' ? signedClock(m.delta) : signed(m.delta, d, m.unit)}</td>
                   <td>{signed(m.deltaPct, 1, '%')}</td>
-                  <td>{m.interval ? `${signed(m.interval.lowPct, 1, '')} to ${signed(m.interval.highPct, 1, '%')}` : '—'}</td>
+                  <td>{m.interval ? (zeroWidth(m.interval) ? `none (${zeroWidth(m.interval)})` : `${signed(m.interval.lowPct, 1, '')} to ${signed(m.interval.highPct, 1, '%')}`) : '—'}</td>
                   <td>{m.band ? `${signed(m.band.lowPct, 1, '')} to ${signed(m.band.highPct, 1, '%')}` : '—'}</td>
                   <td className="verdict" data-verdict={m.verdict} title={m.reason}>
                     <span className="chip" style={{ background: style.colour }} aria-hidden="true" /> {style.words}

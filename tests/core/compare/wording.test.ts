@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { compareTests } from '../../../core/compare/compare-tests';
 import { CAUTIONS } from '../../../core/compare/wording';
+import { pageOne } from '../../../core/compare/page-one';
 import { DEFAULT_SETTINGS } from '../../../core/model/settings';
 import { buildAnalysis } from './fixture';
 
@@ -15,7 +16,8 @@ describe('summary wording', () => {
     const day1 = buildAnalysis({ vt1: { vo2MlMin: 1500, workW: 100, hrBpm: 130 } });
     const day2 = buildAnalysis({ metadata: d2Start, vt1: { vo2MlMin: 1200, workW: 75, hrBpm: 120 }, derived: { veVco2Slope: 31 } });
     const s = compareTests(day1, day2, DEFAULT_SETTINGS).summary;
-    expect(s).toMatch(/^VT1 came earlier on day 2: VO2 −20.0 % \(interval −20.0 to −20.0 %; lower on day 2\), workload −25.0 %/); // 300/1500, 25/100
+    // The fixture's thresholds carry no interval: the change is stated without one, not as "−20.0 to −20.0".
+    expect(s).toMatch(/^VT1 came earlier on day 2: VO2 −20.0 % \(no measurement interval; lower on day 2\), workload −25.0 %/); // 300/1500, 25/100
     expect(s).toContain('HR −10 bpm');
     expect(s).toContain('Both tests met the maximal-effort criteria.');
     expect(s).toContain('The tests were 24.0 h apart.');
@@ -25,6 +27,18 @@ describe('summary wording', () => {
     expect(CAUTIONS).toMatch(/does not diagnose/);
     expect(CAUTIONS).toMatch(/prolonged symptom flares/);
     expect(CAUTIONS).toMatch(/local regulations and licensed practice/);
+  });
+
+  it('states a change of a load set by the ergometer as exact, with no interval to print', () => {
+    // Peak workload is the load the protocol set (no measurement uncertainty): 180 → 144 W is −20.0 %.
+    const day2 = buildAnalysis({ metadata: d2Start, peak: { workW: 144 } });
+    const c = compareTests(buildAnalysis(), day2, DEFAULT_SETTINGS);
+    const row = c.metrics.find((m) => m.id === 'peak_work')!;
+    expect(row.interval).not.toBeNull();
+    expect([row.interval!.lowPct, row.interval!.highPct]).toEqual([-20, -20]);
+    expect(c.summary).toContain('workload −20.0 % (exact, no measurement interval; lower on day 2)');
+    expect(row.reason).toMatch(/^change −20\.0 ?% \(exact: the load set by the ergometer/);
+    expect(pageOne(c).primary.rows.flat()).toContain('none (exact)');
   });
 
   it('uses no diagnostic language', () => {
