@@ -12,8 +12,9 @@
  *    scale). A breath without a load ends a run.
  * 2. The end of the incremental phase is the last breath of the highest-load run; every
  *    breath after it is recovery.
- * 3. Walk back from that run through runs of strictly lower load. The first run of this rising
- *    chain is the pre-exercise level. The incremental phase starts at the next run, unless
+ * 3. Walk back from that run through runs of lower load (a dip of less than 2 % of the peak
+ *    load below the lowest load met so far is let through, so a load that wavers by a watt
+ *    does not end the chain). The first run of this chain is the pre-exercise level. The incremental phase starts at the next run, unless
  *    that run is itself held for at least 60 s and followed either by a run shorter than 60 s
  *    (a warm-up hold before a ramp) or by a run less than 1/1.5 as long (a warm-up before
  *    shorter stages), in which case it starts one run later.
@@ -34,6 +35,8 @@ import { linearFit } from '../math/linear-fit';
 const WARMUP_HOLD_S = 60;
 /** A first step held this many times longer than the next is a warm-up, not a stage. */
 const STAGE_RATIO = 1.5;
+/** A dip in the recorded load smaller than this share of the peak load does not end the rising chain (our choice). */
+const DIP_SHARE = 0.02;
 
 interface Run {
   readonly load: number;
@@ -95,8 +98,16 @@ function detectFromLoad(
   if (runs.length === 0) return null;
   let peak = 0;
   for (let k = 1; k < runs.length; k++) if (runs[k].load >= runs[peak].load) peak = k;
+  // A recorded load may dip for a breath (measured power, a display rounding, breaths of two
+  // recordings at one time): the chain goes on through a dip of up to `dip` below the lowest
+  // load met so far, and stops at a load above that (an earlier, harder bout).
+  const dip = Math.max(2 * tolerance, DIP_SHARE * runs[peak].load);
   let c0 = peak;
-  while (c0 > 0 && runs[c0 - 1].last + 1 === runs[c0].first && runs[c0 - 1].load < runs[c0].load - tolerance) c0--;
+  let lowest = runs[peak].load;
+  while (c0 > 0 && runs[c0 - 1].last + 1 === runs[c0].first && runs[c0 - 1].load < lowest + dip) {
+    c0--;
+    lowest = Math.min(lowest, runs[c0].load);
+  }
   const endS = breaths[runs[peak].last].timeS;
   if (c0 === peak) return { warmupStartS: null, startS: breaths[runs[peak].first].timeS, endS };
 

@@ -13,51 +13,61 @@
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface MonotoneCurve {
-  readonly timeS: readonly number[];
-  readonly value: readonly number[];
+  readonly timeS: ArrayLike<number>;
+  readonly value: ArrayLike<number>;
 }
 
-/** Non-decreasing least-squares fit of `value` over time (points outside [fromS, toS] or non-finite are left out). */
+/** Non-decreasing least-squares fit of `value` over time (points outside [fromS, toS] or non-finite are left out; times in increasing order). */
 export function monotoneCurve(
-  timeS: readonly number[],
-  value: readonly number[],
+  timeS: ArrayLike<number>,
+  value: ArrayLike<number>,
   fromS: number,
   toS: number,
 ): MonotoneCurve {
-  const t: number[] = [];
-  const v: number[] = [];
-  for (let i = 0; i < timeS.length; i++) {
-    if (timeS[i] >= fromS && timeS[i] <= toS && Number.isFinite(timeS[i]) && Number.isFinite(value[i])) {
-      t.push(timeS[i]);
-      v.push(value[i]);
-    }
+  // The times are in increasing order: the window is one run of indices, found by bisection,
+  // and the typed scratch is sized for it once (no array growth per point).
+  let first = 0;
+  let hi = timeS.length;
+  while (first < hi) {
+    const mid = (first + hi) >> 1;
+    if (timeS[mid] < fromS) first = mid + 1;
+    else hi = mid;
   }
-  // Pool adjacent violators: blocks of (mean, weight), merged while a block's mean falls.
-  const means: number[] = [];
-  const weights: number[] = [];
-  for (const x of v) {
-    means.push(x);
-    weights.push(1);
-    while (means.length > 1 && means[means.length - 2] > means[means.length - 1]) {
-      const w = weights[weights.length - 2] + weights[weights.length - 1];
-      const m = (means[means.length - 2] * weights[weights.length - 2] + means[means.length - 1] * weights[weights.length - 1]) / w;
-      means.pop();
-      weights.pop();
-      means[means.length - 1] = m;
-      weights[weights.length - 1] = w;
+  let last = first;
+  while (last < timeS.length && timeS[last] <= toS) last++;
+  const size = last - first;
+  const t = new Float64Array(size);
+  const means = new Float64Array(size);
+  const weights = new Float64Array(size);
+  let n = 0;
+  // Pool adjacent violators: a stack of blocks (mean, weight), merged while a block's mean falls.
+  let blocks = 0;
+  for (let i = first; i < last; i++) {
+    const ti = timeS[i];
+    const x = value[i];
+    if (!(ti >= fromS && ti <= toS && Number.isFinite(ti) && Number.isFinite(x))) continue;
+    t[n++] = ti;
+    means[blocks] = x;
+    weights[blocks] = 1;
+    blocks++;
+    while (blocks > 1 && means[blocks - 2] > means[blocks - 1]) {
+      const w = weights[blocks - 2] + weights[blocks - 1];
+      means[blocks - 2] = (means[blocks - 2] * weights[blocks - 2] + means[blocks - 1] * weights[blocks - 1]) / w;
+      weights[blocks - 2] = w;
+      blocks--;
     }
   }
   // One node per pooled block, at the block's mean time: a strictly increasing broken line,
   // so that nearby VO2 values map to nearby times (the step function would have flats).
-  const nodeT: number[] = [];
+  const nodeT = new Float64Array(blocks);
   let k = 0;
-  for (let b = 0; b < means.length; b++) {
+  for (let b = 0; b < blocks; b++) {
     let st = 0;
     for (let j = 0; j < weights[b]; j++) st += t[k + j];
-    nodeT.push(st / weights[b]);
+    nodeT[b] = st / weights[b];
     k += weights[b];
   }
-  return { timeS: nodeT, value: means };
+  return { timeS: nodeT, value: means.slice(0, blocks) };
 }
 
 /** Curve value at a time (clamped to the curve's ends); NaN for an empty curve. */

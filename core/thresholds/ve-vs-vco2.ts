@@ -38,7 +38,7 @@ export const veVsVco2 = hingeMethod({
     const pick = (f: (i: number) => number) => windowPoints(series, fromS, toS, (i) => (ok(i) ? f(i) : null)).value;
     const x = pick((i) => smCo2[i]);
     const y = withoutBreathScatter(pick((i) => series.veLMin[i]), pick((i) => smVe[i]), pick((i) => series.vco2MlMin[i] - smCo2[i]));
-    const co2 = monotoneCurve(series.timeS, Array.from(smCo2), fromS, toS);
+    const co2 = monotoneCurve(series.timeS, smCo2, fromS, toS);
     const o2 = vo2Curve(series, fromS, toS);
     return { x, y, xIsTime: false, toPoint: (knot: number) => { const timeS = timeAtValue(co2, knot); return { timeS, vo2MlMin: valueAtTime(o2, timeS) }; } };
   },

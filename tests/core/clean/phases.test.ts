@@ -31,6 +31,35 @@ describe('findPhases', () => {
     expect(p.source).toBe('detected');
   });
 
+  it('keeps the ramp whole when the recorded load dips by a watt now and then', () => {
+    // The protocol of the first test, with every 7th ramp breath recorded 1 W low (as a
+    // measured-power column or a display's rounding wavers). A dip is 1 W, under 2 % of the
+    // 169 W peak; before, the first dip going back from the peak ended the rising chain and
+    // the ramp was taken to start there (at 876 s, the last dip).
+    const wavering = protocol((t) => {
+      const set = t < 120 ? 0 : t < 300 ? 20 : t < 900 ? Math.round(20 + (15 * (t - 300)) / 60) : 20;
+      return { workW: t > 300 && t < 900 && (t / 3) % 7 === 0 ? set - 1 : set };
+    }, 1080);
+    const p = findPhases(wavering, NO_OVERRIDE);
+    expect(p.phases.map((x) => x.name)).toEqual(['rest', 'warmup', 'incremental', 'recovery']);
+    // The dips lower the ramp's least-squares line a little, so it leaves 20 W just after the
+    // hold's last breath (300 s) and before the first ramp breath (303 s).
+    expect(p.incrementalStartS).toBeGreaterThanOrEqual(300);
+    expect(p.incrementalStartS).toBeLessThan(303);
+    expect(p.incrementalEndS).toBe(897);
+    expect(p.rampWPerMin).toBeCloseTo(15, 0);
+  });
+
+  it('stops the chain at an earlier, harder bout', () => {
+    // A 60 W familiarisation bout 0–120 s, rest 0 W 120–300 s, then a ramp of 15 W/min from 0 W:
+    // going back from the peak the chain passes the rest and stops at the 60 W bout (60 W is far
+    // above the lowest load met, 0 W), so the bout is rest-phase and not part of the ramp.
+    const bout = protocol((t) => ({ workW: t < 120 ? 60 : t < 300 ? 0 : t < 900 ? Math.round((15 * (t - 300)) / 60) : 0 }), 1000);
+    const p = findPhases(bout, NO_OVERRIDE);
+    expect(p.incrementalStartS).toBe(300);
+    expect(p.incrementalEndS).toBe(897);
+  });
+
   it('starts a step protocol at the first step, not at the second', () => {
     // Rest without a load signal 0–60 s, warm-up 0 W 60–240 s, then 25 W steps every 120 s to
     // 150 W (6 steps, 240–960 s), recovery 0 W.
