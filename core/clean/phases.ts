@@ -133,16 +133,18 @@ function detectFromLoad(
 }
 
 function rampFit(breaths: readonly Breath[], load: readonly (number | null)[], from: number, to: number) {
-  const t: number[] = [];
-  const y: number[] = [];
+  // Typed arrays: see core/thresholds/window.ts.
+  const t = new Float64Array(Math.max(0, to - from + 1));
+  const y = new Float64Array(Math.max(0, to - from + 1));
+  let k = 0;
   for (let i = from; i <= to; i++) {
     const v = load[i];
     if (v !== null) {
-      t.push(breaths[i].timeS);
-      y.push(v);
+      t[k] = breaths[i].timeS;
+      y[k++] = v;
     }
   }
-  return linearFit(t, y);
+  return linearFit(t.subarray(0, k), y.subarray(0, k));
 }
 
 function splitRuns(load: readonly (number | null)[], tolerance: number): Run[] {
@@ -165,14 +167,15 @@ function splitRuns(load: readonly (number | null)[], tolerance: number): Run[] {
 }
 
 function rampRate(breaths: readonly Breath[], startS: number, endS: number): number | null {
-  const t: number[] = [];
-  const w: number[] = [];
+  const t = new Float64Array(breaths.length);
+  const w = new Float64Array(breaths.length);
+  let k = 0;
   for (const b of breaths) {
     if (b.workW !== null && b.timeS >= startS && b.timeS <= endS) {
-      t.push(b.timeS);
-      w.push(b.workW);
+      t[k] = b.timeS;
+      w[k++] = b.workW;
     }
   }
-  const fit = linearFit(t, w);
+  const fit = linearFit(t.subarray(0, k), w.subarray(0, k));
   return fit ? fit.slope * 60 : null;
 }

@@ -15,7 +15,7 @@ export interface LinearFit {
 }
 
 /** Fit over all pairs; null with fewer than two points or no spread in x. */
-export function linearFit(x: readonly number[], y: readonly number[]): LinearFit | null {
+export function linearFit(x: ArrayLike<number>, y: ArrayLike<number>): LinearFit | null {
   const n = Math.min(x.length, y.length);
   if (n < 2) return null;
   let sx = 0;

@@ -26,19 +26,22 @@ export interface Window {
   readonly toS: number;
 }
 
-function pairs(series: ProcessedSeries, w: Window, pick: (i: number) => [number, number] | null): [number[], number[]] {
-  const x: number[] = [];
-  const y: number[] = [];
+/** The (x, y) pairs inside the window, finite both. Typed arrays: see core/thresholds/window.ts. */
+function pairs(series: ProcessedSeries, w: Window, pick: (i: number) => [number, number] | null): [Float64Array, Float64Array] {
+  const x = new Float64Array(series.timeS.length);
+  const y = new Float64Array(series.timeS.length);
+  let k = 0;
   for (let i = 0; i < series.timeS.length; i++) {
     const t = series.timeS[i];
     if (t < w.fromS || t > w.toS) continue;
     const p = pick(i);
     if (p && Number.isFinite(p[0]) && Number.isFinite(p[1])) {
-      x.push(p[0]);
-      y.push(p[1]);
+      x[k] = p[0];
+      y[k] = p[1];
+      k++;
     }
   }
-  return [x, y];
+  return [x.subarray(0, k), y.subarray(0, k)];
 }
 
 export function veVco2Slope(series: ProcessedSeries, w: Window): number | null {

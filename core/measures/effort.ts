@@ -94,8 +94,17 @@ export function vo2PlateauMeasure(breaths: readonly Breath[], phases: EffortInpu
     return Number.isFinite(rise) ? { riseMlMin: rise, protocol: 'step', slopeRatio: null } : null;
   }
   const fit = (from: number, to: number) => {
-    const part = inc.filter((b) => b.timeS >= from && b.timeS <= to);
-    return linearFit(part.map((b) => b.timeS), part.map((b) => b.vo2MlMin));
+    // Typed arrays: see core/thresholds/window.ts.
+    const t = new Float64Array(inc.length);
+    const v = new Float64Array(inc.length);
+    let k = 0;
+    for (const b of inc) {
+      if (b.timeS >= from && b.timeS <= to) {
+        t[k] = b.timeS;
+        v[k++] = b.vo2MlMin;
+      }
+    }
+    return linearFit(t.subarray(0, k), v.subarray(0, k));
   };
   const final = fit(endS - HOLD_S, endS);
   if (!final) return null;

@@ -116,7 +116,9 @@ export function findThresholds(
   const short = isShortRamp(inc[0], inc[1]);
   const preliminary = estimateThreshold('vt2', VT2_METHODS, input(inc[0], inc[1]), inc, false);
   const bound = vt2Bound(preliminary, inc[1]);
-  const vt1Input = (toS: number): DetectorInput => ({ ...vt1Window(series, phases, toS), settings });
+  // The blanked copy of the series is made once; the two VT1 searches differ only in their end.
+  const below1 = vt1Window(series, phases, inc[1]);
+  const vt1Input = (toS: number): DetectorInput => ({ ...below1, toS, settings });
   const below = estimateThreshold('vt1', VT1_METHODS, vt1Input(bound ?? inc[1]), inc, true, short);
   const vt1 = below.consensus || bound === null ? below : estimateThreshold('vt1', VT1_METHODS, vt1Input(inc[1]), inc, true, short);
   const vt2 = estimateThreshold('vt2', VT2_METHODS, input(vt1.consensus?.timeS ?? inc[0], inc[1]), inc, true, short);

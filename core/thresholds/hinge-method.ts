@@ -12,7 +12,7 @@
 import type { MethodEvidence, MethodOutcome } from '../model/analysis';
 import type { Detector, DetectorInput } from './detector';
 import { minPerSide } from './edge-floor';
-import { hingeFit, preparePoints, type HingeFit, type PreparedPoints } from './segments';
+import { DETECTOR_SCRATCH, hingeFit, preparePoints, type HingeFit, type PointsScratch, type PreparedPoints } from './segments';
 
 export interface ThresholdPoint {
   readonly timeS: number;
@@ -21,8 +21,8 @@ export interface ThresholdPoint {
 
 /** The points one method fits, and how its knot maps to a time and a VO2. */
 export interface MethodSample {
-  readonly x: readonly number[];
-  readonly y: readonly number[];
+  readonly x: ArrayLike<number>;
+  readonly y: ArrayLike<number>;
   /** x is time (already in order) for the time-domain methods. */
   readonly xIsTime: boolean;
   readonly toPoint: (knot: number) => ThresholdPoint;
@@ -92,8 +92,8 @@ export function failed(spec: { method: string; label: string; source: string }, 
 }
 
 /** Fit a sample; null when there are too few points either side. */
-export function fitSample(sample: MethodSample, minPerSide: number): { p: PreparedPoints; fit: HingeFit } | null {
-  const p = preparePoints(sample.x, sample.y, sample.xIsTime);
+export function fitSample(sample: MethodSample, minPerSide: number, scratch?: PointsScratch): { p: PreparedPoints; fit: HingeFit } | null {
+  const p = preparePoints(sample.x, sample.y, sample.xIsTime, scratch);
   const fit = hingeFit(p, minPerSide);
   return fit ? { p, fit } : null;
 }
@@ -109,7 +109,8 @@ export function hingeMethod(spec: HingeMethodSpec): HingeMethod {
         `Too few points in the search window: ${sample.x.length} averaged points, at least ${2 * m} needed (${m} each side of a breakpoint).`,
       );
     }
-    const fitted = fitSample(sample, minPerSide(input.settings, sample.x.length));
+    // The points are read only within this call (the bootstrap makes its own), so they go in the shared scratch.
+    const fitted = fitSample(sample, minPerSide(input.settings, sample.x.length), DETECTOR_SCRATCH);
     if (!fitted) return failed(spec, `No two-line fit was possible: ${spec.xName} does not spread enough in the window.`);
     const { p, fit } = fitted;
     const reason = bendReason(fit, p, spec.bend, spec.yName) ?? spec.accept?.(fit, input, sample) ?? null;

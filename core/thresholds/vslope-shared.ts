@@ -43,7 +43,7 @@ export const BREATH_SIZE_ADJUST = true;
  * least squares; r is nearly orthogonal to the slow two-segment shape, so it is removed
  * first, after Frisch–Waugh–Lovell, approximately). Our choice, tuned on development seeds.
  */
-export function withoutBreathScatter(y: readonly number[], ySmooth: readonly number[], r: readonly number[]): number[] {
+export function withoutBreathScatter(y: ArrayLike<number>, ySmooth: ArrayLike<number>, r: ArrayLike<number>): Float64Array {
   let srr = 0;
   let sry = 0;
   for (let i = 0; i < y.length; i++) {
@@ -51,7 +51,9 @@ export function withoutBreathScatter(y: readonly number[], ySmooth: readonly num
     sry += r[i] * (y[i] - ySmooth[i]);
   }
   const beta = srr > 0 ? sry / srr : 0;
-  return y.map((v, i) => v - beta * r[i]);
+  const out = new Float64Array(y.length);
+  for (let i = 0; i < y.length; i++) out[i] = y[i] - beta * r[i];
+  return out;
 }
 
 const spec = {

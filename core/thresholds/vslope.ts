@@ -12,7 +12,7 @@
 import type { Detector } from './detector';
 import { minPerSide } from './edge-floor';
 import { failed } from './hinge-method';
-import { preparePoints, twoRegressionSplit } from './segments';
+import { DETECTOR_SCRATCH, preparePoints, twoRegressionSplit } from './segments';
 import { vslopeSample, vslopeSlopeReason } from './vslope-hinge';
 
 const spec = {
@@ -27,7 +27,8 @@ export const detect: Detector = (input) => {
   if (sample.x.length < 2 * m) {
     return failed(spec, `Too few points in the search window: ${sample.x.length} averaged points, at least ${2 * m} needed (${m} each side of a breakpoint).`);
   }
-  const p = preparePoints(sample.x, sample.y);
+  // The points are read only within this call, so they go in the shared scratch.
+  const p = preparePoints(sample.x, sample.y, false, DETECTOR_SCRATCH);
   const fit = twoRegressionSplit(p, minPerSide(input.settings, p.x.length));
   if (!fit) return failed(spec, 'No two-line fit was possible: VO2 does not spread enough in the window.');
   const reason = vslopeSlopeReason(fit.left.slope, fit.right.slope);
