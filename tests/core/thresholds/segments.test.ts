@@ -175,6 +175,9 @@ describe('preparePoints', () => {
     ['nearly sorted, as VO2 in time order (insertion sort)', Array.from({ length: 500 }, (_, i) => 800 + 3 * i + ((i * 7919) % 13) * 4)],
     ['reversed (too many moves: the comparison sort takes over)', Array.from({ length: 2000 }, (_, i) => 5000 - i)],
     ['with ties, which keep their input order', Array.from({ length: 300 }, (_, i) => 1000 + 10 * Math.floor(i / 3) - (i % 3 === 1 ? 10 : 0))],
+    // 3,001 points (not a multiple of the merge sort's 32-point runs) in a scrambled order with
+    // every value taken about 30 times: the merge sort must keep ties in input order.
+    ['scrambled, with many ties (merge sort)', Array.from({ length: 3001 }, (_, i) => (i * 7919) % 101)],
   ];
   it.each(cases)('sorts %s exactly as a stable sort by x', (_, x) => {
     const y = x.map((_, i) => i * 1.5);
@@ -182,5 +185,18 @@ describe('preparePoints', () => {
     const ref = reference(x, y);
     expect(Array.from(p.x)).toEqual(ref.x);
     expect(Array.from(p.y)).toEqual(ref.y);
+  });
+
+  it('gives the same points and sums through a reused scratch, large then small', () => {
+    const scratch = { buffers: [] };
+    const big = Array.from({ length: 4000 }, (_, i) => (i * 7919) % 997);
+    const small = Array.from({ length: 50 }, (_, i) => 50 - i);
+    for (const x of [big, small]) {
+      const y = x.map((v, i) => v * 0.5 + i);
+      const fresh = preparePoints(x, y);
+      const reused = preparePoints(x, y, false, scratch);
+      for (const key of ['x', 'y', 'sx', 'sy', 'sxx', 'sxy', 'syy'] as const) expect(Array.from(reused[key]), key).toEqual(Array.from(fresh[key]));
+      expect([reused.mx, reused.my]).toEqual([fresh.mx, fresh.my]);
+    }
   });
 });
