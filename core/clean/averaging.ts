@@ -119,19 +119,21 @@ function meansOverRanges(breaths: readonly Breath[], ranges: IndexRanges): Proce
   const { lo, hi } = ranges;
   const points = lo.length;
   const out: Record<string, (number | null)[]> = {};
+  // Each output is made at its final length and filled (growing it by push copies a large
+  // array several times over).
   REQUIRED.forEach((key, k) => {
     const sum = sums[k];
-    const means: number[] = [];
-    for (let p = 0; p < points; p++) means.push((sum[hi[p] + 1] - sum[lo[p]]) / (hi[p] - lo[p] + 1));
+    const means: number[] = new Array(points);
+    for (let p = 0; p < points; p++) means[p] = (sum[hi[p] + 1] - sum[lo[p]]) / (hi[p] - lo[p] + 1);
     out[key] = means;
   });
   OPTIONAL.forEach((key, k) => {
     const sum = sums[r + k];
     const count = counts[k];
-    const means: (number | null)[] = [];
+    const means: (number | null)[] = new Array(points);
     for (let p = 0; p < points; p++) {
       const c = count[hi[p] + 1] - count[lo[p]];
-      means.push(c === 0 ? null : (sum[hi[p] + 1] - sum[lo[p]]) / c);
+      means[p] = c === 0 ? null : (sum[hi[p] + 1] - sum[lo[p]]) / c;
     }
     out[key] = means;
   });

@@ -35,7 +35,8 @@ export function windowPoints(
     value[k] = v;
     k++;
   }
-  return { timeS: timeS.subarray(0, k), value: value.subarray(0, k) };
+  // A view only when some points were left out (a view is one more object per array).
+  return k === timeS.length ? { timeS, value } : { timeS: timeS.subarray(0, k), value: value.subarray(0, k) };
 }
 
 /** First index whose time is at or after `s` (times in increasing order; length when none). */
