@@ -12,7 +12,8 @@
 import type { MethodEvidence, MethodOutcome } from '../model/analysis';
 import type { Detector, DetectorInput } from './detector';
 import { minPerSide } from './edge-floor';
-import { DETECTOR_SCRATCH, hingeFit, preparePoints, type HingeFit, type PointsScratch, type PreparedPoints } from './segments';
+import type { Scratch } from '../math/scratch';
+import { DETECTOR_SCRATCH, hingeFit, preparePoints, type HingeFit, type PreparedPoints } from './segments';
 
 export interface ThresholdPoint {
   readonly timeS: number;
@@ -92,7 +93,7 @@ export function failed(spec: { method: string; label: string; source: string }, 
 }
 
 /** Fit a sample; null when there are too few points either side. */
-export function fitSample(sample: MethodSample, minPerSide: number, scratch?: PointsScratch): { p: PreparedPoints; fit: HingeFit } | null {
+export function fitSample(sample: MethodSample, minPerSide: number, scratch?: Scratch): { p: PreparedPoints; fit: HingeFit } | null {
   const p = preparePoints(sample.x, sample.y, sample.xIsTime, scratch);
   const fit = hingeFit(p, minPerSide);
   return fit ? { p, fit } : null;

@@ -10,6 +10,7 @@
  * incremental test. The curve joins the pooled blocks' means, each placed at its block's mean
  * time, by straight lines (our choice, so the curve has no flat steps). Units: s and mL/min.
  */
+import { newScratch, scratchArrays } from '../math/scratch';
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface MonotoneCurve {
@@ -17,24 +18,8 @@ export interface MonotoneCurve {
   readonly value: ArrayLike<number>;
 }
 
-/**
- * Scratch for `monotoneCurve`, reused from call to call up to `SCRATCH_MAX` points: an array
- * of more than 16k doubles is a large object to V8, placed on freshly mapped pages, and the
- * page faults of a dozen such arrays per analysis made a 32,000-breath analysis about 25 %
- * dearer per breath in system time than a 4,000-breath one. Larger windows get fresh arrays,
- * so a million-breath test does not leave its scratch held for the life of the process.
- */
-const SCRATCH_MAX = 1 << 17;
-let scratch: [Float64Array, Float64Array, Float64Array] = [new Float64Array(0), new Float64Array(0), new Float64Array(0)];
-
-function scratchFor(size: number): [Float64Array, Float64Array, Float64Array] {
-  if (size > SCRATCH_MAX) return [new Float64Array(size), new Float64Array(size), new Float64Array(size)];
-  if (scratch[0].length < size) {
-    const grown = Math.min(SCRATCH_MAX, Math.max(size, 2 * scratch[0].length));
-    scratch = [new Float64Array(grown), new Float64Array(grown), new Float64Array(grown)];
-  }
-  return scratch;
-}
+/** Work arrays of `monotoneCurve` (core/math/scratch.ts). */
+const CURVE_SCRATCH = newScratch();
 
 /** Non-decreasing least-squares fit of `value` over time (points outside [fromS, toS] or non-finite are left out; times in increasing order). */
 export function monotoneCurve(
@@ -55,7 +40,7 @@ export function monotoneCurve(
   let last = first;
   while (last < timeS.length && timeS[last] <= toS) last++;
   const size = last - first;
-  const [t, means, weights] = scratchFor(size);
+  const [t, means, weights] = scratchArrays(CURVE_SCRATCH, [size, size, size]);
   let n = 0;
   // Pool adjacent violators: a stack of blocks (mean, weight), merged while a block's mean falls.
   let blocks = 0;

@@ -25,6 +25,7 @@
  * finite values only (callers remove the rest and say how many they used), at least
  * `minPerSide` points on each side of the break.
  */
+import { newScratch, scratchArrays, type Scratch } from '../math/scratch';
 
 export interface LineFit {
   readonly slope: number;
@@ -108,7 +109,7 @@ function insertionSorted(xIn: ArrayLike<number>, yIn: ArrayLike<number>, x: Floa
 
 /** Run length the merge sort starts from, sorted by insertion (our choice). */
 const MERGE_RUN = 32;
-let mergeScratch: [Float64Array, Float64Array] = [new Float64Array(0), new Float64Array(0)];
+const MERGE_SCRATCH = newScratch();
 
 /**
  * Stable sort of the pairs (x[i], y[i]), i < n, by x, in place: insertion-sorted runs of
@@ -134,13 +135,8 @@ function mergeSorted(x: Float64Array, y: Float64Array, n: number): void {
     }
   }
   if (n <= MERGE_RUN) return;
-  if (mergeScratch[0].length < n) {
-    // Kept for the next sort up to SCRATCH_MAX_POINTS (see PointsScratch), fresh beyond.
-    const grown: [Float64Array, Float64Array] = [new Float64Array(n), new Float64Array(n)];
-    if (n > SCRATCH_MAX_POINTS) return mergeRuns(x, y, n, grown[0], grown[1]);
-    mergeScratch = grown;
-  }
-  mergeRuns(x, y, n, mergeScratch[0], mergeScratch[1]);
+  const [tx, ty] = scratchArrays(MERGE_SCRATCH, [n, n]);
+  mergeRuns(x, y, n, tx, ty);
 }
 
 function mergeRuns(x: Float64Array, y: Float64Array, n: number, tx: Float64Array, ty: Float64Array): void {
@@ -182,41 +178,16 @@ function mergeRuns(x: Float64Array, y: Float64Array, n: number, tx: Float64Array
   }
 }
 
-/**
- * Arrays for `preparePoints` to write into, reused from fit to fit, for a fit whose points do
- * not outlive the detector call that made them (a detector's own fit; not the bootstrap's, which
- * keeps x). An array of more than 16k doubles is a large object to V8 on freshly mapped pages:
- * seven per fit, nine fits per analysis, made a 32,000-breath analysis dearer per breath in
- * system time (page faults) than a 4,000-breath one. Past `SCRATCH_MAX_POINTS` the arrays are
- * made fresh, so a million-breath test leaves nothing held for the life of the process.
- */
-export interface PointsScratch {
-  buffers: Float64Array[];
-}
-
-const SCRATCH_MAX_POINTS = 1 << 16;
-
-/** One scratch for the detectors' own fits (each fit is done with before the next begins). */
-export const DETECTOR_SCRATCH: PointsScratch = { buffers: [] };
-
-/** Seven arrays, two of `n` and five of `n + 1` entries: views into the scratch, or fresh. */
-function pointArrays(n: number, scratch: PointsScratch | undefined): Float64Array[] {
-  const sizes = [n, n, n + 1, n + 1, n + 1, n + 1, n + 1];
-  if (!scratch || n + 1 > SCRATCH_MAX_POINTS) return sizes.map((k) => new Float64Array(k));
-  if (scratch.buffers.length === 0 || scratch.buffers[0].length < n + 1) {
-    const capacity = Math.min(SCRATCH_MAX_POINTS, Math.max(n + 1, 2 * (scratch.buffers[0]?.length ?? 0)));
-    scratch.buffers = sizes.map(() => new Float64Array(capacity));
-  }
-  return sizes.map((k, i) => scratch.buffers[i].subarray(0, k));
-}
+/** One scratch for the detectors' own fits, whose points do not outlive the detector call (see core/math/scratch.ts; not the bootstrap's, which keeps x). */
+export const DETECTOR_SCRATCH: Scratch = newScratch();
 
 /**
  * Sort by x and build the prefix sums; x and y must be finite and of equal length. With
  * `scratch`, the arrays are views into it and are overwritten by the next fit that uses it.
  */
-export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, alreadySorted = false, scratch?: PointsScratch): PreparedPoints {
+export function preparePoints(xIn: ArrayLike<number>, yIn: ArrayLike<number>, alreadySorted = false, scratch?: Scratch): PreparedPoints {
   const n = Math.min(xIn.length, yIn.length);
-  const [x, y, sx, sy, sxx, sxy, syy] = pointArrays(n, scratch);
+  const [x, y, sx, sy, sxx, sxy, syy] = scratchArrays(scratch, [n, n, n + 1, n + 1, n + 1, n + 1, n + 1]);
   if (alreadySorted) {
     for (let i = 0; i < n; i++) {
       x[i] = xIn[i];

@@ -16,7 +16,8 @@
  * search is linear in the number of points. Knot resolution is the spacing of the data's x
  * (a few mL/min of VO2 on averaged data). Units: those of x and each y.
  */
-import { hingeFit, preparePoints, type PointsScratch, type PreparedPoints } from './segments';
+import { newScratch, type Scratch } from '../math/scratch';
+import { hingeFit, preparePoints, type PreparedPoints } from './segments';
 
 export interface SharedKnotFit {
   /** The shared knot, in x units. */
@@ -65,8 +66,8 @@ function lineAtKnot(p: PreparedPoints, j: number): KnotLine | null {
   return { b, c, rss: Math.max(0, cyy - b * cxy - c * czy), a: (sY - b * sX - c * zs) / n };
 }
 
-/** Scratch for each variable's prepared points (see `PointsScratch`). */
-const SHARED_KNOT_SCRATCH: PointsScratch[] = [];
+/** Scratch for each variable's prepared points (core/math/scratch.ts). */
+const SHARED_KNOT_SCRATCH: Scratch[] = [];
 
 /**
  * The shared-knot fit of `ys` against `x` (all of equal length, finite); null when there are
@@ -77,7 +78,7 @@ export function sharedKnotFit(x: ArrayLike<number>, ys: readonly ArrayLike<numbe
   const m = Math.max(2, minPerSide);
   if (ys.length === 0 || n < 2 * m + 1) return null;
   // The prepared points are read only within this call: one reused scratch per variable.
-  const prepared = ys.map((y, v) => preparePoints(x, y, false, (SHARED_KNOT_SCRATCH[v] ??= { buffers: [] })));
+  const prepared = ys.map((y, v) => preparePoints(x, y, false, (SHARED_KNOT_SCRATCH[v] ??= newScratch())));
   const weights: number[] = [];
   for (const p of prepared) {
     const own = hingeFit(p, m);

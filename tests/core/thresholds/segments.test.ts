@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { linearFit } from '../../../core/math/linear-fit';
 import { normalRandom, seededRandom } from '../../../core/math/random';
+import { newScratch } from '../../../core/math/scratch';
 import { hingeFit, hingeValue, preparePoints, twoRegressionSplit } from '../../../core/thresholds/segments';
 
 function brokenLine(n: number, seed: number, noise: number, knot: number) {
@@ -188,7 +189,7 @@ describe('preparePoints', () => {
   });
 
   it('gives the same points and sums through a reused scratch, large then small', () => {
-    const scratch = { buffers: [] };
+    const scratch = newScratch();
     const big = Array.from({ length: 4000 }, (_, i) => (i * 7919) % 997);
     const small = Array.from({ length: 50 }, (_, i) => 50 - i);
     for (const x of [big, small]) {
