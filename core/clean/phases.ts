@@ -14,7 +14,8 @@
  *    breath after it is recovery.
  * 3. Walk back from that run through runs of lower load (a dip of less than 2 % of the peak
  *    load below the lowest load met so far is let through, so a load that wavers by a watt
- *    does not end the chain). The first run of this chain is the pre-exercise level. The incremental phase starts at the next run, unless
+ *    does not end the chain). The first run of this chain is the pre-exercise level. The
+ *    incremental phase starts at the next run, unless
  *    that run is itself held for at least 60 s and followed either by a run shorter than 60 s
  *    (a warm-up hold before a ramp) or by a run less than 1/1.5 as long (a warm-up before
  *    shorter stages), in which case it starts one run later.
