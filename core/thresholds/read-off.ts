@@ -11,6 +11,7 @@
  * time, by straight lines (our choice, so the curve has no flat steps). Units: s and mL/min.
  */
 import { newScratch, scratchArrays } from '../math/scratch';
+import { firstIndexWhere } from '../math/sorted';
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface MonotoneCurve {
@@ -30,13 +31,7 @@ export function monotoneCurve(
 ): MonotoneCurve {
   // The times are in increasing order: the window is one run of indices, found by bisection,
   // and the typed scratch is sized for it once (no array growth per point).
-  let first = 0;
-  let hi = timeS.length;
-  while (first < hi) {
-    const mid = (first + hi) >> 1;
-    if (timeS[mid] < fromS) first = mid + 1;
-    else hi = mid;
-  }
+  const first = firstIndexWhere(timeS, (t) => t >= fromS);
   let last = first;
   while (last < timeS.length && timeS[last] <= toS) last++;
   const size = last - first;

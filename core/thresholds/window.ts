@@ -4,6 +4,7 @@
  * the caller reports how many were used (evidence `points`), so nothing disappears unseen.
  * Assumption: the series is in time order (the import refuses rows whose time runs backwards).
  */
+import { firstIndexWhere } from '../math/sorted';
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface WindowPoints {
@@ -22,7 +23,7 @@ export function windowPoints(
   // arrays are sized for it once. Typed arrays: a plain array of more than 16k numbers is a
   // large object to V8, on freshly mapped pages whose faults made a 32,000-breath analysis
   // dearer per breath than a 4,000-breath one; a typed array's store is reused memory.
-  const first = firstAtOrAfter(t, fromS);
+  const first = firstIndexWhere(t, (x) => x >= fromS);
   let last = first;
   while (last < t.length && t[last] <= toS) last++;
   const timeS = new Float64Array(last - first);
@@ -37,18 +38,6 @@ export function windowPoints(
   }
   // A view only when some points were left out (a view is one more object per array).
   return k === timeS.length ? { timeS, value } : { timeS: timeS.subarray(0, k), value: value.subarray(0, k) };
-}
-
-/** First index whose time is at or after `s` (times in increasing order; length when none). */
-function firstAtOrAfter(t: readonly number[], s: number): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (t[mid] < s) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 /** Ratio a/b, null when b is not positive (a ventilatory equivalent needs a positive uptake). */
