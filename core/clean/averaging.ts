@@ -19,6 +19,7 @@
 import type { Breath } from '../model/breath-table';
 import type { ProcessedSeries } from '../model/analysis';
 import type { AveragingSpec } from '../model/settings';
+import { newScratch, scratchArrays } from '../math/scratch';
 
 type Required = 'timeS' | 'vo2MlMin' | 'vco2MlMin' | 'veLMin';
 type Optional = 'hrBpm' | 'workW' | 'peto2Mmhg' | 'petco2Mmhg';
@@ -97,6 +98,9 @@ function indexRanges(n: number): IndexRanges {
   return { lo: new Int32Array(n), hi: new Int32Array(n) };
 }
 
+const SUMS_SCRATCH = newScratch();
+const COUNTS_SCRATCH = newScratch();
+
 /**
  * Means of every variable over inclusive index ranges, by prefix sums: one pass over the
  * breaths fills every variable's running sums (and counts, for optional ones), then each
@@ -104,8 +108,13 @@ function indexRanges(n: number): IndexRanges {
  */
 function meansOverRanges(breaths: readonly Breath[], ranges: IndexRanges): ProcessedSeries {
   const n = breaths.length;
-  const sums = [...REQUIRED, ...OPTIONAL].map(() => new Float64Array(n + 1));
-  const counts = OPTIONAL.map(() => new Int32Array(n + 1));
+  // The running sums and counts live only in this call: reused work arrays (core/math/scratch.ts),
+  // each first entry set here, every later one written before it is read. Counts are whole
+  // numbers, exact in doubles.
+  const sums = scratchArrays(SUMS_SCRATCH, [...REQUIRED, ...OPTIONAL].map(() => n + 1));
+  const counts = scratchArrays(COUNTS_SCRATCH, OPTIONAL.map(() => n + 1));
+  for (const a of sums) a[0] = 0;
+  for (const a of counts) a[0] = 0;
   const r = REQUIRED.length;
   for (let i = 0; i < n; i++) {
     const b = breaths[i];
