@@ -82,7 +82,7 @@ export interface ScalingRow {
 }
 
 /** How many methods found VT1 and VT2 on the table ('6/6, 3/3'). */
-function methodsFound(table: BreathTable): string {
+export function methodsFound(table: BreathTable): string {
   const a = analyzeTest(table, NO_BOOTSTRAP, noClinicalInputs());
   const count = (t: typeof a.vt1) => `${t.methods.filter((m) => m.found).length}/${t.methods.length}`;
   return `${count(a.vt1)}, ${count(a.vt2)}`;

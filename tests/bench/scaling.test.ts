@@ -6,7 +6,7 @@
  * (process.cpuUsage), so the wall-clock share other work takes of the cores does not count.
  */
 import { describe, expect, it } from 'vitest';
-import { DENSITIES, NO_BOOTSTRAP, spreadPct, usPerBreath } from '../../bench/scaling';
+import { denseTable, DENSITIES, methodsFound, NO_BOOTSTRAP, spreadPct, usPerBreath } from '../../bench/scaling';
 
 describe('cost per breath, 500 → 32,000 breaths', () => {
   it('grows no faster than the number of breaths with the bootstrap off', () => {
@@ -21,10 +21,14 @@ describe('cost per breath, 500 → 32,000 breaths', () => {
     // to 13 µs).
     const midIndex = rows.findIndex((r) => r.breaths >= 3_500);
     for (const r of rows.slice(midIndex + 1)) expect(r.usPerBreath, `${r.breaths} breaths`).toBeLessThanOrEqual(1.2 * rows[midIndex].usPerBreath);
-    // The ±20 % target over the whole range is printed above and in docs/performance.md. It is
-    // not asserted: the cost per breath falls with size (the threshold searches cost about as
-    // much per analysis at 482 breaths as at 31,647), so the smallest test sits about 25–30 %
-    // above the mean and the largest about as far below it; that is cheaper than linear, not
-    // dearer, and the check above is the one that catches growth faster than the breaths.
+    // The ±20 % target over the whole range is printed above and in docs/performance.md, and
+    // is not met (15–37 % in runs of 2026-12-04): the smallest test is the dearest per breath
+    // (fixed costs of each analysis, and its noisier averaged series makes the bounded knot
+    // searches prune less), not the largest. The check above is the one that catches growth
+    // faster than the breaths.
+    // Every size must find VT1 and VT2 by every method, or the sizes did not do the same work
+    // (before the phase rule let a one-watt dip through, the tables of 16 runs and more lost
+    // the ramp's start and most methods failed early, which made them look cheap).
+    for (const k of DENSITIES) expect(methodsFound(denseTable(k)), `${k} runs merged`).toBe('6/6, 3/3');
   }, 180_000);
 });
