@@ -15,7 +15,7 @@ import type { ThresholdEstimate } from '../thresholds/detector';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../version';
 import { removeOutliers } from '../clean/outliers';
 import { leaveOutImpossible } from '../clean/impossible';
-import { averageBreaths, packedSeries } from '../clean/averaging';
+import { averageBreaths } from '../clean/averaging';
 import { findPhases } from '../clean/phases';
 import { intervalLabel } from '../thresholds/interval-label';
 import { isShortRamp } from '../thresholds/ramp-length';
@@ -109,7 +109,7 @@ export function analyzeTest(table: BreathTable, settings: Settings, clinical: Cl
     sourceName: table.sourceName,
     metadata: meta,
     clinical,
-    series: packedSeries(series),
+    series,
     phases,
     removedBreaths: removed,
     vt1,

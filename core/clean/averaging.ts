@@ -51,7 +51,7 @@ export function rollingTimeMean(breaths: readonly Breath[], windowS: number): Pr
     ranges.lo[i] = lo;
     ranges.hi[i] = hi;
   }
-  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
+  return { ...meansOverRanges(breaths, ranges), timeS: breathTimes(breaths) };
 }
 
 /** Fixed bins of binS seconds; the time of each point is its bin's midpoint. */
@@ -73,7 +73,9 @@ export function timeBinMean(breaths: readonly Breath[], binS: number): Processed
     ranges.hi[k] = to;
   });
   const series = meansOverRanges(breaths, ranges);
-  return { ...series, timeS: mids };
+  const timeS = numberArray(mids.length);
+  for (let k = 0; k < mids.length; k++) timeS[k] = mids[k];
+  return { ...series, timeS };
 }
 
 /** Centred window of `count` breaths (for an even count, one more breath after than before). */
@@ -85,7 +87,14 @@ export function rollingBreathMean(breaths: readonly Breath[], count: number): Pr
     ranges.lo[i] = Math.max(0, i - before);
     ranges.hi[i] = Math.min(breaths.length - 1, i + after);
   }
-  return { ...meansOverRanges(breaths, ranges), timeS: breaths.map((b) => b.timeS) };
+  return { ...meansOverRanges(breaths, ranges), timeS: breathTimes(breaths) };
+}
+
+/** Each breath's time, in an array of exactly that length. */
+function breathTimes(breaths: readonly Breath[]): number[] {
+  const t = numberArray(breaths.length);
+  for (let i = 0; i < breaths.length; i++) t[i] = breaths[i].timeS;
+  return t;
 }
 
 /** Inclusive index ranges [lo[k], hi[k]], one per output point. */
@@ -96,6 +105,16 @@ interface IndexRanges {
 
 function indexRanges(n: number): IndexRanges {
   return { lo: new Int32Array(n), hi: new Int32Array(n) };
+}
+
+/** An array that will hold only numbers (its own making place; see meansOverRanges). */
+function numberArray(n: number): number[] {
+  return new Array<number>(n);
+}
+
+/** An array that will hold numbers and nulls. */
+function nullableArray(n: number): (number | null)[] {
+  return new Array<number | null>(n);
 }
 
 const SUMS_SCRATCH = newScratch();
@@ -129,17 +148,27 @@ function meansOverRanges(breaths: readonly Breath[], ranges: IndexRanges): Proce
   const points = lo.length;
   const out: Record<string, (number | null)[]> = {};
   // Each output is made at its final length and filled (growing it by push copies a large
-  // array several times over).
+  // array several times over), by one of two makers: V8 learns what the arrays of one making
+  // place hold, and an array of numbers made where others got nulls would be made boxed
+  // (about 24 instead of 8 bytes a point, kept as long as the case is open).
   REQUIRED.forEach((key, k) => {
     const sum = sums[k];
-    const means: number[] = new Array(points);
+    const means = numberArray(points);
     for (let p = 0; p < points; p++) means[p] = (sum[hi[p] + 1] - sum[lo[p]]) / (hi[p] - lo[p] + 1);
     out[key] = means;
   });
   OPTIONAL.forEach((key, k) => {
     const sum = sums[r + k];
     const count = counts[k];
-    const means: (number | null)[] = new Array(points);
+    let gaps = false;
+    for (let p = 0; p < points && !gaps; p++) gaps = count[hi[p] + 1] === count[lo[p]];
+    if (!gaps) {
+      const means = numberArray(points);
+      for (let p = 0; p < points; p++) means[p] = (sum[hi[p] + 1] - sum[lo[p]]) / (count[hi[p] + 1] - count[lo[p]]);
+      out[key] = means;
+      return;
+    }
+    const means = nullableArray(points);
     for (let p = 0; p < points; p++) {
       const c = count[hi[p] + 1] - count[lo[p]];
       means[p] = c === 0 ? null : (sum[hi[p] + 1] - sum[lo[p]]) / c;
@@ -185,38 +214,4 @@ export function interpolateToGrid(series: ProcessedSeries, stepS = 1): Processed
     });
   }
   return out as unknown as ProcessedSeries;
-}
-
-/**
- * The series again, each variable in an array of exactly its length holding plain numbers
- * (nulls kept where there are any). Memory only, the values are the same: V8 keeps an array
- * of numbers unboxed, but code that reads it next to an array with nulls may turn it, in
- * place, into one that boxes every number (about 24 instead of 8 bytes a point), and push
- * leaves up to half the length again unused. An analysis keeps its series for as long as the
- * case is open, so it keeps this copy.
- */
-export function packedSeries(series: ProcessedSeries): ProcessedSeries {
-  // Two places that make arrays, because V8 learns what each place stores: one that only
-  // ever stores numbers keeps making unboxed arrays.
-  const numbers = (a: readonly (number | null)[]): number[] => {
-    const out = new Array<number>(a.length);
-    for (let i = 0; i < a.length; i++) out[i] = a[i] as number;
-    return out;
-  };
-  const withNulls = (a: readonly (number | null)[]): (number | null)[] => {
-    const out = new Array<number | null>(a.length);
-    for (let i = 0; i < a.length; i++) out[i] = a[i];
-    return out;
-  };
-  const pack = <T extends number | null>(a: readonly T[]): T[] => (a.includes(null as T) ? withNulls(a) : numbers(a)) as T[];
-  return {
-    timeS: pack(series.timeS),
-    vo2MlMin: pack(series.vo2MlMin),
-    vco2MlMin: pack(series.vco2MlMin),
-    veLMin: pack(series.veLMin),
-    hrBpm: pack(series.hrBpm),
-    workW: pack(series.workW),
-    peto2Mmhg: pack(series.peto2Mmhg),
-    petco2Mmhg: pack(series.petco2Mmhg),
-  };
 }
