@@ -4,6 +4,8 @@
  * sizes). Reference: the same generated test breathed 1–66 times as densely
  * (bench/scaling.ts), so only the number of breaths changes; CPU time of this process
  * (process.cpuUsage), so the wall-clock share other work takes of the cores does not count.
+ * `npm test` runs this file after the others, alone (scripts/test.sh): parallel test files
+ * still inflate the largest tests' CPU time through the shared caches and memory bandwidth.
  */
 import { describe, expect, it } from 'vitest';
 import { denseTable, DENSITIES, methodsFound, NO_BOOTSTRAP, spreadPct, usPerBreath } from '../../bench/scaling';
