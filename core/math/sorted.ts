@@ -14,3 +14,9 @@ export function firstIndexWhere(values: ArrayLike<number>, atOrPast: (value: num
   }
   return lo;
 }
+
+/** The indices [first, last) of the values within [from, to] (both ends included) of a non-decreasing array. */
+export function indexRangeWithin(values: ArrayLike<number>, from: number, to: number): [number, number] {
+  const first = firstIndexWhere(values, (v) => v >= from);
+  return [first, Math.max(first, firstIndexWhere(values, (v) => v > to, first))];
+}

@@ -20,20 +20,20 @@
  */
 import type { ProcessedSeries, WeberClass } from '../model/analysis';
 import { linearFit } from '../math/linear-fit';
+import { indexRangeWithin } from '../math/sorted';
 
 export interface Window {
   readonly fromS: number;
   readonly toS: number;
 }
 
-/** The (x, y) pairs inside the window, finite both. Typed arrays: see core/thresholds/window.ts. */
+/** The (x, y) pairs inside the window (the series in time order), finite both. Typed arrays: see core/thresholds/window.ts. */
 function pairs(series: ProcessedSeries, w: Window, pick: (i: number) => [number, number] | null): [Float64Array, Float64Array] {
-  const x = new Float64Array(series.timeS.length);
-  const y = new Float64Array(series.timeS.length);
+  const [first, last] = indexRangeWithin(series.timeS, w.fromS, w.toS);
+  const x = new Float64Array(last - first);
+  const y = new Float64Array(last - first);
   let k = 0;
-  for (let i = 0; i < series.timeS.length; i++) {
-    const t = series.timeS[i];
-    if (t < w.fromS || t > w.toS) continue;
+  for (let i = first; i < last; i++) {
     const p = pick(i);
     if (p && Number.isFinite(p[0]) && Number.isFinite(p[1])) {
       x[k] = p[0];

@@ -11,7 +11,7 @@
  * time, by straight lines (our choice, so the curve has no flat steps). Units: s and mL/min.
  */
 import { newScratch, scratchArrays } from '../math/scratch';
-import { firstIndexWhere } from '../math/sorted';
+import { indexRangeWithin } from '../math/sorted';
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface MonotoneCurve {
@@ -31,9 +31,7 @@ export function monotoneCurve(
 ): MonotoneCurve {
   // The times are in increasing order: the window is one run of indices, found by bisection,
   // and the typed scratch is sized for it once (no array growth per point).
-  const first = firstIndexWhere(timeS, (t) => t >= fromS);
-  let last = first;
-  while (last < timeS.length && timeS[last] <= toS) last++;
+  const [first, last] = indexRangeWithin(timeS, fromS, toS);
   const size = last - first;
   const [t, means, weights] = scratchArrays(CURVE_SCRATCH, [size, size, size]);
   let n = 0;
@@ -42,7 +40,7 @@ export function monotoneCurve(
   for (let i = first; i < last; i++) {
     const ti = timeS[i];
     const x = value[i];
-    if (!(ti >= fromS && ti <= toS && Number.isFinite(ti) && Number.isFinite(x))) continue;
+    if (!Number.isFinite(ti) || !Number.isFinite(x)) continue;
     t[n++] = ti;
     means[blocks] = x;
     weights[blocks] = 1;

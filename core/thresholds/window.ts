@@ -4,7 +4,7 @@
  * the caller reports how many were used (evidence `points`), so nothing disappears unseen.
  * Assumption: the series is in time order (the import refuses rows whose time runs backwards).
  */
-import { firstIndexWhere } from '../math/sorted';
+import { indexRangeWithin } from '../math/sorted';
 import type { ProcessedSeries } from '../model/analysis';
 
 export interface WindowPoints {
@@ -23,9 +23,7 @@ export function windowPoints(
   // arrays are sized for it once. Typed arrays: a plain array of more than 16k numbers is a
   // large object to V8, on freshly mapped pages whose faults made a 32,000-breath analysis
   // dearer per breath than a 4,000-breath one; a typed array's store is reused memory.
-  const first = firstIndexWhere(t, (x) => x >= fromS);
-  let last = first;
-  while (last < t.length && t[last] <= toS) last++;
+  const [first, last] = indexRangeWithin(t, fromS, toS);
   const timeS = new Float64Array(last - first);
   const value = new Float64Array(last - first);
   let k = 0;

@@ -4,7 +4,7 @@
  * repeated values (the answers must be the same indices, so the same numbers follow).
  */
 import { describe, expect, it } from 'vitest';
-import { firstIndexWhere } from '../../../core/math/sorted';
+import { firstIndexWhere, indexRangeWithin } from '../../../core/math/sorted';
 import { seriesAt } from '../../../core/compare/measurement';
 import type { ProcessedSeries } from '../../../core/model/analysis';
 import { seededRandom } from '../../../core/math/random';
@@ -69,5 +69,24 @@ describe('seriesAt by bisection', () => {
     expect(seriesAt(series, 'hrBpm', 15)).toBe(150);
     expect(seriesAt(series, 'hrBpm', 10)).toBe(100);
     expect(seriesAt(series, 'hrBpm', 31)).toBeNull();
+  });
+});
+
+describe('indexRangeWithin', () => {
+  it('gives the indices a front-to-back filter keeps, on 2,000 random sorted arrays', () => {
+    const rand = seededRandom(11);
+    for (let k = 0; k < 2000; k++) {
+      const values = sortedArray(rand, 1 + Math.floor(rand() * 40));
+      const a = values[Math.floor(rand() * values.length)] + (rand() - 0.5) * 2;
+      const b = a + rand() * 20 - 2; // sometimes an empty window (b < a)
+      const kept = values.flatMap((v, i) => (v >= a && v <= b ? [i] : []));
+      const [first, last] = indexRangeWithin(values, a, b);
+      expect(Array.from({ length: last - first }, (_, i) => first + i)).toEqual(kept);
+    }
+  });
+
+  it('includes both ends and ties: [10, 20] of 5, 10, 10, 15, 20, 20, 25 is indices 1 to 5', () => {
+    expect(indexRangeWithin([5, 10, 10, 15, 20, 20, 25], 10, 20)).toEqual([1, 6]);
+    expect(indexRangeWithin([5, 10, 15], 30, 40)).toEqual([3, 3]);
   });
 });
